@@ -1,0 +1,6 @@
+// The public API of Sagitta: re-exports only (STYLE.md §1). Rooms are listed in data-flow order.
+export * from './errors';
+export * from './warnings';
+export * from './constants';
+export * from './particles';
+export * from './units';

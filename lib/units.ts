@@ -1,0 +1,109 @@
+import { all, create, type MathJsInstance, type Unit } from 'mathjs';
+import { msg, type SourceLocation } from './errors';
+
+/**
+ * Quantities at the boundary (STYLE.md §4). Text like "1.5 T", "15 kG", "300 um", "100 MeV" or
+ * "2.1 GeV/c" is parsed once by mathjs and converted to Sagitta's internal units:
+ *
+ * | dimension | internal unit |
+ * |-----------|---------------|
+ * | field     | tesla         |
+ * | length    | metre         |
+ * | energy    | MeV           |
+ * | momentum  | GeV/c         |
+ * | voltage   | volt          |
+ * | current   | ampere        |
+ *
+ * mathjs has no gauss; it is added here (1 G = 1e-4 T, with SI prefixes so "kG" works), because
+ * older chamber logbooks give fields in kilogauss.
+ */
+const math: MathJsInstance = create(all, {});
+math.createUnit('gauss', { definition: '1e-4 T', prefixes: 'short', aliases: ['G', 'Gs'] }, { override: false });
+
+export type Dimension = 'field' | 'length' | 'energy' | 'momentum' | 'voltage' | 'current';
+
+interface DimensionSpec {
+  readonly base: string;
+  readonly internal: string;
+  readonly label: string;
+  readonly example: string;
+}
+
+const SPECS: Readonly<Record<Dimension, DimensionSpec>> = Object.freeze({
+  field: { base: 'MAGNETIC_FLUX_DENSITY', internal: 'T', label: 'a magnetic field', example: '1.5 T' },
+  length: { base: 'LENGTH', internal: 'm', label: 'a length', example: '2.5 mm' },
+  energy: { base: 'ENERGY', internal: 'MeV', label: 'an energy', example: '100 MeV' },
+  // Momenta are written in energy units over c; "/c" is stripped before parsing.
+  momentum: { base: 'ENERGY', internal: 'GeV', label: 'a momentum', example: '2.1 GeV/c' },
+  voltage: { base: 'ELECTRIC_POTENTIAL', internal: 'V', label: 'a voltage', example: '250 V' },
+  current: { base: 'CURRENT', internal: 'A', label: 'a current', example: '1.2 A' },
+});
+
+export interface QuantityOptions {
+  /** Unit assumed when the text is a bare number, e.g. 'mm'. Without it a bare number is an error. */
+  readonly defaultUnit?: string;
+  /** What is being read, for messages ("--field", "column x"). */
+  readonly what?: string;
+  readonly where?: SourceLocation;
+}
+
+const BARE_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/**
+ * Parses text with a unit into the internal unit of `dimension` (table above).
+ * Throws BAD_QUANTITY, MISSING_UNIT or WRONG_DIMENSION with the text and an example.
+ * @example quantity('15 kG', 'field') // 1.5 (tesla)
+ */
+export function quantity(text: string, dimension: Dimension, options: QuantityOptions = {}): number {
+  const spec = SPECS[dimension];
+  const what = options.what ?? spec.label;
+  const where = options.where ?? {};
+  let s = String(text).trim();
+  if (dimension === 'momentum') s = s.replace(/\s*\/\s*c\s*$/i, '');
+  if (s === '') throw msg.badQuantity(text, what, spec.example, where);
+  if (BARE_NUMBER.test(s)) {
+    if (options.defaultUnit === undefined) throw msg.missingUnit(text, what, spec.example, where);
+    s = `${s} ${options.defaultUnit}`;
+  }
+  let u: Unit;
+  try {
+    const parsed: unknown = math.evaluate(s);
+    if (!math.isUnit(parsed)) throw new Error('not a unit');
+    u = parsed;
+  } catch {
+    throw msg.badQuantity(text, what, spec.example, where);
+  }
+  if (!u.equalBase(math.unit(spec.internal))) throw msg.wrongDimension(text, what, spec.label, spec.example, where);
+  return u.toNumber(spec.internal);
+}
+
+/** "1.5 T" | "15 kG" | "1500 mT" → tesla. */
+export const fieldTesla = (text: string, options?: QuantityOptions): number => quantity(text, 'field', options);
+/** "2.5 mm" | "300 um" → metres. */
+export const lengthMetres = (text: string, options?: QuantityOptions): number => quantity(text, 'length', options);
+/** "100 MeV" | "2 GeV" → MeV. */
+export const energyMeV = (text: string, options?: QuantityOptions): number => quantity(text, 'energy', options);
+/** "2.1 GeV/c" | "350 MeV/c" → GeV/c. */
+export const momentumGeV = (text: string, options?: QuantityOptions): number => quantity(text, 'momentum', options);
+
+/**
+ * Metres per unit for a length unit name as written in a table header ("mm", "cm", "um", "µm",
+ * "m", "in"). Throws UNKNOWN_UNIT for anything that is not a length.
+ * @example metresPerUnit('cm') // 0.01
+ */
+export function metresPerUnit(unit: string, where: SourceLocation = {}): number {
+  const name = unit.trim().replace(/^µ|^μ/, 'u');
+  let u: Unit;
+  try {
+    u = math.unit(1, name);
+  } catch {
+    throw msg.unknownUnit(unit, 'a length', 'um, mm, cm, m', where);
+  }
+  if (!u.equalBase(math.unit('m'))) throw msg.unknownUnit(unit, 'a length', 'um, mm, cm, m', where);
+  return u.toNumber('m');
+}
+
+/** Formats a number in an internal unit with a unit label, for summaries: fmt(1.5, 'T') → "1.5 T". */
+export function formatQuantity(value: number, unit: string, digits = 4): string {
+  return `${Number(value.toPrecision(digits))} ${unit}`;
+}

@@ -1,0 +1,34 @@
+import { describe, expect, it } from 'vitest';
+import { fieldTesla, lengthMetres, energyMeV, momentumGeV, metresPerUnit, quantity } from '../lib/units';
+import { SagittaError } from '../lib/errors';
+
+describe('units at the boundary', () => {
+  it('fieldTesla reads T, mT, G and kG (1 G = 1e-4 T exactly, SI definition of the gauss)', () => {
+    expect(fieldTesla('1.5 T')).toBeCloseTo(1.5, 15);
+    expect(fieldTesla('1500 mT')).toBeCloseTo(1.5, 12);
+    expect(fieldTesla('15 kG')).toBeCloseTo(1.5, 12);
+    expect(fieldTesla('20000 G')).toBeCloseTo(2, 12);
+    expect(fieldTesla('5 kgauss')).toBeCloseTo(0.5, 12);
+  });
+  it('lengthMetres reads um, µm, mm, cm and m', () => {
+    expect(lengthMetres('300 um')).toBeCloseTo(3e-4, 15);
+    expect(lengthMetres('2.5 cm')).toBeCloseTo(0.025, 15);
+    expect(metresPerUnit('µm')).toBeCloseTo(1e-6, 18);
+    expect(metresPerUnit('mm')).toBe(0.001);
+  });
+  it('energyMeV and momentumGeV read eV…TeV with or without /c', () => {
+    expect(energyMeV('2 GeV')).toBeCloseTo(2000, 9);
+    expect(energyMeV('1 TeV')).toBeCloseTo(1e6, 6);
+    expect(momentumGeV('350 MeV/c')).toBeCloseTo(0.35, 12);
+    expect(momentumGeV('2.1 GeV/c')).toBeCloseTo(2.1, 12);
+  });
+  it('a bare number is refused unless a default unit is declared', () => {
+    expect(() => fieldTesla('1.5')).toThrow(SagittaError);
+    expect(() => fieldTesla('1.5')).toThrow(/has no unit/);
+    expect(quantity('12', 'length', { defaultUnit: 'mm' })).toBeCloseTo(0.012, 15);
+  });
+  it('a quantity of the wrong dimension names the text and the expected kind', () => {
+    expect(() => fieldTesla('3 cm')).toThrow(/"3 cm" is not a magnetic field/);
+    expect(() => metresPerUnit('kg')).toThrow(/unknown unit "kg"/);
+  });
+});

@@ -1,0 +1,12 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    include: ['test/**/*.test.ts'],
+    exclude: ['test/bench/**', 'node_modules/**'],
+    testTimeout: 60_000,
+    hookTimeout: 120_000,
+    // Two cores on the reference machine: keep the pool small so browser and kernel tests get time.
+    maxWorkers: 2,
+  },
+});
