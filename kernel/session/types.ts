@@ -1,0 +1,55 @@
+/**
+ * The contract between the protocol server (kernel/protocol), the headless runner (kernel/runner)
+ * and the in-process execution session (kernel/session/session.ts). Plain data in, plain data out:
+ * nothing here knows about sockets or child processes.
+ */
+
+/** One output in several representations, keyed by MIME type (the notebook format's "data"). */
+export type MimeBundle = Record<string, unknown>;
+
+/** Callbacks a running cell uses to emit output while it runs. */
+export interface CellHooks {
+  /** Text written to process.stdout / process.stderr (or console.*) by the cell. */
+  stream(name: 'stdout' | 'stderr', text: string): void;
+  /** A rich output; `update: true` replaces the earlier output carrying the same `displayId`. */
+  display(bundle: MimeBundle, options: { displayId?: string; update?: boolean }): void;
+}
+
+/** A failed cell: the exception's class name, message and a readable traceback (one line per entry). */
+export interface CellError {
+  ename: string;
+  evalue: string;
+  traceback: string[];
+}
+
+/** How a cell ended. `result` is the bundle of the last expression's value, when it has one. */
+export interface CellOutcome {
+  status: 'ok' | 'error';
+  result?: MimeBundle;
+  error?: CellError;
+}
+
+export interface CompletionReply {
+  matches: string[];
+  /** Code-point offsets into the cell text of the range the matches replace. */
+  cursorStart: number;
+  cursorEnd: number;
+}
+
+export type Completeness = 'complete' | 'incomplete' | 'invalid' | 'unknown';
+
+/** An execution context that keeps variables between cells. `cursorPos` values are code points. */
+export interface Session {
+  execute(code: string, hooks: CellHooks): Promise<CellOutcome>;
+  complete(code: string, cursorPos: number): Promise<CompletionReply>;
+  inspect(code: string, cursorPos: number, detailLevel: number): Promise<MimeBundle | undefined>;
+  isComplete(code: string): Promise<Completeness>;
+  /** Asks the running cell to stop (resolves a pending await with an error; see session.ts). */
+  interrupt(): void;
+  close(): void;
+}
+
+export interface SessionOptions {
+  /** Folder of the notebook: relative imports and files resolve from here. */
+  workDir: string;
+}
