@@ -4,3 +4,4 @@ export * from './warnings';
 export * from './constants';
 export * from './particles';
 export * from './units';
+export * from './provenance';
