@@ -5,3 +5,4 @@ export * from './constants';
 export * from './particles';
 export * from './units';
 export * from './provenance';
+export * from './plot/index';

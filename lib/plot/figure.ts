@@ -1,0 +1,93 @@
+import { asMime, escapeHtml, type MimeBundle, type Presentable } from './display';
+import { PALETTE } from './palette';
+
+/** MIME type under which notebook front ends draw a plotly figure from its JSON. */
+export const PLOTLY_MIME = 'application/vnd.plotly.v1+json';
+
+/** One plotly trace (plain JSON data: arrays, not typed arrays). */
+export type PlotTrace = Record<string, unknown> & { type: string; name?: string };
+
+/** A plotly figure as JSON: what the report and front ends draw. */
+export interface PlotSpec {
+  readonly data: readonly PlotTrace[];
+  readonly layout: Readonly<Record<string, unknown>>;
+}
+
+/** The layout every Sagitta figure starts from (our own look; callers add titles and axes). */
+export function baseLayout(title: string, xTitle: string, yTitle: string): Record<string, unknown> {
+  const axis = (text: string) => ({
+    title: { text },
+    gridcolor: PALETTE.grid,
+    zerolinecolor: PALETTE.grid,
+    linecolor: PALETTE.muted,
+    ticks: 'outside',
+    tickcolor: PALETTE.muted,
+    mirror: true,
+  });
+  return {
+    title: { text: title, x: 0, xanchor: 'left', font: { size: 16, color: PALETTE.ink } },
+    font: { family: 'Source Sans 3, Segoe UI, Helvetica, Arial, sans-serif', color: PALETTE.ink, size: 13 },
+    paper_bgcolor: PALETTE.paper,
+    plot_bgcolor: '#ffffff',
+    margin: { l: 64, r: 24, t: 56, b: 56 },
+    bargap: 0.04,
+    xaxis: axis(xTitle),
+    yaxis: axis(yTitle),
+    legend: { orientation: 'h', x: 1, xanchor: 'right', y: 1.02, yanchor: 'bottom' },
+    height: 380,
+  };
+}
+
+/**
+ * A figure: plotly JSON plus the notebook display methods. In a notebook it shows as an
+ * interactive plot (`application/vnd.plotly.v1+json`); front ends without plotly get a short
+ * HTML description and plain text naming what the figure holds.
+ */
+export class Figure implements Presentable {
+  readonly data: readonly PlotTrace[];
+  readonly layout: Readonly<Record<string, unknown>>;
+
+  constructor(spec: PlotSpec) {
+    this.data = spec.data;
+    this.layout = spec.layout;
+  }
+
+  /** The figure title, or '' when it has none. */
+  get title(): string {
+    const t = this.layout.title as { text?: unknown } | string | undefined;
+    return typeof t === 'string' ? t : typeof t?.text === 'string' ? t.text : '';
+  }
+
+  /** Plain JSON (what `JSON.stringify(figure)` writes). */
+  toJSON(): PlotSpec {
+    return { data: this.data, layout: this.layout };
+  }
+
+  /** A one-line-per-trace description: the text fallback of the figure. */
+  describe(): string {
+    const lines = this.data.map((t, i) => `  ${t.name ?? `trace ${i + 1}`}: ${t.type}, ${pointCount(t)} points`);
+    return [`Figure${this.title ? ` "${this.title}"` : ''} (${this.data.length} trace${this.data.length === 1 ? '' : 's'})`, ...lines].join('\n');
+  }
+
+  [asMime](): MimeBundle {
+    const items = this.data.map((t, i) => `<li>${escapeHtml(String(t.name ?? `trace ${i + 1}`))}: ${escapeHtml(t.type)}, ${pointCount(t)} points</li>`).join('');
+    return {
+      [PLOTLY_MIME]: JSON.parse(JSON.stringify(this.toJSON())) as unknown,
+      'text/html': `<figure class="sagitta-figure-text"><figcaption>${escapeHtml(this.title || 'Figure')}</figcaption><ul>${items}</ul></figure>`,
+      'text/plain': this.describe(),
+    };
+  }
+}
+
+function pointCount(t: PlotTrace): number {
+  const x = t.x as ArrayLike<unknown> | undefined;
+  const y = t.y as ArrayLike<unknown> | undefined;
+  return Math.max(x?.length ?? 0, y?.length ?? 0);
+}
+
+/** Copies numbers into a plain array, turning non-finite values into null (plotly leaves a gap). */
+export function plainNumbers(values: ArrayLike<number>): (number | null)[] {
+  const out = new Array<number | null>(values.length);
+  for (let i = 0; i < values.length; i++) out[i] = Number.isFinite(values[i]) ? values[i] : null;
+  return out;
+}

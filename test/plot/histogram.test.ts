@@ -1,0 +1,43 @@
+import { describe, expect, it } from 'vitest';
+import { asMime, binCounts, histogramFigure, PLOTLY_MIME } from '../../lib/plot/index';
+
+describe('binCounts', () => {
+  it('binCounts([0, 1, 1, 2], 2, [0, 2]) puts the upper edge in the last bin', () => {
+    const h = binCounts([0, 1, 1, 2], 2, [0, 2]);
+    expect(Array.from(h.edges)).toEqual([0, 1, 2]);
+    expect(Array.from(h.counts)).toEqual([1, 3]);
+    expect(h.outside).toBe(0);
+  });
+
+  it('binCounts counts values outside the range and non-finite values separately', () => {
+    const h = binCounts([-1, 0.5, NaN, Infinity, 3], 1, [0, 1]);
+    expect(Array.from(h.counts)).toEqual([1]);
+    expect(h.outside).toBe(2);
+    expect(h.nonFinite).toBe(2);
+  });
+
+  it('binCounts(values, 0) is a bad call', () => {
+    expect(() => binCounts([1], 0)).toThrow(/bins = 0 is not valid/);
+  });
+});
+
+describe('histogramFigure', () => {
+  it('uses Sturges\' rule ⌈log₂ n⌉ + 1 for the default bin count (Sturges 1926; common practice)', () => {
+    const values = Array.from({ length: 100 }, (_, i) => i / 10);
+    const fig = histogramFigure(values, { title: 'p', xTitle: 'p [GeV/c]' });
+    expect((fig.data[0].x as number[]).length).toBe(8); // ⌈log₂ 100⌉ + 1 = 7 + 1
+    expect((fig.data[0].y as number[]).reduce((a, b) => a + b, 0)).toBe(100);
+  });
+
+  it('shows as plotly JSON, with HTML and text fallbacks that escape the title', () => {
+    const fig = histogramFigure([1, 2, 3], { title: '<script>alert(1)</script>' });
+    const bundle = fig[asMime]();
+    const spec = bundle[PLOTLY_MIME] as { data: unknown[]; layout: { title: { text: string } } };
+    expect(spec.data).toHaveLength(1);
+    expect(spec.layout.title.text).toBe('<script>alert(1)</script>');
+    expect(bundle['text/html']).not.toContain('<script>');
+    expect(bundle['text/html']).toContain('&lt;script&gt;');
+    expect(bundle['text/plain']).toContain('bar, 3 points');
+    expect(JSON.parse(JSON.stringify(fig))).toEqual(spec);
+  });
+});
