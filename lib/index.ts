@@ -6,3 +6,4 @@ export * from './particles';
 export * from './units';
 export * from './provenance';
 export * from './plot/index';
+export * from './matter/index';
