@@ -1,0 +1,137 @@
+/**
+ * How a cell in any folder sees this package as "sagitta" — for the type checker and at run time —
+ * without files, links or path tricks in the notebook's folder.
+ *
+ * tslab's compiler resolves modules like Node 10 from the folder it was created in, and its
+ * loader requires from there too; so a notebook outside this repository could not import the
+ * package, and one inside it could not either (a package never sits in its own node_modules).
+ *
+ * - Compile time: the compiler reads files through `ts.sys` of tslab's TypeScript. Paths under
+ *   `<workDir>/node_modules/sagitta/` are served from this package's root, and any other
+ *   `<workDir>/node_modules/<name>` the folder lacks is served from this package's own
+ *   node_modules (so the library's dependencies and @types resolve as they do in the repo). The
+ *   library stays an external library to the compiler: it is type-checked, never re-emitted.
+ * - Run time: `require("sagitta")` from compiled cells and from local .ts modules returns the
+ *   library loaded once through the ordinary ESM loader (the same instance the kernel uses, so the
+ *   display sink and provenance registry are shared); a bare name the notebook's folder cannot
+ *   resolve falls back to this package's dependencies.
+ */
+import { existsSync } from 'node:fs';
+import Module, { createRequire } from 'node:module';
+import path from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+
+export const PACKAGE_NAME = 'sagitta';
+
+/** This package's root folder (where package.json is). */
+export const packageRoot: string = path.resolve(fileURLToPath(new URL('../../', import.meta.url)));
+
+const requireHere = createRequire(path.join(packageRoot, 'package.json'));
+
+/** tslab's bundled TypeScript (the compiler that checks and compiles cells). */
+export type TslabTs = typeof import('@tslab/typescript-for-tslab');
+export const tslabTs: TslabTs = createRequire(requireHere.resolve('tslab/package.json'))('@tslab/typescript-for-tslab') as TslabTs;
+
+const virtualRoots = new Set<string>();
+
+/** Where a compiler path really lives, or the path itself when it is not under a virtual root. */
+export function forwardPath(p: string): string {
+  const norm = p.replace(/\\/g, '/');
+  for (const root of virtualRoots) {
+    if (norm !== root && !norm.startsWith(`${root}/`)) continue;
+    const rel = norm.slice(root.length + 1);
+    if (rel === PACKAGE_NAME || rel.startsWith(`${PACKAGE_NAME}/`)) {
+      return path.join(packageRoot, rel.slice(PACKAGE_NAME.length)).replace(/\\/g, '/');
+    }
+    if (rel !== '' && !existsSync(p)) return path.join(packageRoot, 'node_modules', rel).replace(/\\/g, '/');
+  }
+  return p;
+}
+
+let sysPatched = false;
+
+function patchCompilerSys(): void {
+  if (sysPatched) return;
+  sysPatched = true;
+  const sys = tslabTs.sys;
+  const readFile = sys.readFile.bind(sys);
+  const fileExists = sys.fileExists.bind(sys);
+  const directoryExists = sys.directoryExists.bind(sys);
+  const getDirectories = sys.getDirectories.bind(sys);
+  const readDirectory = sys.readDirectory.bind(sys);
+  sys.readFile = (p, encoding) => readFile(forwardPath(p), encoding);
+  sys.fileExists = (p) => fileExists(forwardPath(p));
+  sys.directoryExists = (p) => directoryExists(forwardPath(p));
+  sys.getDirectories = (p) => getDirectories(forwardPath(p));
+  sys.readDirectory = (p, ext, exclude, include, depth) => readDirectory(forwardPath(p), ext, exclude, include, depth);
+  if (sys.getModifiedTime) {
+    const getModifiedTime = sys.getModifiedTime.bind(sys);
+    sys.getModifiedTime = (p) => getModifiedTime(forwardPath(p));
+  }
+  if (sys.watchFile) {
+    const watchFile = sys.watchFile.bind(sys);
+    sys.watchFile = (p, cb, interval, options) => watchFile(forwardPath(p), (_f, kind, time) => cb(p, kind, time), interval, options);
+  }
+}
+
+/** Makes `<workDir>/node_modules/sagitta` visible to tslab's compiler. */
+export function addCompilerRoot(workDir: string): void {
+  patchCompilerSys();
+  virtualRoots.add(path.join(path.resolve(workDir), 'node_modules').replace(/\\/g, '/'));
+}
+
+// ---- run time -------------------------------------------------------------------------------
+
+type Namespace = Record<string, unknown>;
+
+let library: Namespace | undefined;
+let libraryError: unknown;
+let libraryLoading: Promise<void> | undefined;
+
+/** Loads the library once (through the ESM loader, i.e. tsx in the kernel); never rejects. */
+export function loadLibrary(): Promise<void> {
+  libraryLoading ??= import(pathToFileURL(path.join(packageRoot, 'lib', 'index.ts')).href).then(
+    (ns: Namespace) => {
+      library = ns;
+    },
+    (err: unknown) => {
+      libraryError = err;
+    },
+  );
+  return libraryLoading;
+}
+
+let hookUsers = 0;
+let originalRequire: ((id: string) => unknown) | undefined;
+
+function isBareName(id: string): boolean {
+  return !id.startsWith('.') && !path.isAbsolute(id) && !id.startsWith('node:');
+}
+
+/** Installs the `require("sagitta")` hook (reference-counted; undo with `releaseRequireHook`). */
+export function holdRequireHook(): void {
+  if (hookUsers++ > 0) return;
+  const proto = Module.prototype as unknown as { require: (id: string) => unknown };
+  const original = proto.require;
+  originalRequire = original;
+  proto.require = function sagittaRequire(this: unknown, id: string): unknown {
+    if (id === PACKAGE_NAME) {
+      if (library) return library;
+      throw libraryError instanceof Error
+        ? new Error(`the sagitta library failed to load: ${libraryError.message}`, { cause: libraryError })
+        : new Error('the sagitta library is not loaded yet; run the cell again');
+    }
+    try {
+      return original.call(this, id);
+    } catch (err) {
+      if (isBareName(id) && (err as { code?: string }).code === 'MODULE_NOT_FOUND') return requireHere(id);
+      throw err;
+    }
+  };
+}
+
+export function releaseRequireHook(): void {
+  if (hookUsers === 0 || --hookUsers > 0) return;
+  if (originalRequire) (Module.prototype as unknown as { require: unknown }).require = originalRequire;
+  originalRequire = undefined;
+}
