@@ -5,5 +5,8 @@ export * from './constants';
 export * from './particles';
 export * from './units';
 export * from './provenance';
+export * from './io/index';
+export * from './fit/index';
+export * from './track/index';
 export * from './plot/index';
 export * from './matter/index';

@@ -1,0 +1,123 @@
+import { msg } from '../errors';
+import { allocateCircleFits, circleFitAt, STATUS_CODE, type CircleFit, type CircleFitColumns } from './circleFit';
+import { kasaCircle, storeCircle, taubinCircle, type Circle } from './algebraicCircle';
+import { geometricCircleInto, GEOMETRIC_FIT_DEFAULTS } from './geometricCircle';
+
+export type CircleMethod = 'kasa' | 'taubin' | 'geometric';
+export const CIRCLE_METHODS: readonly CircleMethod[] = ['kasa', 'taubin', 'geometric'];
+
+/** Hit coordinates [m] and optional per-hit errors [m] as typed-array columns. */
+export interface PlaneHits {
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  readonly sigmaX?: Float64Array;
+  readonly sigmaY?: Float64Array;
+}
+
+export interface CircleFitOptions {
+  /** Default 'geometric'. */
+  readonly method?: CircleMethod;
+  /** Compute χ² and covariance for the algebraic fits (always done by the geometric fit). Default true. */
+  readonly covariance?: boolean;
+  readonly maxIterations?: number;
+  readonly tolerance?: number;
+  readonly chi2Tolerance?: number;
+}
+
+export const CIRCLE_FIT_DEFAULTS = Object.freeze({ method: 'geometric' as CircleMethod, covariance: true, ...GEOMETRIC_FIT_DEFAULTS });
+
+const CIRCLE: Circle = { xc: 0, yc: 0, radius: 0 };
+
+/**
+ * Fits a circle to every track of a hit table: track k is rows [offsets[k], offsets[k+1]).
+ * Never throws on bad numbers: a track with fewer than 3 hits, non-finite coordinates or
+ * errors, or all hits on one point gets a status and NaN parameters (STYLE.md §6).
+ * @example fitCircles(hits, index.offsets, { method: 'taubin' }).kappa
+ */
+export function fitCircles(hits: PlaneHits, offsets: Int32Array, options: CircleFitOptions = {}): CircleFitColumns {
+  const method = options.method ?? CIRCLE_FIT_DEFAULTS.method;
+  if (!CIRCLE_METHODS.includes(method)) throw msg.badArgument('method', method, CIRCLE_METHODS.join(' | '));
+  const covariance = options.covariance ?? CIRCLE_FIT_DEFAULTS.covariance;
+  const maxIterations = options.maxIterations ?? CIRCLE_FIT_DEFAULTS.maxIterations;
+  const tolerance = options.tolerance ?? CIRCLE_FIT_DEFAULTS.tolerance;
+  const chi2Tolerance = options.chi2Tolerance ?? CIRCLE_FIT_DEFAULTS.chi2Tolerance;
+  const { x, y } = hits;
+  const sx = hits.sigmaX;
+  const sy = hits.sigmaY ?? sx;
+  const count = offsets.length - 1;
+  const out = allocateCircleFits(count);
+  for (let k = 0; k < count; k++) {
+    const from = offsets[k], to = offsets[k + 1];
+    const problem = checkTrack(x, y, sx, sy, from, to);
+    if (problem !== STATUS_CODE.ok) {
+      markFailed(out, k, problem, to - from);
+      continue;
+    }
+    if (method === 'geometric') {
+      geometricCircleInto(x, y, sx, sy, from, to, out, k, maxIterations, tolerance, chi2Tolerance);
+    } else {
+      const ok = method === 'kasa' ? kasaCircle(x, y, sx, sy, from, to, CIRCLE) : taubinCircle(x, y, sx, sy, from, to, CIRCLE);
+      if (ok) storeCircle(CIRCLE, x, y, sx, sy, from, to, out, k, covariance);
+      else markFailed(out, k, STATUS_CODE.degenerate, to - from);
+    }
+  }
+  return out;
+}
+
+function checkTrack(x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined, from: number, to: number): number {
+  if (to - from < 3) return STATUS_CODE['too-few-hits'];
+  let spread = 0;
+  for (let i = from; i < to; i++) {
+    if (!Number.isFinite(x[i]) || !Number.isFinite(y[i])) return STATUS_CODE['bad-input'];
+    if (sx !== undefined && !(sx[i] > 0 && sy![i] > 0 && Number.isFinite(sx[i]) && Number.isFinite(sy![i]))) return STATUS_CODE['bad-input'];
+    spread = Math.max(spread, Math.abs(x[i] - x[from]), Math.abs(y[i] - y[from]));
+  }
+  return spread > 0 ? STATUS_CODE.ok : STATUS_CODE.degenerate;
+}
+
+function markFailed(out: CircleFitColumns, k: number, status: number, nhits: number): void {
+  out.kappa[k] = NaN;
+  out.phi0[k] = NaN;
+  out.d0[k] = NaN;
+  out.xRef[k] = NaN;
+  out.yRef[k] = NaN;
+  out.chi2[k] = NaN;
+  out.ndf[k] = Math.max(0, nhits - 3);
+  out.status[k] = status;
+  out.cov.fill(NaN, 6 * k, 6 * k + 6);
+}
+
+/** Per-hit errors as the fit columns want them: a number means the same error on every hit. */
+function sigmaColumn(sigma: Float64Array | number | undefined, n: number): Float64Array | undefined {
+  if (sigma === undefined) return undefined;
+  if (typeof sigma === 'number') {
+    if (!(sigma > 0)) throw msg.badArgument('sigma', sigma, 'a positive hit error in metres');
+    return new Float64Array(n).fill(sigma);
+  }
+  if (sigma.length !== n) throw msg.badArgument('sigma.length', sigma.length, `${n} (one error per hit)`);
+  return sigma;
+}
+
+/**
+ * Fits one track's hits (in travel order) with the chosen method.
+ * @param x, y hit coordinates [m]
+ * @param sigma per-hit error [m] (array or one number); omitted → estimated from the residuals
+ * @example fitCircle(x, y, { method: 'geometric' }).kappa // signed curvature [1/m]
+ */
+export function fitCircle(x: Float64Array, y: Float64Array, options: CircleFitOptions & { sigma?: Float64Array | number; sigmaY?: Float64Array } = {}): CircleFit {
+  if (x.length !== y.length) throw msg.badArgument('y.length', y.length, `${x.length} (same as x)`);
+  const sigmaX = sigmaColumn(options.sigma, x.length);
+  const sigmaY = options.sigmaY !== undefined ? sigmaColumn(options.sigmaY, x.length) : sigmaX;
+  const fits = fitCircles({ x, y, sigmaX, sigmaY }, Int32Array.of(0, x.length), options);
+  return circleFitAt(fits, 0);
+}
+
+/** Kåsa algebraic fit of one track. See fitCircle. */
+export const fitCircleKasa = (x: Float64Array, y: Float64Array, sigma?: Float64Array | number): CircleFit =>
+  fitCircle(x, y, { method: 'kasa', sigma });
+/** Taubin algebraic fit of one track. See fitCircle. */
+export const fitCircleTaubin = (x: Float64Array, y: Float64Array, sigma?: Float64Array | number): CircleFit =>
+  fitCircle(x, y, { method: 'taubin', sigma });
+/** Geometric least-squares fit of one track. See fitCircle. */
+export const fitCircleGeometric = (x: Float64Array, y: Float64Array, sigma?: Float64Array | number): CircleFit =>
+  fitCircle(x, y, { method: 'geometric', sigma });

@@ -1,0 +1,47 @@
+/**
+ * The hit table: one row per measured point, stored as typed-array columns (STYLE.md §2).
+ *
+ * Lengths are in metres inside Sagitta whatever the file said; `lengthUnit` records what the
+ * file used so that summaries can say so. Rows of one track are identified by (event, track);
+ * within a track the rows are in the order the particle travelled (first hit = where it
+ * entered or was produced) — the turning sense, and so the charge, is read from that order.
+ */
+export interface HitTable {
+  readonly length: number;
+  readonly event: Float64Array;
+  readonly track: Float64Array;
+  /** Bending-plane coordinates [m]. */
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  /** Coordinate along the field [m], when measured. */
+  readonly z?: Float64Array;
+  /** Per-hit position error in the bending plane [m] (σ_x = σ_y unless the two are given). */
+  readonly sigmaX?: Float64Array;
+  readonly sigmaY?: Float64Array;
+  /** Per-hit error along z [m]. */
+  readonly sigmaZ?: Float64Array;
+  /** Where the rows came from, for messages and provenance. */
+  readonly source: HitTableSource;
+}
+
+export interface HitTableSource {
+  /** File name as given by the caller, or a label like "(memory)". */
+  readonly file: string;
+  /** The unit each length column was read in, e.g. { x: 'mm', y: 'mm', z: 'cm' }. */
+  readonly units: Readonly<Record<string, string>>;
+  /** 1-based line of each row in the file (for error messages downstream). */
+  readonly line?: Int32Array;
+  /** Columns present in the file that Sagitta does not use. */
+  readonly ignoredColumns: readonly string[];
+}
+
+/**
+ * Track boundaries over a hit table whose rows of each track are contiguous: track k spans rows
+ * [offsets[k], offsets[k+1]). `event[k]` and `track[k]` are that track's identifiers.
+ */
+export interface TrackIndex {
+  readonly count: number;
+  readonly offsets: Int32Array;
+  readonly event: Float64Array;
+  readonly track: Float64Array;
+}
