@@ -1,0 +1,103 @@
+import { Command, Option } from 'commander';
+import { performance } from 'node:perf_hooks';
+import { readHits } from '../../../lib/io/readHits';
+import { READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv';
+import { formatCsv, rowObjects, writeFileAtomic } from '../../../lib/io/columnTable';
+import { CIRCLE_METHODS, type CircleMethod } from '../../../lib/fit/fitCircles';
+import { measureTracks, type TrackTable } from '../../../lib/track/measureTracks';
+import { trackTableColumns } from '../../../lib/track/trackTableColumns';
+import { fieldTesla, lengthMetres, metresPerUnit } from '../../../lib/units';
+import { msg } from '../../../lib/errors';
+import { consumeWarnings } from '../../../lib/warnings';
+import type { ColumnTable } from '../../../lib/io/columnTable';
+
+export interface FitCommandOptions {
+  field: string;
+  fitter: CircleMethod;
+  out?: string;
+  lengthUnit: string;
+  hitError?: string;
+  chargeNumber: string;
+}
+
+/**
+ * `sagitta fit <hits> --field "1.5 T"`: one row per track (momentum, charge, errors, fit
+ * quality) to a CSV or JSON file, or CSV on stdout; a short summary on stderr.
+ * Exit code 1 only for unusable input; a track that cannot be fitted is a row with a status.
+ */
+export function registerFit(program: Command): void {
+  program
+    .command('fit')
+    .description('fit circles/helices to the tracks in a hit file and report momenta, charges and errors')
+    .argument('<hits>', 'hit file: .csv/.tsv or .jsonl with columns event, track, x, y [, z, sigma | sigma_x, sigma_y, sigma_z]')
+    .requiredOption('-B, --field <quantity>', 'magnetic field along +z with its unit, e.g. "1.5 T", "15 kG", "-0.8 T" (negative: along -z)')
+    .addOption(new Option('--fitter <method>', 'circle fit method').choices(CIRCLE_METHODS as string[]).default('geometric'))
+    .option('-o, --out <file>', 'write results to a .csv or .json file (default: CSV on stdout)')
+    .option('--length-unit <unit>', 'unit of length columns whose header has none, e.g. x[cm] overrides it', READ_HITS_DEFAULTS.lengthUnit)
+    .option('--hit-error <quantity>', 'position error for hits without a sigma column, e.g. "200 um" (default: estimated from each track\'s residuals)')
+    .option('--charge-number <z>', 'charge magnitude |z| of the particles (2 for alpha particles)', '1')
+    .addHelpText('after', `
+Hits of one track must be in the order the particle travelled: the turning sense, and so the
+sign of the charge, is read from that order (B along +z: positive particles turn clockwise).
+
+Output columns: event, track, nhits, charge, R_m, pT_GeV, p_GeV, tanLambda, phi0_rad, d0_m, z0_m,
+sigma_pT_GeV, sigma_p_GeV, kappa_signif, chi2, ndf, iterations, status. p_GeV, tanLambda and z0_m
+need a z column. Status is ok, too-few-hits, degenerate, not-converged or bad-input.
+
+Example:
+  sagitta fit notebooks/data/hits.csv --field "15 kG" --out tracks.csv`)
+    .action((hitsPath: string, options: FitCommandOptions) => {
+      const summary = runFit(hitsPath, options);
+      process.stderr.write(summary + '\n');
+    });
+}
+
+/** Runs the fit command and returns its summary text (also used by tests). */
+export function runFit(hitsPath: string, options: FitCommandOptions): string {
+  const t0 = performance.now();
+  const fieldT = fieldTesla(options.field, { what: '--field' });
+  if (fieldT === 0) throw msg.badArgument('--field', options.field, 'a non-zero field');
+  metresPerUnit(options.lengthUnit);
+  const hitErrorM = options.hitError !== undefined ? lengthMetres(options.hitError, { what: '--hit-error' }) : undefined;
+  const chargeMagnitude = Number(options.chargeNumber);
+  if (!(chargeMagnitude > 0)) throw msg.badArgument('--charge-number', options.chargeNumber, 'a positive number such as 1 or 2');
+  if (options.out !== undefined && !/\.(csv|json)$/i.test(options.out)) throw msg.unknownFormat(options.out, ['.csv', '.json']);
+
+  const hits = readHits(hitsPath, { lengthUnit: options.lengthUnit });
+  const tRead = performance.now();
+  const tracks = measureTracks(hits, { fieldT, method: options.fitter, chargeMagnitude, hitErrorM });
+  const tFit = performance.now();
+  const table = trackTableColumns(tracks);
+  if (options.out === undefined) process.stdout.write(formatCsv(table));
+  else if (/\.json$/i.test(options.out)) writeFileAtomic(options.out, formatJson(table, tracks, hitsPath, hits.source.units, options));
+  else writeFileAtomic(options.out, formatCsv(table));
+  const tEnd = performance.now();
+
+  const failed = tracks.count - tracks.statusCounts.ok;
+  const failures = Object.entries(tracks.statusCounts).filter(([s, c]) => s !== 'ok' && c > 0).map(([s, c]) => `${s} ${c}`);
+  const units = Object.entries(hits.source.units).map(([c, u]) => `${c}[${u}]`).join(' ');
+  const lines = [
+    `sagitta fit: ${hitsPath}: ${hits.length} hits in ${tracks.count} tracks; lengths read as ${units}` +
+      (hitErrorM !== undefined && hits.sigmaX === undefined ? `; hit error ${options.hitError}` : hits.sigmaX === undefined ? '; hit errors estimated from residuals' : ''),
+    `  field ${fieldT} T along ${fieldT > 0 ? '+z' : '-z'}, fitter ${tracks.method}${tracks.hasZ ? ', helix (z present)' : ', circle only (no z: p and tan(lambda) not measured)'}`,
+    `  fitted ${tracks.statusCounts.ok}, failed ${failed}${failures.length ? ` (${failures.join(', ')})` : ''}`,
+    `  time ${((tEnd - t0) / 1000).toFixed(2)} s (read ${((tRead - t0) / 1000).toFixed(2)}, fit ${((tFit - tRead) / 1000).toFixed(2)}, write ${((tEnd - tFit) / 1000).toFixed(2)})` +
+      (options.out ? `; results in ${options.out}` : ''),
+  ];
+  for (const w of consumeWarnings()) lines.push(`  warning: ${w.message}`);
+  if (hits.source.ignoredColumns.length) lines.push(`  ignored columns: ${hits.source.ignoredColumns.join(', ')}`);
+  return lines.join('\n');
+}
+
+function formatJson(table: ColumnTable, tracks: TrackTable, hitsPath: string, units: Record<string, string>, options: FitCommandOptions): string {
+  const meta = {
+    input: hitsPath,
+    lengthUnits: units,
+    fieldT: tracks.fieldT,
+    fitter: tracks.method,
+    hasZ: tracks.hasZ,
+    hitError: options.hitError ?? null,
+    statusCounts: tracks.statusCounts,
+  };
+  return JSON.stringify({ meta, tracks: rowObjects(table) }, null, 0) + '\n';
+}

@@ -1,0 +1,95 @@
+import { msg } from '../errors';
+import { FIT_STATUS, type FitStatus } from '../fit/circleFit';
+import { fitCircles, CIRCLE_METHODS, type CircleMethod } from '../fit/fitCircles';
+import { fitHelices } from '../fit/fitHelices';
+import type { HitTable } from '../io/hitTable';
+import { indexTracks } from '../io/indexTracks';
+import { momenta, type MomentumColumns } from './momentum';
+
+export interface MeasureTracksOptions {
+  /** B_z [T], signed. Required. */
+  readonly fieldT: number;
+  /** Circle fit method, default 'geometric'. */
+  readonly method?: CircleMethod;
+  /** |z| of the particles, default 1. */
+  readonly chargeMagnitude?: number;
+  /** Error [m] to use for hits that carry none; omitted → estimated from each track's residuals. */
+  readonly hitErrorM?: number;
+}
+
+/**
+ * One row per track: identifiers, fit results and momenta — the table `sagitta fit` writes and
+ * notebooks display. Every track of the input is here, failed fits included (status ≠ 'ok').
+ */
+export interface TrackTable {
+  readonly count: number;
+  readonly event: Float64Array;
+  readonly track: Float64Array;
+  readonly nhits: Int32Array;
+  readonly kappa: Float64Array;
+  readonly phi0: Float64Array;
+  readonly d0: Float64Array;
+  /** NaN when the hits have no z. */
+  readonly z0: Float64Array;
+  readonly chi2: Float64Array;
+  readonly ndf: Int32Array;
+  readonly iterations: Int32Array;
+  readonly status: readonly FitStatus[];
+  readonly momentum: MomentumColumns;
+  /** True when the hits carry z, so p and tan λ are measured (otherwise only p_T). */
+  readonly hasZ: boolean;
+  readonly method: CircleMethod;
+  readonly fieldT: number;
+  /** Count of tracks per status. */
+  readonly statusCounts: Readonly<Record<FitStatus, number>>;
+}
+
+/**
+ * Groups hits into tracks, fits each (helix when z is present, circle otherwise) and converts
+ * curvature to momentum. Lengths in metres, field in tesla.
+ * @example measureTracks(readHits('run.csv'), { fieldT: 1.5 }).momentum.ptGeV
+ */
+export function measureTracks(hits: HitTable, options: MeasureTracksOptions): TrackTable {
+  const method = options.method ?? 'geometric';
+  if (!CIRCLE_METHODS.includes(method)) throw msg.badArgument('method', method, CIRCLE_METHODS.join(' | '));
+  if (options.hitErrorM !== undefined && !(options.hitErrorM > 0)) throw msg.badArgument('hitErrorM', options.hitErrorM, 'a positive hit error in metres');
+  const { table, index } = indexTracks(hits);
+  let sigmaX = table.sigmaX, sigmaY = table.sigmaY;
+  if (sigmaX === undefined && options.hitErrorM !== undefined) {
+    sigmaX = sigmaY = new Float64Array(table.length).fill(options.hitErrorM);
+  }
+  const planeHits = { x: table.x, y: table.y, sigmaX, sigmaY };
+  const hasZ = table.z !== undefined;
+  const helix = hasZ ? fitHelices({ ...planeHits, z: table.z!, sigmaZ: table.sigmaZ }, index.offsets, { method }) : undefined;
+  const circle = helix ? helix.circle : fitCircles(planeHits, index.offsets, { method });
+  const momentum = momenta(helix ?? circle, options.fieldT, { chargeMagnitude: options.chargeMagnitude });
+  if (!hasZ) {
+    // Without z only the transverse momentum is measured; say so with NaN rather than p = p_T.
+    for (const c of [momentum.pGeV, momentum.pzGeV, momentum.tanLambda, momentum.sigmaPGeV]) c.fill(NaN);
+  }
+  const n = index.count;
+  const nhits = new Int32Array(n);
+  for (let k = 0; k < n; k++) nhits[k] = index.offsets[k + 1] - index.offsets[k];
+  const status = Array.from(circle.status, (s) => FIT_STATUS[s]);
+  const statusCounts = Object.fromEntries(FIT_STATUS.map((s) => [s, 0])) as Record<FitStatus, number>;
+  for (const s of status) statusCounts[s]++;
+  return {
+    count: n,
+    event: index.event,
+    track: index.track,
+    nhits,
+    kappa: circle.kappa,
+    phi0: circle.phi0,
+    d0: circle.d0,
+    z0: helix ? helix.z0 : new Float64Array(n).fill(NaN),
+    chi2: circle.chi2,
+    ndf: circle.ndf,
+    iterations: circle.iterations,
+    status,
+    momentum,
+    hasZ,
+    method,
+    fieldT: options.fieldT,
+    statusCounts,
+  };
+}
