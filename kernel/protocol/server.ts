@@ -1,0 +1,363 @@
+/**
+ * Our kernel side of the notebook messaging protocol (5.3) over zeromq: five sockets bound to the
+ * connection file's address, signed messages, `busy`/`idle` around every request, and the
+ * request handlers, which delegate cell work to a `Session` (kernel/session).
+ *
+ * Shell requests are handled one at a time, in arrival order. Control requests are handled as
+ * they arrive, so `interrupt_request` and `shutdown_request` reach a cell that is waiting on an
+ * `await`; a cell blocking the event loop is interrupted with SIGINT (signal interrupt mode).
+ */
+import { randomUUID } from 'node:crypto';
+import path from 'node:path';
+import * as zmq from 'zeromq';
+import type { CellHooks, MimeBundle, Session } from '../session/types';
+import { endpoint, type ConnectionInfo } from './connection';
+import { kernelInfoContent } from './kernelInfo';
+import { decode, encode, makeHeader, SignatureHistory, type Header, type Message } from './wire';
+
+export interface KernelServerOptions {
+  connection: ConnectionInfo;
+  /** Makes the execution session; called once, after the first `idle` has been published. */
+  createSession: () => Session | Promise<Session>;
+  /** Where diagnostics go (default: the process's stderr as it was when the server started). */
+  log?: (line: string) => void;
+  /** Kernel id used in iopub topics. */
+  kernelId?: string;
+}
+
+type Sendable = Array<Buffer | string>;
+
+/** zeromq allows one send at a time per socket; this keeps them in order. */
+class SendQueue {
+  private tail: Promise<void> = Promise.resolve();
+  constructor(private readonly socket: zmq.Writable, private readonly onError: (err: unknown) => void) {}
+  send(frames: Sendable): Promise<void> {
+    this.tail = this.tail.then(() => this.socket.send(frames)).catch(this.onError);
+    return this.tail;
+  }
+  drain(): Promise<void> {
+    return this.tail;
+  }
+}
+
+const STREAM_FLUSH_MS = 30;
+
+export class KernelServer {
+  private readonly info: ConnectionInfo;
+  private readonly log: (line: string) => void;
+  private readonly sessionId = randomUUID();
+  private readonly kernelId: string;
+  private readonly history = new SignatureHistory();
+  private readonly shell = new zmq.Router({ linger: 0 });
+  private readonly control = new zmq.Router({ linger: 0 });
+  private readonly stdin = new zmq.Router({ linger: 0 });
+  private readonly iopub = new zmq.Publisher({ linger: 0 });
+  private readonly hb = new zmq.Reply({ linger: 0 });
+  private readonly out: { shell: SendQueue; control: SendQueue; stdin: SendQueue; iopub: SendQueue };
+  private readonly makeSession: KernelServerOptions['createSession'];
+  private session: Promise<Session> | undefined;
+  private executionCount = 0;
+  private shellQueue: Message[] = [];
+  private shellBusy = false;
+  /** Set after a failed cell with stop_on_error: execute requests already queued are aborted. */
+  private aborting = false;
+  private stopping = false;
+  private readonly stopped: Promise<void>;
+  private resolveStopped!: () => void;
+  private readonly onSigint = () => {
+    this.log('SIGINT received: interrupting the running cell');
+    void this.session?.then((s) => s.interrupt());
+  };
+
+  constructor(options: KernelServerOptions) {
+    this.info = options.connection;
+    this.makeSession = options.createSession;
+    const stderrWrite = process.stderr.write.bind(process.stderr);
+    this.log = options.log ?? ((line) => void stderrWrite(`[sagitta kernel] ${line}\n`));
+    this.kernelId = options.kernelId ?? randomUUID();
+    const onError = (err: unknown) => this.log(`send failed: ${err instanceof Error ? err.message : String(err)}`);
+    this.out = {
+      shell: new SendQueue(this.shell, onError),
+      control: new SendQueue(this.control, onError),
+      stdin: new SendQueue(this.stdin, onError),
+      iopub: new SendQueue(this.iopub, onError),
+    };
+    this.stopped = new Promise((resolve) => (this.resolveStopped = resolve));
+  }
+
+  /** Binds the sockets, publishes `starting`, and starts serving. */
+  async start(): Promise<void> {
+    await Promise.all([
+      this.shell.bind(endpoint(this.info, 'shell')),
+      this.control.bind(endpoint(this.info, 'control')),
+      this.stdin.bind(endpoint(this.info, 'stdin')),
+      this.iopub.bind(endpoint(this.info, 'iopub')),
+      this.hb.bind(endpoint(this.info, 'hb')),
+    ]);
+    process.on('SIGINT', this.onSigint);
+    void this.heartbeat();
+    void this.listen(this.shell, 'shell');
+    void this.listen(this.control, 'control');
+    void this.listen(this.stdin, 'stdin');
+    await this.publish('status', { execution_state: 'starting' }, {});
+  }
+
+  /** Resolves when a shutdown request has been served and the sockets are closed. */
+  whenStopped(): Promise<void> {
+    return this.stopped;
+  }
+
+  /** Closes the sockets and the session. */
+  async stop(): Promise<void> {
+    if (this.stopping) return this.stopped;
+    this.stopping = true;
+    process.off('SIGINT', this.onSigint);
+    await Promise.all(Object.values(this.out).map((q) => q.drain()));
+    for (const s of [this.shell, this.control, this.stdin, this.iopub, this.hb]) s.close();
+    if (this.session) {
+      try {
+        (await this.session).close();
+      } catch {
+        // A session that failed to start has nothing to close.
+      }
+    }
+    this.resolveStopped();
+  }
+
+  private getSession(): Promise<Session> {
+    this.session ??= Promise.resolve().then(() => this.makeSession());
+    return this.session;
+  }
+
+  private async heartbeat(): Promise<void> {
+    try {
+      for await (const frames of this.hb) await this.hb.send(frames);
+    } catch (err) {
+      if (!this.stopping) this.log(`heartbeat stopped: ${String(err)}`);
+    }
+  }
+
+  private async listen(socket: zmq.Router, channel: 'shell' | 'control' | 'stdin'): Promise<void> {
+    try {
+      for await (const frames of socket) {
+        const msg = decode(frames, this.info.key, this.history);
+        if (typeof msg === 'string') {
+          this.log(`${channel}: dropped a message (${msg === 'bad-signature' ? 'bad signature' : msg})`);
+          continue;
+        }
+        if (channel === 'shell') {
+          this.shellQueue.push(msg);
+          void this.pumpShell();
+        } else if (channel === 'control') {
+          void this.handle(msg, 'control');
+        }
+        // stdin carries only replies to input requests, which this kernel does not make.
+      }
+    } catch (err) {
+      if (!this.stopping) this.log(`${channel} listener stopped: ${String(err)}`);
+    }
+  }
+
+  private async pumpShell(): Promise<void> {
+    if (this.shellBusy) return;
+    this.shellBusy = true;
+    try {
+      while (this.shellQueue.length > 0 && !this.stopping) {
+        const msg = this.shellQueue.shift()!;
+        await this.handle(msg, 'shell');
+        if (this.aborting) {
+          // Let zeromq hand over what the client sent meanwhile, then abort the queued cells.
+          await new Promise((resolve) => setTimeout(resolve, 10));
+          const queued = this.shellQueue.splice(0);
+          for (const m of queued) {
+            if (m.header.msg_type === 'execute_request') await this.abort(m);
+            else this.shellQueue.push(m);
+          }
+          this.aborting = false;
+        }
+      }
+    } finally {
+      this.shellBusy = false;
+    }
+  }
+
+  private async handle(msg: Message, channel: 'shell' | 'control'): Promise<void> {
+    const type = msg.header.msg_type;
+    const parent = msg.header;
+    await this.publish('status', { execution_state: 'busy' }, parent);
+    try {
+      switch (type) {
+        case 'kernel_info_request':
+          await this.reply(channel, msg, 'kernel_info_reply', kernelInfoContent());
+          break;
+        case 'execute_request':
+          await this.execute(msg);
+          break;
+        case 'complete_request':
+          await this.complete(msg);
+          break;
+        case 'inspect_request':
+          await this.inspect(msg);
+          break;
+        case 'is_complete_request':
+          await this.isComplete(msg);
+          break;
+        case 'comm_info_request':
+          await this.reply(channel, msg, 'comm_info_reply', { status: 'ok', comms: {} });
+          break;
+        case 'comm_open':
+          // No comm targets exist here; the spec asks for an immediate close.
+          await this.publish('comm_close', { comm_id: msg.content.comm_id, data: {} }, parent);
+          break;
+        case 'comm_msg':
+        case 'comm_close':
+          break;
+        case 'history_request':
+          await this.reply(channel, msg, 'history_reply', { status: 'ok', history: [] });
+          break;
+        case 'interrupt_request':
+          (await this.getSession()).interrupt();
+          await this.reply(channel, msg, 'interrupt_reply', { status: 'ok' });
+          break;
+        case 'shutdown_request': {
+          const restart = msg.content.restart === true;
+          await this.reply(channel, msg, 'shutdown_reply', { status: 'ok', restart });
+          await this.publish('status', { execution_state: 'idle' }, parent);
+          await this.stop();
+          return;
+        }
+        default:
+          this.log(`${channel}: ignoring unknown message type "${type}"`);
+      }
+    } catch (err) {
+      this.log(`${channel}: ${type} failed: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`);
+    }
+    await this.publish('status', { execution_state: 'idle' }, parent);
+    if (this.executionCount === 0 && !this.session && !this.stopping) {
+      // Warm up after the first idle so that starting the kernel is quick and the first cell is not.
+      setTimeout(() => void this.getSession().catch((err: unknown) => this.log(`session failed to start: ${String(err)}`)), 0);
+    }
+  }
+
+  private async execute(msg: Message): Promise<void> {
+    const c = msg.content as {
+      code?: string;
+      silent?: boolean;
+      store_history?: boolean;
+      stop_on_error?: boolean;
+    };
+    const code = c.code ?? '';
+    const silent = c.silent === true;
+    const storeHistory = silent ? false : c.store_history !== false;
+    const stopOnError = c.stop_on_error !== false;
+    if (storeHistory) this.executionCount++;
+    const count = this.executionCount;
+    const parent = msg.header;
+    const started = new Date().toISOString();
+    if (!silent) await this.publish('execute_input', { code, execution_count: count }, parent);
+
+    let pending: { name: 'stdout' | 'stderr'; text: string } | undefined;
+    let timer: NodeJS.Timeout | undefined;
+    const flush = () => {
+      if (timer) clearTimeout(timer);
+      timer = undefined;
+      if (pending) void this.publish('stream', { name: pending.name, text: pending.text }, parent);
+      pending = undefined;
+    };
+    const hooks: CellHooks = {
+      stream: (name, text) => {
+        if (silent) return;
+        if (pending && pending.name !== name) flush();
+        pending = pending ? { name, text: pending.text + text } : { name, text };
+        timer ??= setTimeout(flush, STREAM_FLUSH_MS);
+      },
+      display: (bundle, options) => {
+        if (silent) return;
+        flush();
+        const transient = options.displayId === undefined ? {} : { display_id: options.displayId };
+        const type = options.update && options.displayId !== undefined ? 'update_display_data' : 'display_data';
+        void this.publish(type, { data: jsonSafe(bundle), metadata: {}, transient }, parent);
+      },
+    };
+
+    const session = await this.getSession();
+    const outcome = await session.execute(code, hooks);
+    flush();
+    if (outcome.status === 'ok') {
+      if (outcome.result && !silent) {
+        await this.publish('execute_result', { execution_count: count, data: jsonSafe(outcome.result), metadata: {} }, parent);
+      }
+      await this.reply('shell', msg, 'execute_reply', { status: 'ok', execution_count: count, user_expressions: {}, payload: [] }, { started, status: 'ok' });
+      return;
+    }
+    const error = outcome.error ?? { ename: 'Error', evalue: 'the cell failed', traceback: [] };
+    if (!silent) await this.publish('error', { ename: error.ename, evalue: error.evalue, traceback: error.traceback }, parent);
+    await this.reply(
+      'shell',
+      msg,
+      'execute_reply',
+      { status: 'error', execution_count: count, ename: error.ename, evalue: error.evalue, traceback: error.traceback },
+      { started, status: 'error' },
+    );
+    if (stopOnError) this.aborting = true;
+  }
+
+  /** Reply to an execute request that was queued behind a failed cell. */
+  private async abort(msg: Message): Promise<void> {
+    await this.publish('status', { execution_state: 'busy' }, msg.header);
+    await this.reply('shell', msg, 'execute_reply', { status: 'aborted', execution_count: this.executionCount }, { status: 'aborted' });
+    await this.publish('status', { execution_state: 'idle' }, msg.header);
+  }
+
+  private async complete(msg: Message): Promise<void> {
+    const code = String(msg.content.code ?? '');
+    const cursor = Number(msg.content.cursor_pos ?? [...code].length);
+    const r = await (await this.getSession()).complete(code, cursor);
+    await this.reply('shell', msg, 'complete_reply', { status: 'ok', matches: r.matches, cursor_start: r.cursorStart, cursor_end: r.cursorEnd, metadata: {} });
+  }
+
+  private async inspect(msg: Message): Promise<void> {
+    const code = String(msg.content.code ?? '');
+    const cursor = Number(msg.content.cursor_pos ?? [...code].length);
+    const detail = Number(msg.content.detail_level ?? 0);
+    const data = await (await this.getSession()).inspect(code, cursor, detail);
+    await this.reply('shell', msg, 'inspect_reply', { status: 'ok', found: data !== undefined, data: data ?? {}, metadata: {} });
+  }
+
+  private async isComplete(msg: Message): Promise<void> {
+    const code = String(msg.content.code ?? '');
+    const status = await (await this.getSession()).isComplete(code);
+    await this.reply('shell', msg, 'is_complete_reply', status === 'incomplete' ? { status, indent: '' } : { status });
+  }
+
+  private reply(channel: 'shell' | 'control', request: Message, type: string, content: Record<string, unknown>, metadata: Record<string, unknown> = {}): Promise<void> {
+    const header = makeHeader(type, this.sessionId);
+    return this.out[channel].send(encode(this.info.key, request.identities, header, request.header, metadata, content));
+  }
+
+  private publish(type: string, content: Record<string, unknown>, parent: Partial<Header>): Promise<void> {
+    if (this.stopping) return Promise.resolve();
+    const header = makeHeader(type, this.sessionId);
+    return this.out.iopub.send(encode(this.info.key, [`kernel.${this.kernelId}.${type}`], header, parent, {}, content));
+  }
+}
+
+/** Bundles go out as JSON; a value JSON cannot carry (a cycle, a BigInt) becomes its text form. */
+function jsonSafe(bundle: MimeBundle): MimeBundle {
+  const out: MimeBundle = {};
+  for (const [mime, value] of Object.entries(bundle)) {
+    try {
+      JSON.stringify(value);
+      out[mime] = value;
+    } catch {
+      out[mime] = String(value);
+    }
+  }
+  return out;
+}
+
+/** The kernel id a front end put in the connection file's name ("kernel-<id>.json"), if any. */
+export function kernelIdFromFile(file: string): string | undefined {
+  const m = /^kernel-(.+)\.json$/.exec(path.basename(file));
+  return m?.[1];
+}
