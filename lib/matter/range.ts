@@ -18,7 +18,7 @@ import { isElectronLike, massStoppingPower } from './stoppingPower';
  * to the local slope at T_c: R(T_c) = T_c / ((1 + p) S(T_c)) (common practice). For protons in
  * water this piece is ≈ 2 % of R(10 MeV) and ≈ 14 % low against PSTAR's own R(1 MeV), so it moves
  * R(10 MeV) by ≈ 0.3 %. Above T_c the integral is done with 8-point Gauss–Legendre in ln T on
- * panels of 0.25 (relative accuracy better than 1e-7).
+ * panels of ≤ 0.1 split at the density-effect kinks (relative accuracy ≈ 1e-9).
  */
 
 const GL8_X = [-0.9602898564975363, -0.7966664774136267, -0.5255324099163290, -0.1834346424956498, 0.1834346424956498, 0.5255324099163290, 0.7966664774136267, 0.9602898564975363];
@@ -36,11 +36,32 @@ export function rangeMaxMeV(particle: Particle): number {
   return isElectronLike(particle) ? ELECTRON_MAX_MEV : kineticFromBetaGamma(particle, BETHE_MAX_BETA_GAMMA);
 }
 
-/** ∫ dT/S over [t0, t1] by Gauss–Legendre in ln T; `nodes` 4 or 8 per panel. */
+/**
+ * Energies where S(T) has a kink (the density-effect branches at x₀ and x₁); panels are split
+ * there so Gauss–Legendre sees smooth pieces.
+ */
+function kinks(particle: Particle, material: Material): readonly number[] {
+  const p = material.densityEffect;
+  return [kineticFromBetaGamma(particle, 10 ** p.x0), kineticFromBetaGamma(particle, 10 ** p.x1)];
+}
+
+/** Panel width in ln T. */
+const PANEL = 0.1;
+
+/** ∫ dT/S over [t0, t1] by Gauss–Legendre in ln T (8 or 4 nodes per panel of ≤ 0.1 in ln T). */
 function integrate(particle: Particle, material: Material, t0: number, t1: number, fine: boolean): number {
+  const [k0, k1] = kinks(particle, material);
+  let sum = 0;
+  let a = t0;
+  if (k0 > a && k0 < t1) { sum += integrateSmooth(particle, material, a, k0, fine); a = k0; }
+  if (k1 > a && k1 < t1) { sum += integrateSmooth(particle, material, a, k1, fine); a = k1; }
+  return sum + integrateSmooth(particle, material, a, t1, fine);
+}
+
+function integrateSmooth(particle: Particle, material: Material, t0: number, t1: number, fine: boolean): number {
   const u0 = Math.log(t0);
   const u1 = Math.log(t1);
-  const panels = Math.max(1, Math.ceil((u1 - u0) / 0.25));
+  const panels = Math.max(1, Math.ceil((u1 - u0) / PANEL));
   const h = (u1 - u0) / panels;
   const xs = fine ? GL8_X : GL4_X;
   const ws = fine ? GL8_W : GL4_W;

@@ -1,0 +1,83 @@
+import { beforeEach, describe, expect, it } from 'vitest';
+import pstar from '../fixtures/pstar/water-protons.json';
+import estar from '../fixtures/estar/water-electrons.json';
+import { ELECTRON, MUON_PLUS, PION_MINUS, PROTON } from '../../lib/particles';
+import { consumeWarnings } from '../../lib/warnings';
+import {
+  csdaRange, energyAfterPath, energyAtRange, kineticEnergyFromRange, material, rangeAt, rangeCutoffMeV,
+  rangeTable, residualRange,
+} from '../../lib/matter/index';
+
+const rel = (a: number, b: number) => Math.abs(a / b - 1);
+beforeEach(() => void consumeWarnings());
+
+describe('csdaRange (∫ dT/S from a documented cutoff)', () => {
+  it('matches NIST PSTAR protons in water within 1 % from 20 to 200 MeV', () => {
+    // Source: NIST PSTAR / ICRU 49 (test/fixtures/pstar; (memory) rows marked there).
+    for (const row of pstar.rows.filter((r) => r.kineticEnergyMeV >= 20)) {
+      expect(rel(csdaRange(PROTON, material('water'), row.kineticEnergyMeV), row.csdaRange), `T = ${row.kineticEnergyMeV} MeV`).toBeLessThan(0.01);
+    }
+  });
+  it('is within 1.5 % of PSTAR at 10 MeV (−1.3 %: the 1–10 MeV stretch without shell/Barkas terms)', () => {
+    // Stated deviation from the issue's 1 %: Bethe without shell and Barkas corrections runs
+    // 0.6–3.4 % high between 10 and 1 MeV, which shortens R(10 MeV) by 1.3 %.
+    expect(rel(csdaRange(PROTON, material('water'), 10), 0.123)).toBeLessThan(0.015);
+  });
+  it('agrees with PSTAR at 1 MeV only to ≈ 11 % (the power-law piece below the cutoff), as stated', () => {
+    const r = csdaRange(PROTON, material('water'), 1);
+    expect(rel(r, 2.458e-3)).toBeLessThan(0.15);
+  });
+  it('gives the ESTAR CSDA range of 1 MeV electrons in water (0.4367 g/cm²) within 1 %', () => {
+    expect(rel(csdaRange(ELECTRON, material('water'), 1), estar.rows[0].csdaRange as number)).toBeLessThan(0.01);
+  });
+  it('kineticEnergyFromRange inverts csdaRange to 1e-9 for p, π⁻, μ⁺ and e⁻', () => {
+    const w = material('liquid-hydrogen');
+    for (const [pt, t] of [[PROTON, 3], [PROTON, 250], [PION_MINUS, 40], [MUON_PLUS, 4.1], [ELECTRON, 0.5]] as const) {
+      expect(rel(kineticEnergyFromRange(pt, w, csdaRange(pt, w, t)), t)).toBeLessThan(1e-9);
+    }
+  });
+  it('kineticEnergyFromRange(water, 7.718 g/cm²) ≈ 100 MeV (PSTAR) within 0.5 %', () => {
+    expect(rel(kineticEnergyFromRange(PROTON, material('water'), 7.718), 100)).toBeLessThan(0.005);
+  });
+  it('returns NaN + OUTSIDE_VALIDITY below the cutoff instead of a number', () => {
+    expect(csdaRange(PROTON, material('water'), 0.5)).toBeNaN();
+    expect(kineticEnergyFromRange(PROTON, material('water'), 1e-6)).toBeNaN();
+    expect(consumeWarnings().map((w) => w.code)).toEqual(['OUTSIDE_VALIDITY', 'OUTSIDE_VALIDITY']);
+  });
+  it('the cutoff is the Bethe limit βγ = 0.045 (≈ 0.95 MeV for protons) and 10 keV for electrons', () => {
+    expect(rangeCutoffMeV(PROTON)).toBeCloseTo(0.9497, 3);
+    expect(rangeCutoffMeV(ELECTRON)).toBe(0.01);
+  });
+});
+
+describe('residual range along a track', () => {
+  it('residualRange = R(T) − path, and energyAfterPath is its energy', () => {
+    const w = material('water');
+    const r = csdaRange(PROTON, w, 100);
+    expect(residualRange(PROTON, w, 100, 2)).toBeCloseTo(r - 2, 12);
+    expect(rel(csdaRange(PROTON, w, energyAfterPath(PROTON, w, 100, 2)), r - 2)).toBeLessThan(1e-9);
+    expect(energyAfterPath(PROTON, w, 100, 100)).toBe(0);
+  });
+});
+
+describe('rangeTable (typed arrays) and its interpolation', () => {
+  const w = material('water');
+  const table = rangeTable(PROTON, w, { fromMeV: 1, toMeV: 1000, points: 1000 });
+  it('has Float64Array columns that agree with csdaRange node by node to 1e-6', () => {
+    expect(table.csdaRangeGcm2).toBeInstanceOf(Float64Array);
+    for (const i of [0, 1, 250, 500, 999]) expect(rel(table.csdaRangeGcm2[i], csdaRange(PROTON, w, table.kineticEnergyMeV[i]))).toBeLessThan(1e-6);
+  });
+  it('a coarse 50-point table interpolates R(T) and T(R) to 1e-4 between nodes (cubic Hermite with slope 1/S)', () => {
+    const coarse = rangeTable(PROTON, w, { fromMeV: 2, toMeV: 500, points: 50 });
+    for (const t of [2.3, 7.7, 33.3, 123.4, 480]) {
+      expect(rel(rangeAt(coarse, t), csdaRange(PROTON, w, t)), `R at ${t}`).toBeLessThan(1e-4);
+      expect(rel(energyAtRange(coarse, csdaRange(PROTON, w, t)), t), `T at ${t}`).toBeLessThan(1e-4);
+    }
+  });
+  it('clamps a start below the cutoff with a RANGE_TABLE_CLAMPED warning, and answers NaN outside the table', () => {
+    const t = rangeTable(PROTON, w, { fromMeV: 0.1, toMeV: 10, points: 10 });
+    expect(t.kineticEnergyMeV[0]).toBeCloseTo(rangeCutoffMeV(PROTON), 9);
+    expect(rangeAt(t, 20)).toBeNaN();
+    expect(consumeWarnings().map((x) => x.code)).toEqual(['RANGE_TABLE_CLAMPED', 'OUTSIDE_TABLE']);
+  });
+});
