@@ -1,0 +1,129 @@
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { inflateSync } from 'node:zlib';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { chromiumPath, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
+import { executedFixture, XSS } from './reportFixture';
+
+const OUT = mkdtempSync(join(tmpdir(), 'sagitta-report-'));
+
+describe('renderReport (static checks)', () => {
+  const html = renderReport(executedFixture());
+
+  it('inlines plotly.js exactly once and writes each figure as JSON', () => {
+    expect(html.split('Plotly.newPlot').length - 1).toBeGreaterThanOrEqual(1);
+    expect(html.match(/plotly\.js v\d/g) ?? []).toHaveLength(1);
+    expect(html).toContain('<script type="application/json" id="sg-fig-0">');
+    expect(html).not.toMatch(/<script[^>]+src=/);
+    expect(html).not.toMatch(/<link[^>]+href=/);
+  });
+
+  it('never lets a payload through as markup (escaped or sanitized everywhere)', () => {
+    const body = html.slice(html.indexOf('<body'), html.indexOf('<script type="application/json"'));
+    expect(body).not.toContain('<script');
+    expect(body).not.toMatch(/<[^>]*\son[a-z]+\s*=/i); // no event-handler attribute inside any tag
+    expect(body).not.toMatch(/href\s*=\s*["']?\s*javascript:/i);
+    expect(body).not.toContain('<iframe');
+    expect(body).toContain('&lt;script&gt;');
+  });
+
+  it('carries the provenance block: notebook hash, data files, seeds, versions, parameters, per-cell times', () => {
+    expect(html).toContain('a'.repeat(64));
+    expect(html).toContain('b'.repeat(64));
+    expect(html).toMatch(/Sagitta 0\.1\.0 · Node \d+\.\d+\.\d+ · TypeScript 5\.9\.3/);
+    expect(html).toContain('fieldT');
+    expect(html).toContain('<td>simulate</td>');
+    expect(html).toContain('40 ms');
+  });
+
+  it('renderMarkdown typesets $…$ as MathML and strips raw <script> and handlers', () => {
+    const out = renderMarkdown(`Curvature $\\kappa = 1/R$.\n\n${XSS}`);
+    expect(out).toContain('<math');
+    expect(out).toContain('<mi>κ</mi>');
+    expect(out).not.toContain('<script');
+    expect(out).not.toContain('onerror');
+  });
+});
+
+describe.skipIf(!existsSync(chromiumPath()))('report in headless Chromium', () => {
+  let browser: HeadlessChromium;
+  const file = join(OUT, 'report.html');
+  beforeAll(async () => {
+    writeFileSync(file, renderReport(executedFixture()));
+    browser = await openChromium();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('draws every plot, raises no console error, keeps the XSS payloads inert; screenshot saved', async () => {
+    const page = await browser.context.newPage();
+    const problems: string[] = [];
+    page.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') problems.push(`${m.type()}: ${m.text()}`); });
+    page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
+    page.on('request', (r) => { if (!r.url().startsWith('file:') && !r.url().startsWith('data:')) problems.push(`request: ${r.url()}`); });
+    await page.goto(pathToFileURL(file).href);
+    await page.waitForSelector('body[data-figures="drawn"]', { state: 'attached', timeout: 30_000 });
+    const state = await page.evaluate(() => ({
+      figures: document.querySelectorAll('[data-sg-figure]').length,
+      drawn: Array.from(document.querySelectorAll('[data-sg-figure]')).filter((n) => n.querySelector('svg.main-svg') && n.getBoundingClientRect().height > 100).length,
+      heights: Array.from(document.querySelectorAll('[data-sg-figure]')).map((n) => [n.getBoundingClientRect().height, n.innerHTML.slice(0, 200)]),
+      bars: document.querySelectorAll('[data-sg-figure] .barlayer .point').length,
+      images: Array.from(document.images).filter((i) => i.complete && i.naturalWidth > 0).length,
+      xss: (window as unknown as { __sgXss?: number }).__sgXss,
+      scripts: document.scripts.length,
+    }));
+    expect(problems).toEqual([]);
+    await page.screenshot({ path: join(OUT, 'report.png'), fullPage: true });
+    process.stdout.write(`report screenshot: ${join(OUT, 'report.png')} ${JSON.stringify(state.heights)}\n`);
+    expect(state.figures).toBe(1);
+    expect(state.drawn).toBe(1);
+    expect(state.bars).toBe(6);
+    expect(state.images).toBe(1); // the event display SVG
+    expect(state.xss).toBeUndefined();
+    expect(state.scripts).toBe(3); // figure JSON, plotly, the page's own script
+    await page.screenshot({ path: join(OUT, 'report.png'), fullPage: true });
+    expect(readFileSync(join(OUT, 'report.png')).length).toBeGreaterThan(10_000);
+    process.stdout.write(`report screenshot: ${join(OUT, 'report.png')}\n`);
+  });
+
+  it('the code switch hides and shows code', async () => {
+    const page = await browser.context.newPage();
+    await page.goto(pathToFileURL(file).href);
+    await page.click('#sg-code-switch');
+    expect(await page.locator('.sg-code > details').first().isVisible()).toBe(false);
+    await page.click('#sg-code-switch');
+    expect(await page.locator('.sg-code > details').first().isVisible()).toBe(true);
+  });
+
+  it('--pdf: prints a PDF whose pages carry the drawn figure (vector paths in the page content)', async () => {
+    const pdf = join(OUT, 'report.pdf');
+    await printReportPdf(file, pdf);
+    const bytes = readFileSync(pdf);
+    expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    // Inflate the page content streams and count filled rectangles/paths: the histogram's bars
+    // and the plot frame add many; a report whose figure failed to draw has only text and rules.
+    const text = bytes.toString('latin1');
+    let paths = 0;
+    for (const m of text.matchAll(/stream\r?\n/g)) {
+      const start = m.index! + m[0].length;
+      const end = text.indexOf('endstream', start);
+      try {
+        const content = inflateSync(bytes.subarray(start, end)).toString('latin1');
+        paths += (content.match(/\bre\b|\bh\b\s*f\b|\bf\*?\n/g) ?? []).length;
+      } catch { /* not a deflated stream (fonts, images) */ }
+    }
+    expect(paths).toBeGreaterThan(20);
+    // The same check on print media in the browser: every figure has its bars laid out.
+    const page = await browser.context.newPage();
+    await page.setViewportSize({ width: 794, height: 1123 });
+    await page.goto(pathToFileURL(file).href);
+    await page.waitForSelector('body[data-figures="drawn"]', { state: 'attached' });
+    await page.emulateMedia({ media: 'print' });
+    const widths = await page.evaluate(() => Array.from(document.querySelectorAll('[data-sg-figure] .barlayer .point')).map((p) => p.getBoundingClientRect().width));
+    expect(widths.length).toBe(6);
+    expect(widths.every((w) => w > 0)).toBe(true);
+  });
+});
