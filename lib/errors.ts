@@ -24,7 +24,8 @@ export type SagittaErrorCode =
   | 'BAD_ROW'
   | 'UNKNOWN_FORMAT'
   | 'BAD_SCENARIO'
-  | 'BAD_NOTEBOOK';
+  | 'BAD_NOTEBOOK'
+  | 'OUTSIDE_VALIDITY';
 
 /** Where in an input a problem sits; all fields optional so callers fill what they know. */
 export interface SourceLocation {
@@ -109,6 +110,10 @@ export const msg = {
 
   badNotebook: (file: string, detail: string) =>
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),
+
+  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
+  outsideValidity: (what: string, value: string, valid: string) =>
+    new SagittaError('OUTSIDE_VALIDITY', `${what} ${value} is outside the validity range ${valid}; choose a value inside it`),
 } as const;
 
 function describe(value: unknown): string {
