@@ -10,3 +10,4 @@ export * from './fit/index';
 export * from './track/index';
 export * from './plot/index';
 export * from './matter/index';
+export * from './simulate/index';

@@ -1,0 +1,247 @@
+import { readFileSync } from 'node:fs';
+import Ajv, { type ErrorObject } from 'ajv';
+import { unit as mathUnit } from 'mathjs';
+import { msg, SagittaError } from '../errors';
+import { particle, type Particle } from '../particles';
+import { recordInput } from '../provenance';
+import { fieldTesla, energyMeV, lengthMetres, momentumGeV } from '../units';
+import { chamber, insideChamber, type Chamber } from './chamber';
+import { chamberMedium } from './chamber-medium';
+import { VACUUM } from './medium';
+import { SCENARIO_SCHEMA } from './scenario-schema';
+import type { MeasurementModel, SimulationConfig, Source, TransportSettings } from './simulate';
+import type { Sampling } from './transport';
+
+/** Defaults of the optional scenario fields, in internal units. */
+export const SCENARIO_DEFAULTS = Object.freeze({
+  energyLoss: 'mean' as const,
+  scattering: true,
+  maxStepM: 0.01,
+  maxPathM: 20,
+  efficiency: 1,
+  noiseHitsPerEvent: 0,
+  momentumSpread: 0,
+  spotM: 0,
+  divergenceRad: 0,
+  spectralIndex: 2.7,
+  chargeRatio: 1.27,
+});
+
+type Json = Record<string, unknown>;
+
+let validator: ReturnType<Ajv['compile']> | undefined;
+function validate(doc: unknown): readonly ErrorObject[] {
+  if (validator === undefined) validator = new Ajv({ allErrors: true, strict: false }).compile(SCENARIO_SCHEMA);
+  return validator(doc) ? [] : (validator.errors ?? []);
+}
+
+/** One readable line per schema problem: "/sources/1/momentum: must be …". */
+function describeErrors(errors: readonly ErrorObject[]): string {
+  const lines: string[] = [];
+  const seen = new Set<string>();
+  for (const e of errors) {
+    // 'if' and combinator summaries repeat what the specific errors already say.
+    if (e.keyword === 'if' || e.keyword === 'oneOf' || e.keyword === 'allOf') continue;
+    const at = e.instancePath === '' ? '(top level)' : e.instancePath;
+    let text: string;
+    if (e.keyword === 'additionalProperties') {
+      text = `${at}: unknown field '${(e.params as { additionalProperty: string }).additionalProperty}' (check the spelling; see sagitta simulate --schema)`;
+    } else if (e.keyword === 'enum') {
+      text = `${at}: must be one of ${(e.params as { allowedValues: unknown[] }).allowedValues.map((v) => JSON.stringify(v)).join(', ')}`;
+    } else if (e.keyword === 'const') {
+      text = `${at}: must be ${JSON.stringify((e.params as { allowedValue: unknown }).allowedValue)}`;
+    } else if (e.keyword === 'pattern' && (e.parentSchema as { description?: string } | undefined)?.description) {
+      text = `${at}: must be ${(e.parentSchema as { description: string }).description}`;
+    } else if (e.keyword === 'required') {
+      text = `${at}: missing field '${(e.params as { missingProperty: string }).missingProperty}'`;
+    } else {
+      text = `${at}: ${e.message ?? 'is not valid'}`;
+    }
+    if (!seen.has(text)) { seen.add(text); lines.push(text); }
+  }
+  const shown = lines.slice(0, 6);
+  if (lines.length > shown.length) shown.push(`… and ${lines.length - shown.length} more`);
+  return shown.join('; ');
+}
+
+/**
+ * Reads, validates (JSON Schema, `SCENARIO_SCHEMA`) and resolves a scenario file into a
+ * `SimulationConfig`. Every problem is a BAD_SCENARIO error naming the file and the JSON path of
+ * the bad field (e.g. "run.json: /sources/1/momentum: …"); bad JSON names line and column.
+ * Records the file in the provenance registry.
+ * @example readScenario('notebooks/data/ember-hollow.scenario.json').sources.length
+ */
+export function readScenario(path: string): SimulationConfig {
+  let bytes: Buffer;
+  try {
+    bytes = readFileSync(path);
+  } catch {
+    throw msg.fileNotFound(path);
+  }
+  recordInput(path, bytes);
+  return parseScenario(bytes.toString('utf8'), path);
+}
+
+/** As `readScenario`, from text already in memory; `file` names it in messages. */
+export function parseScenario(text: string, file = '(scenario)'): SimulationConfig {
+  let doc: unknown;
+  try {
+    doc = JSON.parse(text);
+  } catch (err) {
+    throw msg.badScenario(file, `not valid JSON (${jsonErrorPlace(text, err)}); check commas, quotes and brackets`);
+  }
+  return resolveScenario(doc, file);
+}
+
+function jsonErrorPlace(text: string, err: unknown): string {
+  const m = /position (\d+)/.exec(String((err as Error).message));
+  if (!m) return String((err as Error).message);
+  const pos = Number(m[1]);
+  const before = text.slice(0, pos);
+  const line = before.split('\n').length;
+  const column = pos - before.lastIndexOf('\n');
+  return `line ${line}, column ${column}`;
+}
+
+/** Validates a parsed scenario object and converts it to internal units. */
+export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationConfig {
+  const errors = validate(doc);
+  if (errors.length > 0) throw msg.badScenario(file, describeErrors(errors));
+  const d = doc as Json;
+  const at = <T>(path: string, f: () => T): T => {
+    try {
+      return f();
+    } catch (err) {
+      if (err instanceof SagittaError) throw msg.badScenario(file, `${path}: ${err.message}`);
+      throw err;
+    }
+  };
+  const len = (text: unknown, path: string) => at(path, () => lengthMetres(String(text)));
+  const angle = (text: unknown, path: string) => at(path, () => {
+    try {
+      const u = mathUnit(String(text));
+      return u.toNumber('rad');
+    } catch {
+      throw msg.badQuantity(String(text), 'an angle', '3 mrad');
+    }
+  });
+
+  const ch = d.chamber as Json;
+  const size = (ch.size as string[]).map((s, i) => len(s, `/chamber/size/${i}`)) as [number, number, number];
+  const mediumName = String(ch.medium);
+  const medium = mediumName.trim().toLowerCase() === 'vacuum' ? VACUUM : at('/chamber/medium', () => chamberMedium(mediumName));
+  const fieldT: [number, number, number] = typeof ch.field === 'string'
+    ? [0, 0, at('/chamber/field', () => fieldTesla(ch.field as string))]
+    : (ch.field as string[]).map((s, i) => at(`/chamber/field/${i}`, () => fieldTesla(s))) as [number, number, number];
+  const box: Chamber = at('/chamber/size', () => chamber({ sizeM: size, medium, fieldT }));
+
+  const tr = (d.transport ?? {}) as Json;
+  const transport: TransportSettings = {
+    energyLoss: (tr.energyLoss as TransportSettings['energyLoss'] | undefined) ?? SCENARIO_DEFAULTS.energyLoss,
+    scattering: (tr.scattering as boolean | undefined) ?? SCENARIO_DEFAULTS.scattering,
+    maxStepM: tr.maxStep !== undefined ? positive(len(tr.maxStep, '/transport/maxStep'), '/transport/maxStep', file) : SCENARIO_DEFAULTS.maxStepM,
+    maxPathM: tr.maxPath !== undefined ? positive(len(tr.maxPath, '/transport/maxPath'), '/transport/maxPath', file) : SCENARIO_DEFAULTS.maxPathM,
+    deltaRayMinMeV: tr.deltaRaysAbove !== undefined ? positive(at('/transport/deltaRaysAbove', () => energyMeV(tr.deltaRaysAbove as string)), '/transport/deltaRaysAbove', file) : 0,
+  };
+
+  const me = d.measurement as Json;
+  let sampling: Sampling;
+  if ((me.spacing === undefined) === (me.planes === undefined)) {
+    throw msg.badScenario(file, "/measurement: give exactly one of 'spacing' (a hit every so much path) or 'planes'");
+  }
+  if (me.spacing !== undefined) {
+    sampling = { kind: 'spacing', spacingM: positive(len(me.spacing, '/measurement/spacing'), '/measurement/spacing', file) };
+  } else {
+    const pl = me.planes as Json;
+    const axis = ({ x: 0, y: 1, z: 2 } as const)[pl.axis as 'x' | 'y' | 'z'];
+    let positions: number[];
+    if (pl.at !== undefined) {
+      if (pl.from !== undefined || pl.to !== undefined || pl.count !== undefined) throw msg.badScenario(file, "/measurement/planes: give either 'at' or 'from'/'to'/'count', not both");
+      positions = (pl.at as string[]).map((s, i) => len(s, `/measurement/planes/at/${i}`));
+    } else {
+      if (pl.from === undefined || pl.to === undefined || pl.count === undefined) throw msg.badScenario(file, "/measurement/planes: give 'at' (a list) or all of 'from', 'to' and 'count'");
+      const a = len(pl.from, '/measurement/planes/from');
+      const b = len(pl.to, '/measurement/planes/to');
+      const n = pl.count as number;
+      positions = Array.from({ length: n }, (_, i) => (n === 1 ? a : a + ((b - a) * i) / (n - 1)));
+    }
+    sampling = { kind: 'planes', axis, positionsM: positions };
+  }
+  const res = me.resolution;
+  const [sx, sy, sz] = typeof res === 'string'
+    ? [len(res, '/measurement/resolution'), len(res, '/measurement/resolution'), len(res, '/measurement/resolution')]
+    : (['x', 'y', 'z'] as const).map((k) => len((res as Json)[k], `/measurement/resolution/${k}`));
+  const measurement: MeasurementModel = {
+    sampling,
+    sigmaXM: sx, sigmaYM: sy, sigmaZM: sz,
+    efficiency: (me.efficiency as number | undefined) ?? SCENARIO_DEFAULTS.efficiency,
+    noiseHitsPerEvent: (me.noiseHitsPerEvent as number | undefined) ?? SCENARIO_DEFAULTS.noiseHitsPerEvent,
+  };
+
+  const sources: Source[] = (d.sources as Json[]).map((s, i): Source => {
+    const p = `/sources/${i}`;
+    const vec = (v: unknown, name: string) => (v as string[]).map((t, k) => len(t, `${p}/${name}/${k}`)) as [number, number, number];
+    const dir = (v: unknown): [number, number, number] => {
+      const a = v as [number, number, number];
+      if (Math.hypot(a[0], a[1], a[2]) === 0) throw msg.badScenario(file, `${p}/direction: [0, 0, 0] has no direction; give e.g. [1, 0, 0]`);
+      return a;
+    };
+    const origin = (v: unknown) => {
+      const o = vec(v, 'origin');
+      if (!insideChamber(box, o[0], o[1], o[2])) throw msg.badScenario(file, `${p}/origin: the point lies outside the chamber (${size.map((x) => `${x} m`).join(' × ')} centred on the origin)`);
+      return o;
+    };
+    const type = s.type as string;
+    if (type === 'beam' || type === 'neutral-decay') {
+      let species: { particle: Particle; weight: number }[];
+      if (type === 'neutral-decay') species = [{ particle: at(`${p}/parent`, () => particle(s.parent as string)), weight: 1 }];
+      else if (typeof s.species === 'string') species = [{ particle: at(`${p}/species`, () => particle(s.species as string)), weight: 1 }];
+      else species = Object.entries(s.species as Record<string, number>).map(([name, w]) => ({ particle: at(`${p}/species/${name}`, () => particle(name)), weight: w }));
+      return {
+        kind: 'beam',
+        events: s.events as number,
+        species,
+        momentumGeV: positive(at(`${p}/momentum`, () => momentumGeV(s.momentum as string)), `${p}/momentum`, file),
+        momentumSpread: (s.momentumSpread as number | undefined) ?? SCENARIO_DEFAULTS.momentumSpread,
+        originM: origin(s.origin),
+        direction: dir(s.direction),
+        spotSigmaM: s.spot !== undefined ? len(s.spot, `${p}/spot`) : SCENARIO_DEFAULTS.spotM,
+        divergenceRad: s.divergence !== undefined ? angle(s.divergence, `${p}/divergence`) : SCENARIO_DEFAULTS.divergenceRad,
+        process: type === 'neutral-decay' ? 'neutral-beam' : 'beam',
+      };
+    }
+    if (type === 'cosmic') {
+      const [lo, hi] = (s.momentumRange as string[]).map((t, k) => at(`${p}/momentumRange/${k}`, () => momentumGeV(t)));
+      if (!(lo > 0 && hi > lo)) throw msg.badScenario(file, `${p}/momentumRange: need 0 < low < high, got ${lo} and ${hi} GeV/c`);
+      return {
+        kind: 'cosmic',
+        events: s.events as number,
+        momentumMinGeV: lo,
+        momentumMaxGeV: hi,
+        spectralIndex: (s.spectralIndex as number | undefined) ?? SCENARIO_DEFAULTS.spectralIndex,
+        chargeRatio: (s.chargeRatio as number | undefined) ?? SCENARIO_DEFAULTS.chargeRatio,
+      };
+    }
+    const [lo, hi] = (s.depth as string[]).map((t, k) => len(t, `${p}/depth/${k}`));
+    if (!(lo > 0 && hi >= lo)) throw msg.badScenario(file, `${p}/depth: need 0 < shallow ≤ deep, got ${lo} and ${hi} m`);
+    if (medium === VACUUM) throw msg.badScenario(file, `${p}: stopping muons need a medium; the chamber holds vacuum`);
+    return {
+      kind: 'stopping-muon',
+      events: s.events as number,
+      species: particle(s.species as string),
+      minDepthM: lo,
+      maxDepthM: hi,
+      originM: origin(s.origin),
+      direction: dir(s.direction),
+      spotSigmaM: s.spot !== undefined ? len(s.spot, `${p}/spot`) : SCENARIO_DEFAULTS.spotM,
+      divergenceRad: s.divergence !== undefined ? angle(s.divergence, `${p}/divergence`) : SCENARIO_DEFAULTS.divergenceRad,
+    };
+  });
+
+  return { name: d.name as string, chamber: box, transport, measurement, sources };
+}
+
+function positive(v: number, path: string, file: string): number {
+  if (!(v > 0)) throw msg.badScenario(file, `${path}: must be positive, got ${v}`);
+  return v;
+}

@@ -1,0 +1,275 @@
+import type { HitTable } from '../io/hitTable';
+import { ELECTRON, type Particle } from '../particles';
+import { warn } from '../warnings';
+import type { Chamber } from './chamber';
+import { insideChamber } from './chamber';
+import { ColumnBuffer } from './column-buffer';
+import { DECAY_AT_REST, NEUTRAL_DECAYS } from './decays';
+import { michelMaxEnergyMeV, sampleMichelFraction } from './michel';
+import { seededRandom, type SeededRandom } from './rng';
+import { beamEvent, type BeamSource } from './sources/beam';
+import { cosmicEvent, type CosmicSource } from './sources/cosmic';
+import type { Primary } from './sources/primary';
+import { stoppingMuonEvent, type StoppingMuonSource } from './sources/stopping-muon';
+import { transportTrack, TRANSPORT_DEFAULTS, type EnergyLossMode, type Sampling, type TransportOptions } from './transport';
+import { rotateAbout } from './transport';
+import { twoBodyDecay, twoBodyMomentumMeV } from './two-body-decay';
+
+export type { BeamSource, CosmicSource, StoppingMuonSource };
+export type Source = BeamSource | CosmicSource | StoppingMuonSource;
+
+/** How hits are measured: where they are taken, Gaussian smearing per coordinate, losses, noise. */
+export interface MeasurementModel {
+  readonly sampling: Sampling;
+  /** Gaussian σ of each coordinate [m]. */
+  readonly sigmaXM: number;
+  readonly sigmaYM: number;
+  readonly sigmaZM: number;
+  /** Probability that a true hit is recorded (0…1). */
+  readonly efficiency: number;
+  /** Mean number of noise hits per event, uniform in the chamber (Poisson count). */
+  readonly noiseHitsPerEvent: number;
+}
+
+export interface TransportSettings {
+  readonly energyLoss: EnergyLossMode;
+  readonly scattering: boolean;
+  readonly maxStepM: number;
+  readonly maxPathM: number;
+  /** Knock-on electrons above this kinetic energy [MeV] are made; 0: none. */
+  readonly deltaRayMinMeV: number;
+}
+
+/** Everything a run needs, in internal units (what a scenario file resolves to). */
+export interface SimulationConfig {
+  readonly name: string;
+  readonly chamber: Chamber;
+  readonly transport: TransportSettings;
+  readonly measurement: MeasurementModel;
+  readonly sources: readonly Source[];
+}
+
+/** One row per simulated particle (neutral parents included). Lengths [m], momenta [GeV/c]. */
+export interface TruthTable {
+  readonly length: number;
+  readonly event: Float64Array;
+  readonly track: Float64Array;
+  /** Track number of the parent in the same event; 0 for a primary. */
+  readonly parent: Float64Array;
+  readonly species: readonly string[];
+  readonly charge: Float64Array;
+  /** 'beam', 'cosmic', 'stopping', 'decay', 'decay-at-rest', 'delta'. */
+  readonly process: readonly string[];
+  readonly vx: Float64Array;
+  readonly vy: Float64Array;
+  readonly vz: Float64Array;
+  readonly px: Float64Array;
+  readonly py: Float64Array;
+  readonly pz: Float64Array;
+  /** 'stopped', 'exited', 'max-path', 'decayed'. */
+  readonly end: readonly string[];
+  readonly ex: Float64Array;
+  readonly ey: Float64Array;
+  readonly ez: Float64Array;
+  /** Path length inside the chamber [m] (flight length for neutrals). */
+  readonly pathM: Float64Array;
+  /** Recorded (measured) hits of the track. */
+  readonly hits: Float64Array;
+}
+
+/** True position and momentum of every row of the hit table (NaN for noise hits). */
+export interface HitTruth {
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  readonly z: Float64Array;
+  readonly momentumGeV: Float64Array;
+}
+
+export interface SimulationResult {
+  readonly name: string;
+  readonly seed: number;
+  readonly events: number;
+  readonly hits: HitTable;
+  readonly hitTruth: HitTruth;
+  readonly truth: TruthTable;
+}
+
+/** Safety limit on particles per event (δ-ray showers of a looper could otherwise grow without end). */
+const MAX_TRACKS_PER_EVENT = 2000;
+
+interface Pending extends Primary {
+  readonly parent: number;
+}
+
+const HIT_COLUMNS = ['event', 'track', 'x', 'y', 'z', 'sx', 'sy', 'sz', 'tx', 'ty', 'tz', 'tp'] as const;
+const TRUTH_COLUMNS = ['event', 'track', 'parent', 'charge', 'vx', 'vy', 'vz', 'px', 'py', 'pz', 'ex', 'ey', 'ez', 'path', 'hits'] as const;
+
+/**
+ * Runs a chamber simulation: events of each source in turn (event numbers from 1, in source
+ * order), each particle transported with `transportTrack`, decays of neutral parents and decays
+ * at rest followed, hits measured with the measurement model. One seed drives everything; the
+ * same config and seed give the same numbers on any machine (pure-rand, no global RNG).
+ * Output: the hit table the fitters read (rows of a track contiguous, in travel order; noise hits
+ * first in each event with track 0) and the truth table.
+ * @example simulateChamber(config, 7).hits.length
+ */
+export function simulateChamber(config: SimulationConfig, seed: number): SimulationResult {
+  const rng = seededRandom(seed, `simulateChamber:${config.name}`);
+  const { chamber, measurement } = config;
+  const options: TransportOptions = {
+    ...TRANSPORT_DEFAULTS,
+    energyLoss: config.transport.energyLoss,
+    scattering: config.transport.scattering,
+    maxStepM: config.transport.maxStepM,
+    maxPathM: config.transport.maxPathM,
+    deltaRayMinMeV: config.transport.deltaRayMinMeV,
+    sampling: measurement.sampling,
+  };
+  const hits = new ColumnBuffer(HIT_COLUMNS, 1 << 14);
+  const truth = new ColumnBuffer(TRUTH_COLUMNS, 1024);
+  const species: string[] = [];
+  const process: string[] = [];
+  const ends: string[] = [];
+  let event = 0;
+
+  for (const src of config.sources) {
+    for (let e = 0; e < src.events; e++) {
+      event++;
+      const primaries = src.kind === 'beam' ? beamEvent(src, rng)
+        : src.kind === 'cosmic' ? cosmicEvent(src, chamber, rng)
+        : stoppingMuonEvent(src, chamber, rng);
+      addNoise(hits, event, chamber, measurement, rng);
+      const stack: Pending[] = primaries.map((p) => ({ ...p, parent: 0 }));
+      let trackId = 0;
+      while (stack.length > 0) {
+        const item = stack.shift()!;
+        if (trackId >= MAX_TRACKS_PER_EVENT) {
+          warn('SIM_TRACK_LIMIT', `event ${event}: more than ${MAX_TRACKS_PER_EVENT} particles; the rest were dropped`, 'simulateChamber');
+          break;
+        }
+        const id = ++trackId;
+        const sp = item.species;
+        const pGeV = item.momentumGeV;
+        let end: string, ex: number, ey: number, ez: number, path: number, nHits = 0;
+        if (sp.charge === 0) {
+          ({ end, ex, ey, ez, path } = flyNeutral(item, id, chamber, rng, stack));
+        } else {
+          const first = hits.rows;
+          const r = transportTrack(item, chamber, options, rng,
+            (x, y, z, p) => {
+              if (measurement.efficiency < 1 && rng.uniform() >= measurement.efficiency) return;
+              pushHit(hits, event, id, x, y, z, p, measurement, rng);
+            },
+            (x, y, z, ux, uy, uz, t) => {
+              stack.push({ species: ELECTRON, xM: x, yM: y, zM: z, ux, uy, uz, momentumGeV: Math.sqrt(t * (t + 2 * ELECTRON.massMeV)) * 1e-3, process: 'delta', parent: id });
+            });
+          nHits = hits.rows - first;
+          end = r.reason; ex = r.xM; ey = r.yM; ez = r.zM; path = r.pathM;
+          if (r.reason === 'stopped') decayAtRest(sp, r.xM, r.yM, r.zM, id, rng, stack);
+        }
+        species.push(sp.name);
+        process.push(item.process);
+        ends.push(end);
+        truth.push(event, id, item.parent, sp.charge, item.xM, item.yM, item.zM,
+          pGeV * item.ux, pGeV * item.uy, pGeV * item.uz, ex, ey, ez, path, nHits);
+      }
+    }
+  }
+
+  const h = hits.finish();
+  const t = truth.finish();
+  const sameSigma = measurement.sigmaXM === measurement.sigmaYM;
+  return {
+    name: config.name,
+    seed,
+    events: event,
+    hits: {
+      length: h.event.length,
+      event: h.event, track: h.track, x: h.x, y: h.y, z: h.z,
+      sigmaX: h.sx, sigmaY: sameSigma ? h.sx : h.sy, sigmaZ: h.sz,
+      source: { file: `(simulated: ${config.name}, seed ${seed})`, units: { x: 'm', y: 'm', z: 'm' }, ignoredColumns: [] },
+    },
+    hitTruth: { x: h.tx, y: h.ty, z: h.tz, momentumGeV: h.tp },
+    truth: {
+      length: t.event.length,
+      event: t.event, track: t.track, parent: t.parent, species, charge: t.charge, process,
+      vx: t.vx, vy: t.vy, vz: t.vz, px: t.px, py: t.py, pz: t.pz,
+      end: ends, ex: t.ex, ey: t.ey, ez: t.ez, pathM: t.path, hits: t.hits,
+    },
+  };
+}
+
+function pushHit(
+  hits: ColumnBuffer<(typeof HIT_COLUMNS)[number]>, event: number, track: number,
+  x: number, y: number, z: number, p: number, m: MeasurementModel, rng: SeededRandom,
+): void {
+  hits.push(event, track,
+    x + m.sigmaXM * rng.gaussian(), y + m.sigmaYM * rng.gaussian(), z + m.sigmaZM * rng.gaussian(),
+    m.sigmaXM, m.sigmaYM, m.sigmaZM, x, y, z, p);
+}
+
+function addNoise(
+  hits: ColumnBuffer<(typeof HIT_COLUMNS)[number]>, event: number, c: Chamber, m: MeasurementModel, rng: SeededRandom,
+): void {
+  const n = m.noiseHitsPerEvent > 0 ? rng.poisson(m.noiseHitsPerEvent) : 0;
+  for (let k = 0; k < n; k++) {
+    hits.push(event, 0,
+      c.xMinM + (c.xMaxM - c.xMinM) * rng.uniform(),
+      c.yMinM + (c.yMaxM - c.yMinM) * rng.uniform(),
+      c.zMinM + (c.zMaxM - c.zMinM) * rng.uniform(),
+      m.sigmaXM, m.sigmaYM, m.sigmaZM, NaN, NaN, NaN, NaN);
+  }
+}
+
+/**
+ * A neutral particle flies straight; it decays after an exponential flight length of mean
+ * βγcτ when a charged decay mode is known and the decay point is inside the chamber.
+ */
+function flyNeutral(item: Pending, id: number, c: Chamber, rng: SeededRandom, stack: Pending[]) {
+  const sp = item.species;
+  const pMeV = item.momentumGeV * 1e3;
+  const daughters = NEUTRAL_DECAYS[sp.name];
+  const mean = (pMeV / sp.massMeV) * sp.ctauM;
+  const length = Number.isFinite(mean) ? rng.exponential(mean) : Infinity;
+  const exit = exitDistance(c, item);
+  if (daughters === undefined || !(length < exit)) {
+    const l = Math.min(length, exit);
+    return { end: 'exited', ex: item.xM + l * item.ux, ey: item.yM + l * item.uy, ez: item.zM + l * item.uz, path: l };
+  }
+  const ex = item.xM + length * item.ux, ey = item.yM + length * item.uy, ez = item.zM + length * item.uz;
+  const d = twoBodyDecay(sp.massMeV, pMeV * item.ux, pMeV * item.uy, pMeV * item.uz, daughters[0].massMeV, daughters[1].massMeV, rng);
+  for (const [daughter, four] of [[daughters[0], d.first], [daughters[1], d.second]] as const) {
+    const p = Math.hypot(four[1], four[2], four[3]);
+    stack.push({ species: daughter, xM: ex, yM: ey, zM: ez, ux: four[1] / p, uy: four[2] / p, uz: four[3] / p, momentumGeV: p * 1e-3, process: 'decay', parent: id });
+  }
+  return { end: 'decayed', ex, ey, ez, path: length };
+}
+
+/** Distance along a straight line from the item's start to the chamber wall. */
+function exitDistance(c: Chamber, item: Primary): number {
+  if (!insideChamber(c, item.xM, item.yM, item.zM)) return 0;
+  let t = Infinity;
+  const axes: [number, number, number, number][] = [
+    [item.xM, item.ux, c.xMinM, c.xMaxM], [item.yM, item.uy, c.yMinM, c.yMaxM], [item.zM, item.uz, c.zMinM, c.zMaxM],
+  ];
+  for (const [x, u, lo, hi] of axes) {
+    if (u > 0) t = Math.min(t, (hi - x) / u);
+    else if (u < 0) t = Math.min(t, (lo - x) / u);
+  }
+  return t;
+}
+
+function decayAtRest(sp: Particle, x: number, y: number, z: number, id: number, rng: SeededRandom, stack: Pending[]): void {
+  const mode = DECAY_AT_REST[sp.name];
+  if (mode === undefined) return;
+  let pMeV: number;
+  if (mode.kind === 'two-body') {
+    pMeV = twoBodyMomentumMeV(sp.massMeV, mode.daughter.massMeV, 0);
+  } else {
+    const e = Math.max(mode.daughter.massMeV, sampleMichelFraction(rng) * michelMaxEnergyMeV(sp.massMeV));
+    pMeV = Math.sqrt(Math.max(0, e * e - mode.daughter.massMeV ** 2));
+  }
+  if (!(pMeV > 0)) return;
+  const [ux, uy, uz] = rotateAbout(0, 0, 1, 2 * rng.uniform() - 1, 2 * Math.PI * rng.uniform());
+  stack.push({ species: mode.daughter, xM: x, yM: y, zM: z, ux, uy, uz, momentumGeV: pMeV * 1e-3, process: 'decay-at-rest', parent: id });
+}

@@ -1,0 +1,21 @@
+import type { Particle } from '../../particles';
+
+/** A particle made by a source at the start of an event. Position [m], unit direction, |p| [GeV/c]. */
+export interface Primary {
+  readonly species: Particle;
+  readonly xM: number;
+  readonly yM: number;
+  readonly zM: number;
+  readonly ux: number;
+  readonly uy: number;
+  readonly uz: number;
+  readonly momentumGeV: number;
+  /** Label in the truth table: 'beam', 'cosmic', 'stopping', … */
+  readonly process: string;
+}
+
+/** Unit vector from (x, y, z); throws nothing, returns [0, 0, 0] for the null vector. */
+export function unit(x: number, y: number, z: number): [number, number, number] {
+  const n = Math.hypot(x, y, z);
+  return n > 0 ? [x / n, y / n, z / n] : [0, 0, 0];
+}

@@ -1,0 +1,93 @@
+import { msg } from '../errors';
+import type { SeededRandom } from './rng';
+
+/**
+ * Momentum [MeV/c] of either daughter in the rest frame of a parent of mass `parentMeV`
+ * decaying to masses `m1MeV` + `m2MeV`:
+ * p* = √[(M² − (m₁+m₂)²)(M² − (m₁−m₂)²)] / 2M (relativistic two-body kinematics; PDG RPP
+ * "Kinematics", two-body decays). NaN when the decay is closed (M < m₁ + m₂).
+ * @example twoBodyMomentumMeV(497.611, 139.57039, 139.57039) // 205.97 (PDG listing: 206 MeV/c)
+ */
+export function twoBodyMomentumMeV(parentMeV: number, m1MeV: number, m2MeV: number): number {
+  const s = parentMeV * parentMeV;
+  const a = s - (m1MeV + m2MeV) ** 2;
+  const b = s - (m1MeV - m2MeV) ** 2;
+  if (a < 0) return NaN;
+  return Math.sqrt(a * b) / (2 * parentMeV);
+}
+
+/** Four-momenta of the two daughters in the laboratory [MeV]: (E, px, py, pz) each. */
+export interface TwoBodyProducts {
+  readonly first: readonly [number, number, number, number];
+  readonly second: readonly [number, number, number, number];
+  /** Cosine of the first daughter's rest-frame angle to the parent's flight direction. */
+  readonly cosThetaStar: number;
+}
+
+/**
+ * Isotropic two-body decay of a moving parent. The daughters are made back to back in the rest
+ * frame with |p*| from `twoBodyMomentumMeV`, direction uniform on the sphere (a spin-0 parent, or
+ * an unpolarised one), then boosted along the parent momentum (Lorentz boost; PDG RPP
+ * "Kinematics"). Parent momentum in MeV/c. Throws BAD_ARGUMENT when the decay is closed.
+ */
+export function twoBodyDecay(
+  parentMeV: number,
+  pxMeV: number,
+  pyMeV: number,
+  pzMeV: number,
+  m1MeV: number,
+  m2MeV: number,
+  rng: SeededRandom,
+): TwoBodyProducts {
+  const pStar = twoBodyMomentumMeV(parentMeV, m1MeV, m2MeV);
+  if (!Number.isFinite(pStar)) throw msg.badArgument('daughter masses', [m1MeV, m2MeV], `a sum below the parent mass ${parentMeV} MeV`);
+  const cosT = 2 * rng.uniform() - 1;
+  const sinT = Math.sqrt(Math.max(0, 1 - cosT * cosT));
+  const phi = 2 * Math.PI * rng.uniform();
+  // Rest-frame direction in a frame whose z' axis is the parent flight direction.
+  const p = Math.hypot(pxMeV, pyMeV, pzMeV);
+  const [ex, ey, ez] = p > 0 ? [pxMeV / p, pyMeV / p, pzMeV / p] : [0, 0, 1];
+  const [ax, ay, az] = perpendicular(ex, ey, ez);
+  const bx = ey * az - ez * ay, by = ez * ax - ex * az, bz = ex * ay - ey * ax;
+  const dx = sinT * Math.cos(phi), dy = sinT * Math.sin(phi), dz = cosT;
+  const nx = dx * ax + dy * bx + dz * ex;
+  const ny = dx * ay + dy * by + dz * ey;
+  const nz = dx * az + dy * bz + dz * ez;
+  const e1 = Math.sqrt(pStar * pStar + m1MeV * m1MeV);
+  const e2 = Math.sqrt(pStar * pStar + m2MeV * m2MeV);
+  const eParent = Math.sqrt(p * p + parentMeV * parentMeV);
+  const gamma = eParent / parentMeV;
+  const betaGamma = p / parentMeV;
+  const boost = (e: number, qx: number, qy: number, qz: number): [number, number, number, number] => {
+    const along = qx * ex + qy * ey + qz * ez;
+    const alongLab = gamma * along + betaGamma * e;
+    const eLab = gamma * e + betaGamma * along;
+    return [eLab, qx + (alongLab - along) * ex, qy + (alongLab - along) * ey, qz + (alongLab - along) * ez];
+  };
+  return {
+    first: boost(e1, pStar * nx, pStar * ny, pStar * nz),
+    second: boost(e2, -pStar * nx, -pStar * ny, -pStar * nz),
+    cosThetaStar: cosT,
+  };
+}
+
+/** A unit vector perpendicular to the unit vector (x, y, z). */
+function perpendicular(x: number, y: number, z: number): [number, number, number] {
+  const ax = Math.abs(x), ay = Math.abs(y), az = Math.abs(z);
+  let px: number, py: number, pz: number;
+  if (ax <= ay && ax <= az) { px = 0; py = z; pz = -y; }
+  else if (ay <= az) { px = -z; py = 0; pz = x; }
+  else { px = y; py = -x; pz = 0; }
+  const n = Math.hypot(px, py, pz);
+  return [px / n, py / n, pz / n];
+}
+
+/**
+ * Invariant mass [MeV] of two four-momenta (E, px, py, pz) in MeV:
+ * m² = (E₁+E₂)² − |p₁+p₂|². Valid for any pair; returns NaN for a space-like sum.
+ */
+export function invariantMassMeV(a: readonly number[], b: readonly number[]): number {
+  const e = a[0] + b[0], x = a[1] + b[1], y = a[2] + b[2], z = a[3] + b[3];
+  const m2 = e * e - x * x - y * y - z * z;
+  return m2 >= 0 ? Math.sqrt(m2) : NaN;
+}

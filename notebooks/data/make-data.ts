@@ -1,0 +1,55 @@
+/**
+ * Makes the invented demo data in notebooks/data/ from the scenario files beside this script.
+ * Run from the repository root:  npx tsx notebooks/data/make-data.ts
+ * Each scenario runs with the fixed seed listed below; the outputs are byte-identical on every
+ * regeneration (seeded pure-rand stream, fixed-decimal formatting, no dates in the files).
+ * `npx tsx notebooks/data/make-data.ts --check` regenerates in memory and fails if any file differs.
+ */
+import { readFileSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, simulateChamber } from 'sagitta';
+
+const here = dirname(fileURLToPath(import.meta.url));
+
+/** Scenario name → seed. Changing a seed changes every number in that dataset. */
+export const DEMO_SEEDS: Readonly<Record<string, number>> = Object.freeze({
+  brindlemoor: 20260401,
+});
+
+export function makeDemoFiles(name: string): Record<string, string> {
+  const scenarioFile = join(here, `${name}.scenario.json`);
+  const config = readScenario(scenarioFile);
+  const result = simulateChamber(config, DEMO_SEEDS[name]);
+  const files = {
+    hits: `${name}-hits.csv`,
+    truth: `${name}-truth.csv`,
+    scenario: `${name}.scenario.json`,
+  };
+  return {
+    [files.hits]: formatHitsCsv(result),
+    [files.truth]: formatTruthCsv(result),
+    [`${name}.run.json`]: formatRunRecord(result, files),
+  };
+}
+
+function main(): void {
+  const check = process.argv.includes('--check');
+  let differ = 0;
+  for (const name of Object.keys(DEMO_SEEDS)) {
+    for (const [file, text] of Object.entries(makeDemoFiles(name))) {
+      const path = join(here, file);
+      if (check) {
+        let old = '';
+        try { old = readFileSync(path, 'utf8'); } catch { /* missing counts as different */ }
+        if (old !== text) { differ++; process.stderr.write(`differs: ${file}\n`); }
+      } else {
+        writeFileSync(path, text);
+        process.stdout.write(`wrote ${file} (${Buffer.byteLength(text)} bytes)\n`);
+      }
+    }
+  }
+  if (differ > 0) process.exitCode = 1;
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) main();
