@@ -1,5 +1,6 @@
 import type { Command } from 'commander';
 import { registerFit } from './fit';
+import { registerKernel } from './kernel';
 
 /**
  * Every sub-command, one file each. Add a command by writing `commands/<name>.ts` exporting
@@ -9,4 +10,5 @@ import { registerFit } from './fit';
  */
 export function registerCommands(program: Command): void {
   registerFit(program);
+  registerKernel(program);
 }
