@@ -90,12 +90,26 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
     if (s.length < n) s = new Float64Array(2 * n);
     const kap = circle.kappa[k], phi = circle.phi0[k], d = circle.d0[k], xr = circle.xRef[k], yr = circle.yRef[k];
     const zs = hits.z.subarray(from, to);
-    const sz = hits.sigmaZ?.subarray(from, to);
+    const szMeasured = hits.sigmaZ?.subarray(from, to);
+    let sz = szMeasured;
     const lineAt = (dk: number, dp: number, dd: number) => {
       arcLengths(hits.x, hits.y, from, to, kap + dk, phi + dp, d + dd, xr, yr, s);
       return fitLine(s.subarray(0, n), zs, sz);
     };
-    const line = lineAt(0, 0, 0);
+    let line = lineAt(0, 0, 0);
+    if (szMeasured && hits.sigmaX && Number.isFinite(line.slope)) {
+      // Effective variance (Orear, Am. J. Phys. 50 (1982) 912): the x–y error of a hit along the
+      // track moves its arc length, which a slope tan λ turns into a z error. One refit with
+      // σ_eff² = σ_z² + tan²λ·σ_xy² is enough (the slope changes little).
+      const eff = new Float64Array(n);
+      const t2 = line.slope * line.slope;
+      for (let i = 0; i < n; i++) {
+        const ex = hits.sigmaX[from + i], ey = (hits.sigmaY ?? hits.sigmaX)[from + i];
+        eff[i] = Math.sqrt(szMeasured[i] * szMeasured[i] + t2 * 0.5 * (ex * ex + ey * ey));
+      }
+      sz = eff;
+      line = lineAt(0, 0, 0);
+    }
     z0[k] = line.intercept;
     tanLambda[k] = line.slope;
     chi2Z[k] = line.chi2;
