@@ -1,6 +1,7 @@
 import type { Command } from 'commander';
 import { registerFit } from './fit';
 import { registerKernel } from './kernel';
+import { registerRange } from './range';
 
 /**
  * Every sub-command, one file each. Add a command by writing `commands/<name>.ts` exporting
@@ -11,4 +12,5 @@ import { registerKernel } from './kernel';
 export function registerCommands(program: Command): void {
   registerFit(program);
   registerKernel(program);
+  registerRange(program);
 }

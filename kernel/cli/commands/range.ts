@@ -1,0 +1,182 @@
+import type { Command } from 'commander';
+import { particle as lookupParticle, type Particle } from '../../../lib/particles';
+import { energyMeV, lengthMetres, momentumGeV } from '../../../lib/units';
+import { msg } from '../../../lib/errors';
+import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings';
+import { material as lookupMaterial, type Material } from '../../../lib/matter/materials';
+import { kinematicsFromKinetic, kineticFromMomentum } from '../../../lib/matter/kinematics';
+import { massStoppingPower } from '../../../lib/matter/stoppingPower';
+import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV, rangeTable } from '../../../lib/matter/range';
+
+export interface RangeCommandOptions {
+  particle: string;
+  material: string;
+  energy?: string;
+  momentum?: string;
+  range?: string;
+  table?: boolean;
+  from?: string;
+  to?: string;
+  points: string;
+  json?: boolean;
+}
+
+/** The caution printed with every range answer (help text, text output, JSON field). */
+export const RANGE_CAUTION =
+  'These are mean CSDA values for research and teaching, not for treatment planning or dosimetry: ' +
+  'for clinical or radiation-protection use follow licensed medical-physics practice and the relevant standards and local codes.';
+
+/** One row of the `range` answer; keys are the stable JSON names. */
+export interface RangeRow {
+  readonly kinetic_energy_MeV: number | null;
+  readonly momentum_MeV: number | null;
+  readonly beta: number | null;
+  readonly gamma: number | null;
+  readonly stopping_power_MeV_cm2_g: number | null;
+  readonly stopping_power_MeV_cm: number | null;
+  readonly csda_range_g_cm2: number | null;
+  readonly csda_range_cm: number | null;
+}
+
+/**
+ * `sagitta range`: CSDA range, stopping power and kinematics of a species in a material, either
+ * from an energy/momentum, back from a range, or as a table over an energy grid.
+ */
+export function registerRange(program: Command): void {
+  program
+    .command('range')
+    .description('CSDA range, stopping power, β, γ and momentum of a charged particle in a material (and back from a range)')
+    .option('--particle <name>', 'particle: proton, pi+, pi-, mu-, mu+, K+, electron, positron, deuteron, alpha, …', 'proton')
+    .option('--material <name>', 'material: water, liquid-hydrogen, hydrogen-gas, helium-gas, air, argon-gas, liquid-propane, neon-gas, liquid-neon, silicon, polystyrene, nuclear-emulsion', 'water')
+    .option('--energy <quantity>', 'kinetic energy, e.g. "100 MeV"')
+    .option('--momentum <quantity>', 'momentum, e.g. "450 MeV/c"')
+    .option('--range <quantity>', 'CSDA range to go back from: a length ("7 cm") or an areal density ("7 g/cm2")')
+    .option('--table', 'print a table over a log-spaced energy grid (--from, --to, --points)')
+    .option('--from <quantity>', 'lowest kinetic energy of the table, e.g. "1 MeV" (default: the validity cutoff)')
+    .option('--to <quantity>', 'highest kinetic energy of the table, e.g. "1 GeV"', '1 GeV')
+    .option('--points <n>', 'number of table rows', '25')
+    .option('--json', 'print JSON (keys kinetic_energy_MeV, momentum_MeV, stopping_power_MeV_cm2_g, csda_range_g_cm2, …)')
+    .addHelpText('after', `
+Heavy particles use the Bethe formula with the density effect (valid βγ 0.045–1000; proton
+0.95 MeV – 937 GeV), e± the ICRU 37 collision formula plus an approximate radiative term
+(10 keV – 10 GeV). Ranges integrate 1/S from that cutoff. Outside the validity range the command
+refuses instead of printing a number.
+
+Caution: ${RANGE_CAUTION}
+
+Examples:
+  sagitta range --particle proton --material water --energy "100 MeV"
+  sagitta range --particle mu+ --material liquid-hydrogen --range "1.2 cm" --json
+  sagitta range --particle proton --material silicon --table --from "1 MeV" --to "1 GeV" --points 13`)
+    .action((options: RangeCommandOptions) => {
+      const { stdout, warnings } = runRange(options);
+      process.stdout.write(stdout);
+      for (const w of warnings) process.stderr.write(`sagitta range: warning: ${w.message}\n`);
+    });
+}
+
+const num = (x: number): number | null => (Number.isFinite(x) ? x : null);
+
+function row(p: Particle, m: Material, kineticEnergyMeV: number, rangeGcm2?: number): RangeRow {
+  const k = kinematicsFromKinetic(p, kineticEnergyMeV);
+  const s = massStoppingPower(p, m, kineticEnergyMeV);
+  const r = rangeGcm2 ?? csdaRange(p, m, kineticEnergyMeV);
+  return {
+    kinetic_energy_MeV: num(kineticEnergyMeV),
+    momentum_MeV: num(k.momentumMeV),
+    beta: num(k.beta),
+    gamma: num(k.gamma),
+    stopping_power_MeV_cm2_g: num(s),
+    stopping_power_MeV_cm: num(s * m.densityGcm3),
+    csda_range_g_cm2: num(r),
+    csda_range_cm: num(r / m.densityGcm3),
+  };
+}
+
+/** Reads --range: "7 g/cm2" (areal density) or any length, converted with the density. */
+export function rangeGcm2FromText(text: string, m: Material): number {
+  const areal = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(?:g\s*\/\s*cm(?:\^?2|²)|g\s*cm\^?-2)\s*$/i.exec(text);
+  if (areal) return Number(areal[1]);
+  return lengthMetres(text, { what: '--range' }) * 100 * m.densityGcm3;
+}
+
+function validityText(p: Particle): string {
+  return `${Number(rangeCutoffMeV(p).toPrecision(3))}–${Number(rangeMaxMeV(p).toPrecision(3))} MeV for ${p.name}`;
+}
+
+/** Runs the command; returns what goes to stdout and the warnings (also used by tests). */
+export function runRange(options: RangeCommandOptions): { stdout: string; warnings: SagittaWarning[] } {
+  consumeWarnings();
+  const p = lookupParticle(options.particle);
+  if (p.charge === 0) throw msg.badArgument('--particle', options.particle, 'a charged particle');
+  const m = lookupMaterial(options.material);
+  const given = [options.energy, options.momentum, options.range].filter((x) => x !== undefined).length;
+
+  if (options.table) {
+    if (given > 0) throw msg.badArgument('--table', 'with --energy/--momentum/--range', '--table alone, with --from, --to and --points');
+    const points = Number(options.points);
+    if (!Number.isInteger(points) || points < 2 || points > 100_000) throw msg.badArgument('--points', options.points, 'an integer from 2 to 100000');
+    const fromMeV = options.from !== undefined ? energyMeV(options.from, { what: '--from' }) : rangeCutoffMeV(p);
+    const toMeV = energyMeV(options.to ?? '1 GeV', { what: '--to' });
+    const t = rangeTable(p, m, { fromMeV, toMeV, points });
+    const rows: RangeRow[] = [];
+    for (let i = 0; i < t.kineticEnergyMeV.length; i++) rows.push(row(p, m, t.kineticEnergyMeV[i], t.csdaRangeGcm2[i]));
+    const warnings = consumeWarnings();
+    if (options.json) {
+      return { stdout: JSON.stringify({ particle: p.name, material: m.name, density_g_cm3: m.densityGcm3, caution: RANGE_CAUTION, rows }) + '\n', warnings };
+    }
+    return { stdout: formatTable(p, m, rows), warnings };
+  }
+
+  if (given !== 1) throw msg.badArgument('--energy/--momentum/--range', `${given} given`, 'exactly one of them (or --table)');
+  let kineticMeV: number;
+  let rangeGiven: number | undefined;
+  if (options.energy !== undefined) {
+    kineticMeV = energyMeV(options.energy, { what: '--energy' });
+    if (!Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--energy', options.energy, validityText(p));
+  } else if (options.momentum !== undefined) {
+    kineticMeV = kineticFromMomentum(p, momentumGeV(options.momentum, { what: '--momentum' }) * 1000);
+    if (!Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--momentum', options.momentum, validityText(p));
+  } else {
+    rangeGiven = rangeGcm2FromText(options.range as string, m);
+    kineticMeV = kineticEnergyFromRange(p, m, rangeGiven);
+    if (!Number.isFinite(kineticMeV)) throw msg.outsideValidity('--range', options.range as string, `of ranges for ${validityText(p)} in ${m.name}`);
+  }
+  consumeWarnings();
+  const r = row(p, m, kineticMeV, rangeGiven);
+  const warnings = consumeWarnings();
+  if (options.json) {
+    return { stdout: JSON.stringify({ particle: p.name, material: m.name, density_g_cm3: m.densityGcm3, ...r, caution: RANGE_CAUTION }) + '\n', warnings };
+  }
+  return { stdout: formatOne(p, m, r), warnings };
+}
+
+const g = (x: number | null, digits = 5): string => (x === null ? 'n/a' : Number(x.toPrecision(digits)).toString());
+
+function header(p: Particle, m: Material): string {
+  return `${p.name} in ${m.name} (ρ = ${g(m.densityGcm3, 4)} g/cm³, I = ${g(m.meanExcitationEV, 4)} eV${m.approximate ? ', approximate material' : ''})`;
+}
+
+function formatOne(p: Particle, m: Material, r: RangeRow): string {
+  return [
+    header(p, m),
+    `  kinetic energy   ${g(r.kinetic_energy_MeV)} MeV`,
+    `  momentum         ${g(r.momentum_MeV)} MeV/c`,
+    `  beta, gamma      ${g(r.beta)}, ${g(r.gamma)}`,
+    `  stopping power   ${g(r.stopping_power_MeV_cm2_g)} MeV cm²/g  (${g(r.stopping_power_MeV_cm)} MeV/cm)`,
+    `  CSDA range       ${g(r.csda_range_g_cm2)} g/cm²  (${g(r.csda_range_cm)} cm)`,
+    `  caution: ${RANGE_CAUTION}`,
+    '',
+  ].join('\n');
+}
+
+function formatTable(p: Particle, m: Material, rows: readonly RangeRow[]): string {
+  const cols: [string, keyof RangeRow][] = [
+    ['T [MeV]', 'kinetic_energy_MeV'], ['p [MeV/c]', 'momentum_MeV'], ['beta', 'beta'],
+    ['S [MeV cm2/g]', 'stopping_power_MeV_cm2_g'], ['R [g/cm2]', 'csda_range_g_cm2'], ['R [cm]', 'csda_range_cm'],
+  ];
+  const cells = rows.map((r) => cols.map(([, k]) => g(r[k])));
+  const widths = cols.map(([h], j) => Math.max(h.length, ...cells.map((c) => c[j].length)));
+  const line = (xs: readonly string[]) => xs.map((x, j) => x.padStart(widths[j])).join('  ');
+  return [header(p, m), line(cols.map(([h]) => h)), ...cells.map(line), `caution: ${RANGE_CAUTION}`, ''].join('\n');
+}

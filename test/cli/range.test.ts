@@ -1,0 +1,65 @@
+import { describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { Command } from 'commander';
+import { RANGE_CAUTION, registerRange, runRange, type RangeCommandOptions } from '../../kernel/cli/commands/range';
+import { SagittaError } from '../../lib/errors';
+
+const base: RangeCommandOptions = { particle: 'proton', material: 'water', points: '25' };
+const json = (o: Partial<RangeCommandOptions>) => JSON.parse(runRange({ ...base, ...o, json: true }).stdout);
+
+describe('sagitta range', () => {
+  it('--energy "100 MeV" --json gives the issue’s keys; range within 1 % of PSTAR 7.718 g/cm² (NIST PSTAR)', () => {
+    const r = json({ energy: '100 MeV' });
+    for (const k of ['csda_range_g_cm2', 'stopping_power_MeV_cm2_g', 'kinetic_energy_MeV', 'momentum_MeV', 'csda_range_cm', 'beta', 'gamma']) expect(r).toHaveProperty(k);
+    expect(Math.abs(r.csda_range_g_cm2 / 7.718 - 1)).toBeLessThan(0.01);
+    expect(Math.abs(r.stopping_power_MeV_cm2_g / 7.289 - 1)).toBeLessThan(0.01);
+    expect(r.kinetic_energy_MeV).toBe(100);
+    expect(r.caution).toBe(RANGE_CAUTION);
+  });
+  it('--range "7 cm" goes back to the energy whose range is 7 g/cm² in water, and "7 g/cm2" means the same', () => {
+    const a = json({ range: '7 cm' });
+    const b = json({ range: '7 g/cm2' });
+    expect(a.csda_range_g_cm2).toBeCloseTo(7, 9);
+    expect(a.kinetic_energy_MeV).toBeCloseTo(b.kinetic_energy_MeV, 9);
+    const back = json({ energy: `${a.kinetic_energy_MeV} MeV` });
+    expect(back.csda_range_g_cm2).toBeCloseTo(7, 6);
+  });
+  it('--momentum "444.58 MeV/c" is a 100 MeV proton', () => {
+    expect(json({ momentum: '444.5834 MeV/c' }).kinetic_energy_MeV).toBeCloseTo(100, 3);
+  });
+  it('--table prints --points rows from --from to --to', () => {
+    const t = json({ table: true, from: '1 MeV', to: '1 GeV', points: '7' });
+    expect(t.rows).toHaveLength(7);
+    expect(t.rows[0].kinetic_energy_MeV).toBeCloseTo(1, 9);
+    expect(t.rows[6].kinetic_energy_MeV).toBeCloseTo(1000, 9);
+    const text = runRange({ ...base, table: true, points: '5' }).stdout;
+    expect(text).toMatch(/R \[g\/cm2\]/);
+    expect(text).toMatch(/not for treatment planning/);
+  });
+  it('refuses an energy below the validity cutoff with OUTSIDE_VALIDITY instead of printing a number', () => {
+    expect(() => runRange({ ...base, energy: '0.1 MeV' })).toThrow(SagittaError);
+    expect(() => runRange({ ...base, energy: '0.1 MeV' })).toThrow(/outside the validity range 0.95/);
+  });
+  it('needs exactly one of --energy, --momentum, --range', () => {
+    expect(() => runRange({ ...base })).toThrow(/exactly one/);
+    expect(() => runRange({ ...base, energy: '1 MeV', range: '1 cm' })).toThrow(/exactly one/);
+  });
+  it('help carries the clinical caution', () => {
+    const program = new Command('sagitta');
+    registerRange(program);
+    const range = program.commands.find((c) => c.name() === 'range')!;
+    let after = '';
+    range.configureOutput({ writeOut: (s) => { after += s; } });
+    range.outputHelp();
+    expect(after).toMatch(/not for treatment planning/);
+    expect(after).toMatch(/licensed medical-physics practice/);
+  });
+  it('runs as a command: exit 0 with output, exit 1 with a one-line reason', () => {
+    const ok = spawnSync(process.execPath, ['kernel/bin/sagitta.js', 'range', '--particle', 'mu+', '--material', 'liquid-hydrogen', '--energy', '50 MeV', '--json'], { encoding: 'utf8' });
+    expect(ok.status).toBe(0);
+    expect(JSON.parse(ok.stdout).particle).toBe('mu+');
+    const bad = spawnSync(process.execPath, ['kernel/bin/sagitta.js', 'range', '--material', 'cheese', '--energy', '50 MeV'], { encoding: 'utf8' });
+    expect(bad.status).toBe(1);
+    expect(bad.stderr).toMatch(/unknown material "cheese"/);
+  });
+});
