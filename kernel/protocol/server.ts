@@ -57,10 +57,15 @@ export class KernelServer {
   private readonly makeSession: KernelServerOptions['createSession'];
   private session: Promise<Session> | undefined;
   private executionCount = 0;
-  private shellQueue: Message[] = [];
+  private shellQueue: Array<{ msg: Message; seq: number }> = [];
+  /** Number of shell messages received so far (their arrival order). */
+  private received = 0;
   private shellBusy = false;
-  /** Set after a failed cell with stop_on_error: execute requests already queued are aborted. */
-  private aborting = false;
+  /**
+   * After a failed cell with stop_on_error: execute requests that had arrived before its reply
+   * went out (sequence number up to this) are aborted; later ones run normally.
+   */
+  private abortUpTo = 0;
   private stopping = false;
   private readonly stopped: Promise<void>;
   private resolveStopped!: () => void;
@@ -146,7 +151,7 @@ export class KernelServer {
           continue;
         }
         if (channel === 'shell') {
-          this.shellQueue.push(msg);
+          this.shellQueue.push({ msg, seq: ++this.received });
           void this.pumpShell();
         } else if (channel === 'control') {
           void this.handle(msg, 'control');
@@ -163,18 +168,9 @@ export class KernelServer {
     this.shellBusy = true;
     try {
       while (this.shellQueue.length > 0 && !this.stopping) {
-        const msg = this.shellQueue.shift()!;
-        await this.handle(msg, 'shell');
-        if (this.aborting) {
-          // Let zeromq hand over what the client sent meanwhile, then abort the queued cells.
-          await new Promise((resolve) => setTimeout(resolve, 10));
-          const queued = this.shellQueue.splice(0);
-          for (const m of queued) {
-            if (m.header.msg_type === 'execute_request') await this.abort(m);
-            else this.shellQueue.push(m);
-          }
-          this.aborting = false;
-        }
+        const { msg, seq } = this.shellQueue.shift()!;
+        if (seq <= this.abortUpTo && msg.header.msg_type === 'execute_request') await this.abort(msg);
+        else await this.handle(msg, 'shell');
       }
     } finally {
       this.shellBusy = false;
@@ -291,6 +287,12 @@ export class KernelServer {
       return;
     }
     const error = outcome.error ?? { ename: 'Error', evalue: 'the cell failed', traceback: [] };
+    if (stopOnError) {
+      // A blocking cell kept zeromq from handing over what the client sent meanwhile; let it
+      // arrive, then mark everything received so far (before our reply) for aborting.
+      await new Promise((resolve) => setTimeout(resolve, 10));
+      this.abortUpTo = this.received;
+    }
     if (!silent) await this.publish('error', { ename: error.ename, evalue: error.evalue, traceback: error.traceback }, parent);
     await this.reply(
       'shell',
@@ -299,7 +301,6 @@ export class KernelServer {
       { status: 'error', execution_count: count, ename: error.ename, evalue: error.evalue, traceback: error.traceback },
       { started, status: 'error' },
     );
-    if (stopOnError) this.aborting = true;
   }
 
   /** Reply to an execute request that was queued behind a failed cell. */

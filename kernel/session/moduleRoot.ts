@@ -30,7 +30,42 @@ const requireHere = createRequire(path.join(packageRoot, 'package.json'));
 
 /** tslab's bundled TypeScript (the compiler that checks and compiles cells). */
 export type TslabTs = typeof import('@tslab/typescript-for-tslab');
-export const tslabTs: TslabTs = createRequire(requireHere.resolve('tslab/package.json'))('@tslab/typescript-for-tslab') as TslabTs;
+const requireFromTslab = createRequire(requireHere.resolve('tslab/package.json'));
+export const tslabTs: TslabTs = requireFromTslab('@tslab/typescript-for-tslab') as TslabTs;
+
+/** True for compiler paths inside a node_modules folder (the library and its dependencies). */
+function isPackageFile(fileName: string): boolean {
+  return /[\\/]node_modules[\\/]/.test(fileName);
+}
+
+/**
+ * Cells are checked against the library's types, but the library's own sources are not
+ * re-checked by tslab's older compiler with its older module resolution: that was done by the
+ * package's own type check, and an error there would otherwise block every cell. tslab's
+ * converter reads the compiler through `require`, so it gets a copy of the compiler module whose
+ * `getPreEmitDiagnosticsOfFiles` leaves out files under node_modules. Must run before
+ * tslab/dist/converter is first loaded (session.ts imports this module first).
+ */
+function shieldLibraryDiagnostics(): void {
+  const file = requireFromTslab.resolve('@tslab/typescript-for-tslab');
+  const entry = requireFromTslab.cache[file];
+  if (!entry || (entry.exports as { __sagittaShim?: boolean }).__sagittaShim) return;
+  const real = tslabTs as unknown as Record<string, unknown>;
+  const shim: Record<string, unknown> = {};
+  for (const key of Object.keys(real)) {
+    Object.defineProperty(shim, key, { enumerable: true, configurable: true, get: () => real[key] });
+  }
+  const original = tslabTs.getPreEmitDiagnosticsOfFiles;
+  Object.defineProperty(shim, 'getPreEmitDiagnosticsOfFiles', {
+    enumerable: true,
+    value: (program: unknown, files: ReadonlyArray<{ fileName: string }>, token?: unknown) =>
+      (original as (p: unknown, f: unknown, t?: unknown) => unknown)(program, files.filter((f) => !isPackageFile(f.fileName)), token),
+  });
+  Object.defineProperty(shim, '__esModule', { value: true });
+  Object.defineProperty(shim, '__sagittaShim', { value: true });
+  entry.exports = shim;
+}
+shieldLibraryDiagnostics();
 
 const virtualRoots = new Set<string>();
 
