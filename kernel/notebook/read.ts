@@ -34,7 +34,7 @@ export function parseNotebook(text: string, file: string): Notebook {
   } catch (err) {
     const detail = (err as Error).message;
     const pos = /position (\d+)/.exec(detail);
-    const line = pos ? text.slice(0, Number(pos[1])).split('\n').length : undefined;
+    const line = pos ? text.slice(0, Number(pos[1])).split('\n').length : /end of JSON input/i.test(detail) ? text.split('\n').length : undefined;
     const where = line !== undefined ? ` near line ${line}` : '';
     throw msg.badNotebook(file, `is not valid JSON${where} (${detail}); the file may be truncated or hand-edited — restore it from a saved copy`);
   }

@@ -1,6 +1,7 @@
 import type { Command } from 'commander';
 import { registerFit } from './fit';
 import { registerKernel } from './kernel';
+import { registerRun } from './run';
 import { registerRange } from './range';
 
 /**
@@ -12,5 +13,6 @@ import { registerRange } from './range';
 export function registerCommands(program: Command): void {
   registerFit(program);
   registerKernel(program);
+  registerRun(program);
   registerRange(program);
 }

@@ -1,0 +1,103 @@
+import { Command } from 'commander';
+import { basename, resolve } from 'node:path';
+
+export interface RunCommandOptions {
+  html?: string;
+  pdf?: string;
+  executed?: string;
+  writeBack?: boolean;
+  cellTimeout: string;
+  keepGoing?: boolean;
+  set: string[];
+  hideCode?: boolean;
+}
+
+/**
+ * `sagitta run <notebook.ipynb>`: executes a notebook headlessly in a child process and writes
+ * the executed notebook and, if asked, a self-contained HTML (and PDF) report. The report and
+ * the executed notebook are written even when a cell fails.
+ * Exit codes: 0 every cell ran without error; 1 a cell failed, timed out or ended the process,
+ * or the notebook is unusable (one-line reason on stderr); 2 bad usage.
+ */
+export function registerRun(program: Command): void {
+  program
+    .command('run')
+    .description('run a notebook headlessly and write the executed notebook and an HTML/PDF report')
+    .argument('<notebook>', 'notebook file (.ipynb, nbformat 4, any minor version)')
+    .option('--html <file>', 'write the report as one self-contained offline HTML file')
+    .option('--pdf <file>', 'also print the report to PDF with headless Chromium')
+    .option('--executed <file>', 'where to write the executed notebook (default: <name>.executed.ipynb in the current folder)')
+    .option('--write-back', 'write the executed notebook over the source notebook (the source is otherwise never changed)')
+    .option('--cell-timeout <duration>', 'longest one cell may run, e.g. 120s, 2min, 500ms; 0 for no limit', '120s')
+    .option('--keep-going', 'run the remaining cells after a cell raises an error')
+    .option('--set <name=value>', 'replace a default of the cell tagged "sagitta-knobs" (value read as JSON, else as text); repeatable', (v: string, acc: string[]) => [...acc, v], [] as string[])
+    .option('--hide-code', 'start the report with code folded away')
+    .addHelpText('after', `
+Knobs: tag the code cell that holds a notebook's adjustable defaults "sagitta-knobs". Values given
+with --set are placed in a new cell right after it, tagged "sagitta-knobs-set", which redeclares
+them (const name = value;). The report's provenance card lists them.
+
+Cells run in order in a separate Node process. A cell that raises gets an error output; with
+--keep-going the later cells still run. A cell that exceeds --cell-timeout, or that ends the
+process (process.exit, a crash), stops the process: that cell gets an error output saying so and
+the cells after it are marked not run. The executed notebook (nbformat 4.5, with per-cell times
+under metadata.sagitta) and the report are written in every case, atomically.
+
+Exit codes: 0 every cell ran without error; 1 a cell failed, timed out or ended the process, or
+the notebook could not be read; 2 bad usage.
+
+Example:
+  sagitta run notebooks/01-chamber-momenta.ipynb --html report.html --set fieldT=1.2 --cell-timeout 60s`)
+    .action(async (notebook: string, options: RunCommandOptions) => {
+      const result = await runCommand(notebook, options);
+      process.stderr.write(`${result.summary}\n`);
+      if (result.exitCode !== 0) {
+        process.stderr.write(`sagitta: ${result.reason}\n`);
+        process.exitCode = result.exitCode;
+      }
+    });
+}
+
+export interface RunCommandResult {
+  readonly exitCode: 0 | 1;
+  readonly reason?: string;
+  readonly summary: string;
+  readonly executedPath: string;
+  readonly htmlPath?: string;
+  readonly pdfPath?: string;
+}
+
+/** Runs the command (also used by `sagitta demo` and by tests). */
+export async function runCommand(notebook: string, options: RunCommandOptions): Promise<RunCommandResult> {
+  const { parseDuration, parseSetArguments, runNotebook } = await import('../../runner/index');
+  const { writeNotebook, writeFileAtomic } = await import('../../notebook/write');
+  const { renderReport, printReportPdf } = await import('../../report/index');
+  const cellTimeoutMs = parseDuration(options.cellTimeout);
+  const parameters = parseSetArguments(options.set ?? []);
+  const executedPath = options.writeBack ? notebook : (options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`);
+  if (!options.writeBack && resolve(executedPath) === resolve(notebook)) {
+    const { msg } = await import('../../../lib/errors');
+    throw msg.badArgument('--executed', executedPath, 'a path other than the source notebook (use --write-back to replace the source on purpose)');
+  }
+
+  const result = await runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, parameters });
+  writeNotebook(executedPath, result.notebook);
+  const written = [`executed notebook: ${executedPath}`];
+  let htmlPath: string | undefined;
+  let pdfPath: string | undefined;
+  if (options.html !== undefined || options.pdf !== undefined) {
+    const html = renderReport({ notebook: result.notebook, run: result.run, codeOpen: !options.hideCode });
+    htmlPath = options.html ?? `${options.pdf!.replace(/\.pdf$/i, '')}.html`;
+    writeFileAtomic(htmlPath, html);
+    written.push(`report: ${resolve(htmlPath)}`);
+    if (options.pdf !== undefined) {
+      await printReportPdf(resolve(htmlPath), options.pdf);
+      pdfPath = options.pdf;
+      written.push(`PDF: ${resolve(options.pdf)}`);
+    }
+  }
+  const code = result.notebook.cells.filter((c) => c.cell_type === 'code');
+  const ran = code.filter((c) => (c.metadata.sagitta as { outcome?: string } | undefined)?.outcome !== 'not-run').length;
+  const summary = `ran ${ran} of ${code.length} code cells in ${(result.run.wallMs / 1000).toFixed(2)} s (start-up ${(result.startMs / 1000).toFixed(2)} s)\n${written.join('\n')}`;
+  return { exitCode: result.exitCode, reason: result.reason, summary, executedPath, htmlPath, pdfPath };
+}

@@ -1,0 +1,63 @@
+/**
+ * The runner's child process: one notebook session, fed one cell at a time over IPC. Living in
+ * its own process is what lets the runner stop a cell that never ends (SIGKILL) or survive a cell
+ * that ends the process, without losing what earlier cells produced.
+ */
+import { provenanceSnapshot } from '../../lib/provenance';
+import { createSession } from '../session/index';
+import type { Session } from '../session/types';
+import type { FromChild, ToChild } from './messages';
+
+const t0 = performance.now();
+let session: Session | undefined;
+let current = -1;
+
+function send(m: FromChild): void {
+  process.send?.(m);
+}
+
+// Errors thrown later by a cell's timers or promises must not end the run: they are shown as
+// stderr of the cell that is running (or ran last), as a console would show them.
+const late = (label: string) => (err: unknown) => {
+  const text = err instanceof Error ? (err.stack ?? `${err.name}: ${err.message}`) : String(err);
+  send({ kind: 'stream', index: current, name: 'stderr', text: `${label}: ${text}\n` });
+};
+process.on('uncaughtException', late('uncaught exception'));
+process.on('unhandledRejection', late('unhandled promise rejection'));
+
+process.on('message', (raw) => {
+  const m = raw as ToChild;
+  void handle(m).catch((err: unknown) => send({ kind: 'fault', message: err instanceof Error ? err.message : String(err) }));
+});
+
+// Without this, an idle child whose parent died would wait forever.
+process.on('disconnect', () => process.exit(0));
+
+async function handle(m: ToChild): Promise<void> {
+  if (m.kind === 'start') {
+    session = createSession({ workDir: m.workDir });
+    // Compile and run an empty cell so the compiler and the library are loaded before the first
+    // timed cell: the per-cell timeout then measures the cell's own work.
+    await session.execute('', { stream() {}, display() {} });
+    const { tslabTs } = await import('../session/moduleRoot');
+    send({ kind: 'ready', typescript: tslabTs.version, startMs: performance.now() - t0 });
+  } else if (m.kind === 'cell') {
+    if (!session) throw new Error('cell before start');
+    current = m.index;
+    const index = m.index;
+    const outcome = await session.execute(m.code, {
+      stream: (name, text) => send({ kind: 'stream', index, name, text }),
+      display: (bundle, options) => send({ kind: 'display', index, bundle: toJson(bundle), displayId: options.displayId, update: options.update }),
+    });
+    if (outcome.result) outcome.result = toJson(outcome.result);
+    send({ kind: 'done', index, outcome, provenance: provenanceSnapshot() });
+  } else {
+    session?.close();
+    process.disconnect?.();
+  }
+}
+
+/** Bundles cross the IPC channel and land in a JSON file: keep only what JSON can hold. */
+function toJson<T>(value: T): T {
+  return JSON.parse(JSON.stringify(value, (_k, v: unknown) => (typeof v === 'bigint' ? v.toString() : v))) as T;
+}

@@ -1,0 +1,4 @@
+export * from './messages';
+export * from './duration';
+export * from './parameters';
+export * from './runNotebook';

@@ -1,0 +1,16 @@
+import type { ProvenanceSnapshot } from '../../lib/provenance';
+import type { CellOutcome, MimeBundle } from '../session/types';
+
+/** Messages from the runner to its child process (over Node's IPC channel, JSON). */
+export type ToChild =
+  | { kind: 'start'; workDir: string }
+  | { kind: 'cell'; index: number; code: string }
+  | { kind: 'close' };
+
+/** Messages from the child back to the runner. */
+export type FromChild =
+  | { kind: 'ready'; typescript: string; startMs: number }
+  | { kind: 'stream'; index: number; name: 'stdout' | 'stderr'; text: string }
+  | { kind: 'display'; index: number; bundle: MimeBundle; displayId?: string; update?: boolean }
+  | { kind: 'done'; index: number; outcome: CellOutcome; provenance: ProvenanceSnapshot }
+  | { kind: 'fault'; message: string };
