@@ -9,3 +9,4 @@ export * from './electronLoss';
 export * from './stoppingPower';
 export * from './range';
 export * from './mostProbableLoss';
+export * from './rangeTableFrame';

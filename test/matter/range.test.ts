@@ -81,3 +81,14 @@ describe('rangeTable (typed arrays) and its interpolation', () => {
     expect(consumeWarnings().map((x) => x.code)).toEqual(['RANGE_TABLE_CLAMPED', 'OUTSIDE_TABLE']);
   });
 });
+
+describe('rangeTableFrame (DataFrame for notebooks)', () => {
+  it('has the table’s rows and the JSON column names of `sagitta range`', async () => {
+    const { rangeTableFrame } = await import('../../lib/matter/rangeTableFrame');
+    const df = rangeTableFrame(PROTON, material('water'), { fromMeV: 10, toMeV: 100, points: 5 });
+    expect(df.shape).toEqual([5, 5]);
+    expect(df.columns).toEqual(['kinetic_energy_MeV', 'momentum_MeV', 'stopping_power_MeV_cm2_g', 'csda_range_g_cm2', 'csda_range_cm']);
+    const r = df['csda_range_g_cm2'].values as number[];
+    expect(r[4]).toBeCloseTo(csdaRange(PROTON, material('water'), 100), 6);
+  });
+});
