@@ -16,10 +16,11 @@ export interface SpeciesLoss {
   /** Variance of the energy lost per metre of path [MeV²/m] (Gaussian straggling); 0 for none. */
   readonly stragglingVarianceMeV2PerM: number;
   /**
-   * Width θ₀ [rad] of the projected multiple-scattering angle after a step of `stepM` metres at
-   * momentum `momentumGeV` and velocity `beta`; 0 for none.
+   * Width θ₀ [rad] of the projected multiple-scattering angle to apply for a step of `stepM`
+   * metres at momentum `momentumGeV` and velocity `beta`, when the track has already travelled
+   * `pathBeforeM` metres (models whose θ₀² is not additive, like Highland's, need it); 0 for none.
    */
-  theta0Rad(momentumGeV: number, beta: number, stepM: number): number;
+  theta0Rad(momentumGeV: number, beta: number, stepM: number, pathBeforeM: number): number;
 }
 
 /** A chamber medium: a name for outputs and the per-species loss model. */

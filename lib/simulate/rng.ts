@@ -82,11 +82,12 @@ class Xoroshiro implements SeededRandom {
   }
 
   fork(): SeededRandom {
-    const clone = this.rng.clone() as RandomGenerator & { jump?: () => void };
-    clone.jump?.();
-    // Advance this stream as well so that two forks in a row differ.
+    // The child takes the next 2⁶⁴-draw region; this stream moves on to the region after it, so
+    // successive forks and the parent never overlap.
     this.rng.jump?.();
-    return new Xoroshiro(this.seed, clone);
+    const child = this.rng.clone() as RandomGenerator & { jump?: () => void };
+    this.rng.jump?.();
+    return new Xoroshiro(this.seed, child);
   }
 }
 

@@ -4,7 +4,7 @@
  * after the schema check; plain numbers are dimensionless (weights, fractions, counts).
  * `sagitta simulate --schema` prints this schema.
  */
-const quantity = { type: 'string', pattern: '^\\s*[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?\\s*[A-Za-zµμ]', description: 'a number and a unit, e.g. "80 cm"' };
+const quantity = { type: 'string', pattern: '^\\s*[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?\\s*[A-Za-zµμ]', description: 'e.g. "80 cm"' };
 const vector3 = { type: 'array', items: quantity, minItems: 3, maxItems: 3 };
 const direction = { type: 'array', items: { type: 'number' }, minItems: 3, maxItems: 3, description: 'a direction [dx, dy, dz]; need not be normalised' };
 const events = { type: 'integer', minimum: 0, maximum: 1_000_000 };

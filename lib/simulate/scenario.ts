@@ -31,7 +31,7 @@ type Json = Record<string, unknown>;
 
 let validator: ReturnType<Ajv['compile']> | undefined;
 function validate(doc: unknown): readonly ErrorObject[] {
-  if (validator === undefined) validator = new Ajv({ allErrors: true, strict: false }).compile(SCENARIO_SCHEMA);
+  if (validator === undefined) validator = new Ajv({ allErrors: true, strict: false, verbose: true }).compile(SCENARIO_SCHEMA);
   return validator(doc) ? [] : (validator.errors ?? []);
 }
 
@@ -50,8 +50,9 @@ function describeErrors(errors: readonly ErrorObject[]): string {
       text = `${at}: must be one of ${(e.params as { allowedValues: unknown[] }).allowedValues.map((v) => JSON.stringify(v)).join(', ')}`;
     } else if (e.keyword === 'const') {
       text = `${at}: must be ${JSON.stringify((e.params as { allowedValue: unknown }).allowedValue)}`;
-    } else if (e.keyword === 'pattern' && (e.parentSchema as { description?: string } | undefined)?.description) {
-      text = `${at}: must be ${(e.parentSchema as { description: string }).description}`;
+    } else if (e.keyword === 'pattern') {
+      const description = (e.parentSchema as { description?: string } | undefined)?.description;
+      text = `${at}: ${JSON.stringify(e.data)} must be a number and a unit${description ? ` (${description})` : ''}`;
     } else if (e.keyword === 'required') {
       text = `${at}: missing field '${(e.params as { missingProperty: string }).missingProperty}'`;
     } else {
