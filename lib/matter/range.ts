@@ -3,7 +3,7 @@ import type { Particle } from '../particles';
 import { warn } from '../warnings';
 import { BETHE_MAX_BETA_GAMMA, BETHE_MIN_BETA_GAMMA } from './bethe';
 import { ELECTRON_MAX_MEV, ELECTRON_MIN_MEV } from './electronLoss';
-import { kineticFromBetaGamma, momentumFromKinetic } from './kinematics';
+import { kineticFromBetaGamma, kineticFromMomentum, momentumFromKinetic } from './kinematics';
 import type { Material } from './materials';
 import { isElectronLike, massStoppingPower } from './stoppingPower';
 
@@ -260,4 +260,18 @@ export function energyAtRange(table: RangeTable, rangeGcm2: number): number {
   }
   if (i === r.length - 1) return t[i];
   return hermite(r[i], r[i + 1], t[i], t[i + 1], s[i], s[i + 1], rangeGcm2);
+}
+
+/**
+ * CSDA range [g/cm²] of a particle of momentum p [MeV/c]: `csdaRange` at T = √(p² + M²) − M.
+ * Same validity and source as `csdaRange`; NaN + warning outside.
+ * @example csdaRangeFromMomentum(MUON_PLUS, material('liquid-hydrogen'), 29.79) // the 4.1 MeV muon of π⁺ → μ⁺ν decay at rest
+ */
+export function csdaRangeFromMomentum(particle: Particle, material: Material, momentumMeV: number): number {
+  return csdaRange(particle, material, kineticFromMomentum(particle, momentumMeV));
+}
+
+/** Momentum [MeV/c] whose CSDA range is `rangeGcm2` [g/cm²]; inverse of `csdaRangeFromMomentum`. */
+export function momentumFromRange(particle: Particle, material: Material, rangeGcm2: number): number {
+  return momentumFromKinetic(particle, kineticEnergyFromRange(particle, material, rangeGcm2));
 }

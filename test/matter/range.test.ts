@@ -92,3 +92,14 @@ describe('rangeTableFrame (DataFrame for notebooks)', () => {
     expect(r[4]).toBeCloseTo(csdaRange(PROTON, material('water'), 100), 6);
   });
 });
+
+describe('momentum ↔ range', () => {
+  it('csdaRangeFromMomentum and momentumFromRange are inverse for a 29.79 MeV/c μ⁺ in liquid hydrogen', async () => {
+    const { csdaRangeFromMomentum, momentumFromRange } = await import('../../lib/matter/range');
+    // π⁺ → μ⁺ν at rest gives p_μ = 29.79 MeV/c (T_μ = 4.12 MeV), from PDG masses (common practice).
+    const lh2 = material('liquid-hydrogen');
+    const r = csdaRangeFromMomentum(MUON_PLUS, lh2, 29.79);
+    expect(r).toBeCloseTo(csdaRange(MUON_PLUS, lh2, Math.sqrt(29.79 ** 2 + MUON_PLUS.massMeV ** 2) - MUON_PLUS.massMeV), 12);
+    expect(momentumFromRange(MUON_PLUS, lh2, r)).toBeCloseTo(29.79, 8);
+  });
+});
