@@ -106,6 +106,9 @@ function jsonErrorPlace(text: string, err: unknown): string {
 
 /** Validates a parsed scenario object and converts it to internal units. */
 export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationConfig {
+  if (doc === null || typeof doc !== 'object' || Array.isArray(doc) || (doc as Json).format === undefined) {
+    throw msg.badScenario(file, 'not a Sagitta scenario: the top level must be an object with "format": "sagitta-scenario/1" (see sagitta simulate --schema)');
+  }
   const errors = validate(doc);
   if (errors.length > 0) throw msg.badScenario(file, describeErrors(errors));
   const d = doc as Json;

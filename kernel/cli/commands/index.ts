@@ -3,6 +3,7 @@ import { registerFit } from './fit';
 import { registerKernel } from './kernel';
 import { registerRun } from './run';
 import { registerRange } from './range';
+import { registerSimulate } from './simulate';
 
 /**
  * Every sub-command, one file each. Add a command by writing `commands/<name>.ts` exporting
@@ -15,4 +16,5 @@ export function registerCommands(program: Command): void {
   registerKernel(program);
   registerRun(program);
   registerRange(program);
+  registerSimulate(program);
 }
