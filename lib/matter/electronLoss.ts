@@ -47,6 +47,17 @@ export function electronCollisionStoppingPower(particle: Particle, material: Mat
   return ((HALF_K * material.zOverA) / beta2) * bracket;
 }
 
+/** Σ wZ(Z+1)/A per material, computed once (materials are frozen). */
+const BREMS_WEIGHT = new WeakMap<Material, number>();
+function bremsWeight(material: Material): number {
+  let w = BREMS_WEIGHT.get(material);
+  if (w === undefined) {
+    w = zz1OverA(material);
+    BREMS_WEIGHT.set(material, w);
+  }
+  return w;
+}
+
 /**
  * Radiative (bremsstrahlung) mass stopping power of e± [MeV cm²/g]. Approximation (stated):
  * the smaller of
@@ -67,7 +78,7 @@ export function electronRadiativeStoppingPower(particle: Particle, material: Mat
     return NaN;
   }
   const e = t + ELECTRON_MASS_MEV;
-  const unscreened = BREMS_COEFF * zz1OverA(material) * e * (Math.log((2 * e) / ELECTRON_MASS_MEV) - 1 / 3);
+  const unscreened = BREMS_COEFF * bremsWeight(material) * e * (Math.log((2 * e) / ELECTRON_MASS_MEV) - 1 / 3);
   const screened = e / material.radiationLengthGcm2;
   return Math.min(unscreened, screened);
 }

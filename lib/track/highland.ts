@@ -6,6 +6,8 @@ import type { Material } from '../matter/materials';
 /** Range of x/X₀ over which the Highland form is quoted to 11 % (PDG RPP). */
 export const HIGHLAND_MIN_X_OVER_X0 = 1e-3;
 export const HIGHLAND_MAX_X_OVER_X0 = 100;
+/** Stated accuracy of θ₀ inside that range (PDG RPP: "accurate to 11 % or better"). */
+export const HIGHLAND_RELATIVE_ACCURACY = 0.11;
 
 export interface HighlandInput {
   /** Momentum p [GeV/c]. */
