@@ -13,6 +13,9 @@ export const BETHE_MAX_BETA_GAMMA = 1000;
  * Maximum energy transfer to a free electron in one collision [MeV], exact kinematics
  * (PDG RPP, "Passage of particles through matter"):
  *   T_max = 2 m_e c² β²γ² / (1 + 2γ m_e/M + (m_e/M)²).
+ * Valid for any mass M [MeV] and βγ ≥ 0 (free-electron kinematics; for incident e± the
+ * ICRU 37 formulas use their own limits instead).
+ * @example maxEnergyTransferMeV(938.272, 1) // ≈ 1.0205 (≈ 2 m_e c² βγ² for a heavy particle)
  */
 export function maxEnergyTransferMeV(massMeV: number, betaGammaValue: number): number {
   const bg2 = betaGammaValue * betaGammaValue;

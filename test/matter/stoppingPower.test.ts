@@ -8,7 +8,7 @@ import { consumeWarnings } from '../../lib/warnings';
 import { SagittaError } from '../../lib/errors';
 import {
   betheStoppingPower, collisionStoppingPower, kineticFromBetaGamma, massStoppingPower, material,
-  maxEnergyTransferMeV, radiativeStoppingPower,
+  linearStoppingPower, maxEnergyTransferMeV, radiativeStoppingPower,
 } from '../../lib/matter/index';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
@@ -60,6 +60,11 @@ describe('massStoppingPower for heavy particles (Bethe)', () => {
   it('maxEnergyTransferMeV → 2 m_e c² β²γ² for a heavy slow particle and → the full energy for e-like mass', () => {
     // PDG RPP exact T_max formula, limits (common practice).
     expect(rel(maxEnergyTransferMeV(PROTON.massMeV, 0.1), 2 * ELECTRON_MASS_MEV * 0.01)).toBeLessThan(2e-3);
+  });
+  it('linearStoppingPower = mass stopping power × density (PSTAR water 100 MeV: 7.289 MeV/cm at ρ = 1)', () => {
+    expect(rel(linearStoppingPower(PROTON, material('water'), 100), 7.289)).toBeLessThan(0.01);
+    const si = material('silicon');
+    expect(linearStoppingPower(PROTON, si, 100)).toBeCloseTo(massStoppingPower(PROTON, si, 100) * 2.329, 12);
   });
   it('returns NaN with an OUTSIDE_VALIDITY warning below βγ = 0.045 and above 1000, never a number', () => {
     expect(massStoppingPower(PROTON, material('water'), 0.5)).toBeNaN();
