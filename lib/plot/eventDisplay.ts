@@ -81,22 +81,22 @@ export function eventDisplay(hits: DisplayHits, tracks: readonly DisplayTrack[],
     parts.push(`<text x="${W - MARGIN.right}" y="24" text-anchor="end" fill="${PALETTE.ink}">B = ${escapeHtml(Math.abs(o.fieldT).toPrecision(3))} T ${sym}</text>`);
   }
   parts.push(`<g clip-path="url(#sg-plot-area)">`);
+  for (let i = 0; i < n; i++) {
+    const x = hits.xM[i], y = hits.yM[i];
+    if (!Number.isFinite(x) || !Number.isFinite(y)) continue;
+    const assigned = hits.track ? hits.track[i] >= 0 : true;
+    parts.push(`<circle cx="${px(x)}" cy="${py(y)}" r="1.9" fill="${assigned ? PALETTE.hit : 'none'}" stroke="${PALETTE.hit}" stroke-width="0.8"/>`);
+  }
   tracks.forEach((t, k) => {
     if (!(t.radiusM > 0) || !Number.isFinite(t.centerXM) || !Number.isFinite(t.centerYM)) return;
     const colour = chargeColour(t.charge);
     const span = hits.track ? arcSpan(hits, k, t) : undefined;
     if (span === undefined) {
-      parts.push(`<circle cx="${px(t.centerXM)}" cy="${py(t.centerYM)}" r="${r2(t.radiusM * scale)}" fill="none" stroke="${colour}" stroke-width="1.8"/>`);
+      parts.push(`<circle cx="${px(t.centerXM)}" cy="${py(t.centerYM)}" r="${r2(t.radiusM * scale)}" fill="none" stroke="${colour}" stroke-width="1.6" stroke-opacity="0.9"/>`);
     } else {
-      parts.push(`<path d="${arcPath(t, span, px, py, scale)}" fill="none" stroke="${colour}" stroke-width="1.8"/>`);
+      parts.push(`<path d="${arcPath(t, span, px, py, scale)}" fill="none" stroke="${colour}" stroke-width="1.6" stroke-opacity="0.9"/>`);
     }
   });
-  for (let i = 0; i < n; i++) {
-    const x = hits.xM[i], y = hits.yM[i];
-    if (!Number.isFinite(x) || !Number.isFinite(y)) continue;
-    const assigned = hits.track ? hits.track[i] >= 0 : true;
-    parts.push(`<circle cx="${px(x)}" cy="${py(y)}" r="2.2" fill="${assigned ? PALETTE.hit : 'none'}" stroke="${PALETTE.hit}" stroke-width="0.8"/>`);
-  }
   tracks.forEach((t, k) => {
     if (!t.label || !hits.track) return;
     const span = arcSpan(hits, k, t);

@@ -4,3 +4,4 @@ export * from './figure';
 export * from './histogram';
 export * from './xyFigure';
 export * from './eventDisplay';
+export * from './trackEventDisplay';

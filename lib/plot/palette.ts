@@ -12,7 +12,7 @@ export const PALETTE = Object.freeze({
   teal: '#2f6f73',
   plum: '#6d4a7e',
   ochre: '#b8902a',
-  hit: '#3b4252',
+  hit: '#7b8190',
 });
 
 /** Series colours in the order figures use them. */
