@@ -1,5 +1,6 @@
 import { GEV_PER_TESLA_METRE } from '../constants';
 import { msg } from '../errors';
+import type { Column } from '../io/columnTable';
 import type { HitTable } from '../io/hitTable';
 import { indexTracks } from '../io/indexTracks';
 import { PION_PLUS, type Particle } from '../particles';
@@ -106,4 +107,16 @@ function keepAssigned(hits: HitTable): HitTable {
     length: keep.length, event: pick(hits.event)!, track: pick(hits.track)!, x: pick(hits.x)!, y: pick(hits.y)!,
     z: pick(hits.z), sigmaX: pick(hits.sigmaX), sigmaY: pick(hits.sigmaY), sigmaZ: pick(hits.sigmaZ), source: hits.source,
   };
+}
+
+/**
+ * The budget as result-table columns, named as `sagitta fit --material` writes them:
+ * sigma_p_meas, sigma_p_ms, sigma_p_total, all σ(p) in GeV/c.
+ */
+export function resolutionBudgetColumns(budget: ResolutionBudgetColumns): Column[] {
+  return [
+    { name: 'sigma_p_meas', values: budget.sigmaPMeasGeV, digits: 4 },
+    { name: 'sigma_p_ms', values: budget.sigmaPMsGeV, digits: 4 },
+    { name: 'sigma_p_total', values: budget.sigmaPTotalGeV, digits: 4 },
+  ];
 }

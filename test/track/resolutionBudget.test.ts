@@ -48,3 +48,12 @@ describe('resolutionBudget (per-track error budget for sagitta fit --material)',
     expect(b.sigmaPTotalGeV[0]).toBeCloseTo(Math.hypot(b.sigmaPMeasGeV[0], b.sigmaPMsGeV[0]), 15);
   });
 });
+
+describe('resolutionBudgetColumns', () => {
+  it('names the columns sigma_p_meas, sigma_p_ms, sigma_p_total (issue 3)', async () => {
+    const { resolutionBudgetColumns } = await import('../../lib/track/resolutionBudget');
+    const h = hits();
+    const b = resolutionBudget(h, measureTracks(h, { fieldT: 1.5 }), { material: material('liquid-hydrogen') });
+    expect(resolutionBudgetColumns(b).map((c) => c.name)).toEqual(['sigma_p_meas', 'sigma_p_ms', 'sigma_p_total']);
+  });
+});
