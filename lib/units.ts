@@ -1,4 +1,5 @@
-import { all, create, type MathJsInstance, type Unit } from 'mathjs';
+import { createRequire } from 'node:module';
+import type { MathJsInstance, Unit } from 'mathjs';
 import { msg, type SourceLocation } from './errors';
 
 /**
@@ -16,9 +17,32 @@ import { msg, type SourceLocation } from './errors';
  *
  * mathjs has no gauss; it is added here (1 G = 1e-4 T, with SI prefixes so "kG" works), because
  * older chamber logbooks give fields in kilogauss.
+ *
+ * mathjs takes about a second to load, which a command-line fit of a few seconds cannot afford.
+ * So the common form "<number> <unit>" with a unit from the small table below is read directly,
+ * and mathjs is loaded only for anything else (expressions, other units, error messages). The
+ * table's factors are checked against mathjs in test/units.test.ts.
  */
-const math: MathJsInstance = create(all, {});
-math.createUnit('gauss', { definition: '1e-4 T', prefixes: 'short', aliases: ['G', 'Gs'] }, { override: false });
+let mathInstance: MathJsInstance | undefined;
+function mathjs(): MathJsInstance {
+  if (mathInstance === undefined) {
+    const { create, all } = createRequire(import.meta.url)('mathjs') as typeof import('mathjs');
+    mathInstance = create(all, {});
+    mathInstance.createUnit('gauss', { definition: '1e-4 T', prefixes: 'short', aliases: ['G', 'Gs'] }, { override: false });
+  }
+  return mathInstance;
+}
+
+/** Factor to each dimension's internal unit for the units read without mathjs. */
+export const DIRECT_UNITS: Readonly<Record<Dimension, Readonly<Record<string, number>>>> = Object.freeze({
+  field: { T: 1, mT: 1e-3, uT: 1e-6, G: 1e-4, gauss: 1e-4, kG: 0.1, kgauss: 0.1 },
+  length: { m: 1, cm: 1e-2, mm: 1e-3, um: 1e-6, nm: 1e-9, km: 1e3 },
+  energy: { eV: 1e-6, keV: 1e-3, MeV: 1, GeV: 1e3, TeV: 1e6 },
+  momentum: { eV: 1e-9, keV: 1e-6, MeV: 1e-3, GeV: 1, TeV: 1e3 },
+  voltage: { V: 1, mV: 1e-3, kV: 1e3 },
+  current: { A: 1, mA: 1e-3, kA: 1e3 },
+});
+const DIRECT = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*([A-Za-zµμ]+)$/;
 
 export type Dimension = 'field' | 'length' | 'energy' | 'momentum' | 'voltage' | 'current';
 
@@ -65,6 +89,12 @@ export function quantity(text: string, dimension: Dimension, options: QuantityOp
     if (options.defaultUnit === undefined) throw msg.missingUnit(text, what, spec.example, where);
     s = `${s} ${options.defaultUnit}`;
   }
+  const direct = DIRECT.exec(s);
+  if (direct) {
+    const factor = DIRECT_UNITS[dimension][direct[2].replace(/^[µμ]/, 'u')];
+    if (factor !== undefined) return Number(direct[1]) * factor;
+  }
+  const math = mathjs();
   let u: Unit;
   try {
     const parsed: unknown = math.evaluate(s);
@@ -93,6 +123,9 @@ export const momentumGeV = (text: string, options?: QuantityOptions): number => 
  */
 export function metresPerUnit(unit: string, where: SourceLocation = {}): number {
   const name = unit.trim().replace(/^µ|^μ/, 'u');
+  const direct = DIRECT_UNITS.length[name];
+  if (direct !== undefined) return direct;
+  const math = mathjs();
   let u: Unit;
   try {
     u = math.unit(1, name);

@@ -32,3 +32,19 @@ describe('units at the boundary', () => {
     expect(() => metresPerUnit('kg')).toThrow(/unknown unit "kg"/);
   });
 });
+
+describe('units read without mathjs agree with mathjs', () => {
+  it('every unit of the direct table converts exactly as mathjs converts it', async () => {
+    const { DIRECT_UNITS } = await import('../lib/units');
+    for (const [dimension, table] of Object.entries(DIRECT_UNITS)) {
+      for (const unit of Object.keys(table)) {
+        const suffix = dimension === 'momentum' ? '/c' : '';
+        const direct = quantity(`2.5 ${unit}${suffix}`, dimension as Parameters<typeof quantity>[1]);
+        // Parentheses keep the text off the direct path, so mathjs evaluates it.
+        const viaMathjs = quantity(`(2.5 ${unit})${suffix}`, dimension as Parameters<typeof quantity>[1]);
+        expect(direct).toBeCloseTo(viaMathjs, 12);
+        expect(Math.abs(direct - viaMathjs)).toBeLessThanOrEqual(1e-12 * Math.abs(viaMathjs));
+      }
+    }
+  });
+});

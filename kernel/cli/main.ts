@@ -8,18 +8,18 @@ import { registerCommands } from './commands/index';
  * `kernel/cli/commands/` and registers itself; this file only wires them and maps errors to exit
  * codes: 0 success, 1 unusable input or failed run (one-line reason on stderr), 2 bad usage.
  */
-export function buildProgram(): Command {
+export async function buildProgram(argv: readonly string[] = []): Promise<Command> {
   const program = new Command('sagitta')
     .description('Charged-particle track analysis: fits, momenta, energy loss, range, notebooks and reports.')
     .version(sagittaVersion(), '-V, --version')
     .showHelpAfterError('(run with --help for usage)')
     .exitOverride();
-  registerCommands(program);
+  await registerCommands(program, argv);
   return program;
 }
 
 export async function main(argv: readonly string[]): Promise<number> {
-  const program = buildProgram();
+  const program = await buildProgram(argv);
   try {
     await program.parseAsync(argv as string[]);
     return typeof process.exitCode === 'number' ? process.exitCode : 0;

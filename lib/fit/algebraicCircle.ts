@@ -26,28 +26,35 @@ interface Moments {
 
 const M: Moments = { n: 0, mx: 0, my: 0, xx: 0, yy: 0, xy: 0, xz: 0, yz: 0, zz: 0, mz: 0 };
 
-function weightOf(sx: Float64Array | undefined, sy: Float64Array | undefined, i: number): number {
-  if (sx === undefined) return 1;
-  const ex = sx[i], ey = sy![i];
-  return 2 / (ex * ex + ey * ey);
-}
-
+/**
+ * Weighted centred moments, two passes (mean, then moments about it) for accuracy when the
+ * track sits far from the origin. Weight w = 2/(σx² + σy²), or 1 without errors.
+ */
 function moments(x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined, from: number, to: number): Moments {
   let sw = 0, sxw = 0, syw = 0;
-  for (let i = from; i < to; i++) {
-    const w = weightOf(sx, sy, i);
-    sw += w;
-    sxw += w * x[i];
-    syw += w * y[i];
+  if (sx === undefined) {
+    for (let i = from; i < to; i++) { sxw += x[i]; syw += y[i]; }
+    sw = to - from;
+  } else {
+    for (let i = from; i < to; i++) {
+      const ex = sx[i], ey = sy![i];
+      const w = 2 / (ex * ex + ey * ey);
+      sw += w; sxw += w * x[i]; syw += w * y[i];
+    }
   }
   const mx = sxw / sw, my = syw / sw;
   let xx = 0, yy = 0, xy = 0, xz = 0, yz = 0, zz = 0;
   for (let i = from; i < to; i++) {
-    const w = weightOf(sx, sy, i);
+    let w = 1;
+    if (sx !== undefined) {
+      const ex = sx[i], ey = sy![i];
+      w = 2 / (ex * ex + ey * ey);
+    }
     const u = x[i] - mx, v = y[i] - my;
     const z = u * u + v * v;
-    xx += w * u * u; yy += w * v * v; xy += w * u * v;
-    xz += w * u * z; yz += w * v * z; zz += w * z * z;
+    const wu = w * u, wv = w * v, wz = w * z;
+    xx += wu * u; yy += wv * v; xy += wu * v;
+    xz += wu * z; yz += wv * z; zz += wz * z;
   }
   const iw = 1 / sw;
   M.n = to - from; M.mx = mx; M.my = my;

@@ -13,20 +13,21 @@
  */
 
 /**
- * Signed sweep of hits around a centre: +1 when the hits, in order, go counter-clockwise,
- * −1 clockwise. Sums the angle steps between consecutive hits, so it is right for arcs and for
- * spirals of several turns alike.
+ * Turning sense of hits around a centre: +1 when the hits, in order, go counter-clockwise, −1
+ * clockwise. Sums the cross products of consecutive centre-to-hit vectors (twice the signed
+ * area swept), so it is right for arcs and for spirals of several turns alike, and needs no
+ * trigonometry (this runs once per track in the algebraic fits' hot loop).
  */
 export function turningSense(x: Float64Array, y: Float64Array, from: number, to: number, xc: number, yc: number): number {
-  let sweep = 0;
+  let swept = 0;
   let px = x[from] - xc, py = y[from] - yc;
   for (let i = from + 1; i < to; i++) {
     const qx = x[i] - xc, qy = y[i] - yc;
-    sweep += Math.atan2(px * qy - py * qx, px * qx + py * qy);
+    swept += px * qy - py * qx;
     px = qx;
     py = qy;
   }
-  return sweep >= 0 ? 1 : -1;
+  return swept >= 0 ? 1 : -1;
 }
 
 /** Output slot for (κ, φ, d). */

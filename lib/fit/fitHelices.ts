@@ -1,6 +1,6 @@
 import { circleFitAt, FIT_STATUS, type CircleFit, type CircleFitColumns } from './circleFit';
 import { fitCircles, type CircleFitOptions, type PlaneHits } from './fitCircles';
-import { fitLine } from './fitLine';
+import { lineFitInto, newLineScratch } from './fitLine';
 import { msg } from '../errors';
 
 /** Hits with the coordinate along the field. */
@@ -66,8 +66,8 @@ const SYM5 = [0, 1, 2, 3, 4, 1, 5, 6, 7, 8, 2, 6, 9, 10, 11, 3, 7, 10, 12, 13, 4
 /**
  * Helix fit of every track: the circle in x–y (method as in fitCircles), then a straight line
  * z = z0 + tanλ·s in arc length (the two-step helix fit; common practice in gas trackers).
- * The joint covariance propagates the circle's covariance into (z0, tanλ) through ∂s/∂(κ,φ,d)
- * (central finite differences of the line solution), plus the line fit's own covariance:
+ * The joint covariance propagates the circle's covariance into (z0, tanλ) through ∂s/∂(κ,φ,d),
+ * plus the line fit's own covariance (z weights by effective variance, see below):
  *     C = [[Cc, Cc Gᵀ], [G Cc, G Cc Gᵀ + Cl]],  G = ∂(z0, tanλ)/∂(κ, φ0, d0).
  * x–y and z measurements are taken as independent.
  */
@@ -80,66 +80,80 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
   const cov = new Float64Array(15 * count).fill(NaN);
   const chi2Z = new Float64Array(count).fill(NaN);
   const ndfZ = new Int32Array(count);
-  let s = new Float64Array(64);
+  // Scratch, grown as needed; nothing is allocated per track.
+  let s = new Float64Array(64), sp = new Float64Array(64), w = new Float64Array(64);
+  const line = newLineScratch();
   const G = new Float64Array(6);
+  const GC = new Float64Array(6);
+  const full = new Float64Array(25);
+  const { x, y, z } = hits;
   for (let k = 0; k < count; k++) {
     const from = offsets[k], to = offsets[k + 1];
     const n = to - from;
     ndfZ[k] = Math.max(0, n - 2);
-    if (FIT_STATUS[circle.status[k]] !== 'ok' && FIT_STATUS[circle.status[k]] !== 'not-converged') continue;
-    if (s.length < n) s = new Float64Array(2 * n);
+    const st = FIT_STATUS[circle.status[k]];
+    if (st !== 'ok' && st !== 'not-converged') continue;
+    if (s.length < n) { s = new Float64Array(2 * n); sp = new Float64Array(2 * n); w = new Float64Array(2 * n); }
     const kap = circle.kappa[k], phi = circle.phi0[k], d = circle.d0[k], xr = circle.xRef[k], yr = circle.yRef[k];
-    const zs = hits.z.subarray(from, to);
-    const szMeasured = hits.sigmaZ?.subarray(from, to);
-    let sz = szMeasured;
-    const lineAt = (dk: number, dp: number, dd: number) => {
-      arcLengths(hits.x, hits.y, from, to, kap + dk, phi + dp, d + dd, xr, yr, s);
-      return fitLine(s.subarray(0, n), zs, sz);
-    };
-    let line = lineAt(0, 0, 0);
-    if (szMeasured && hits.sigmaX && Number.isFinite(line.slope)) {
-      // Effective variance (Orear, Am. J. Phys. 50 (1982) 912): the x–y error of a hit along the
-      // track moves its arc length, which a slope tan λ turns into a z error. One refit with
-      // σ_eff² = σ_z² + tan²λ·σ_xy² is enough (the slope changes little).
-      const eff = new Float64Array(n);
-      const t2 = line.slope * line.slope;
-      for (let i = 0; i < n; i++) {
-        const ex = hits.sigmaX[from + i], ey = (hits.sigmaY ?? hits.sigmaX)[from + i];
-        eff[i] = Math.sqrt(szMeasured[i] * szMeasured[i] + t2 * 0.5 * (ex * ex + ey * ey));
+    const zs = z.subarray(from, to);
+    arcLengths(x, y, from, to, kap, phi, d, xr, yr, s);
+    let weights: Float64Array | undefined;
+    if (hits.sigmaZ) {
+      for (let i = 0; i < n; i++) { const e = hits.sigmaZ[from + i]; w[i] = 1 / (e * e); }
+      weights = w;
+      lineFitInto(s, zs, weights, n, line);
+      if (hits.sigmaX && Number.isFinite(line.slope)) {
+        // Effective variance (Orear, Am. J. Phys. 50 (1982) 912): the x–y error of a hit along
+        // the track moves its arc length, which the slope tan λ turns into a z error. One refit
+        // with σ_eff² = σ_z² + tan²λ·σ_xy² is enough (the slope changes little).
+        const t2 = line.slope * line.slope;
+        const sy = hits.sigmaY ?? hits.sigmaX;
+        for (let i = 0; i < n; i++) {
+          const ez = hits.sigmaZ[from + i], ex = hits.sigmaX[from + i], ey = sy[from + i];
+          w[i] = 1 / (ez * ez + t2 * 0.5 * (ex * ex + ey * ey));
+        }
       }
-      sz = eff;
-      line = lineAt(0, 0, 0);
     }
-    z0[k] = line.intercept;
-    tanLambda[k] = line.slope;
+    lineFitInto(s, zs, weights, n, line);
+    const t = line.slope, zz0 = line.intercept;
+    z0[k] = zz0;
+    tanLambda[k] = t;
     chi2Z[k] = line.chi2;
-    ndfZ[k] = line.ndf;
-    // G by central differences, steps small against the parameters' own scale.
+    ndfZ[k] = n - 2;
+    // G = ∂(z0, tanλ)/∂(κ, φ0, d0) by the chain rule: analytic ∂(z0, t)/∂s_i of the linear fit
+    //   ∂t/∂s_i = w_i (r_i − t (s_i − s̄)) / S_uu,   ∂z0/∂s_i = −s̄ ∂t/∂s_i − t w_i / S_w
+    // times ∂s_i/∂p from one-sided differences of the arc lengths.
     let len = 0;
     for (let i = 0; i < n; i++) len = Math.max(len, Math.abs(s[i]));
-    const steps = [1e-6 * Math.max(Math.abs(kap), 1 / Math.max(len, 1e-9)), 1e-6, 1e-6 * Math.max(len, 1e-9)];
+    const sbar = line.meanU, suu = line.suu, sw = line.sumW;
     for (let j = 0; j < 3; j++) {
-      const h = steps[j];
-      const up = lineAt(j === 0 ? h : 0, j === 1 ? h : 0, j === 2 ? h : 0);
-      const dn = lineAt(j === 0 ? -h : 0, j === 1 ? -h : 0, j === 2 ? -h : 0);
-      G[j] = (up.intercept - dn.intercept) / (2 * h);
-      G[3 + j] = (up.slope - dn.slope) / (2 * h);
+      const h = j === 0 ? 1e-7 * Math.max(Math.abs(kap), 1 / Math.max(len, 1e-9)) : j === 1 ? 1e-7 : 1e-7 * Math.max(len, 1e-9);
+      arcLengths(x, y, from, to, kap + (j === 0 ? h : 0), phi + (j === 1 ? h : 0), d + (j === 2 ? h : 0), xr, yr, sp);
+      let gz = 0, gt = 0;
+      for (let i = 0; i < n; i++) {
+        const wi = weights ? weights[i] : 1;
+        const ds = (sp[i] - s[i]) / h;
+        const r = zs[i] - zz0 - t * s[i];
+        const dt = (wi * (r - t * (s[i] - sbar))) / suu;
+        gt += dt * ds;
+        gz += (-sbar * dt - (t * wi) / sw) * ds;
+      }
+      G[j] = gz;
+      G[3 + j] = gt;
     }
     const c6 = circle.cov.subarray(6 * k, 6 * k + 6);
-    const Cc = [c6[0], c6[1], c6[2], c6[1], c6[3], c6[4], c6[2], c6[4], c6[5]];
-    // GC = G·Cc (2×3)
-    const GC = new Float64Array(6);
-    for (let r = 0; r < 2; r++) for (let c = 0; c < 3; c++) {
-      GC[3 * r + c] = G[3 * r] * Cc[c] + G[3 * r + 1] * Cc[3 + c] + G[3 * r + 2] * Cc[6 + c];
+    // Cc as a full 3×3 (row-major) from its upper triangle.
+    const c00 = c6[0], c01 = c6[1], c02 = c6[2], c11 = c6[3], c12 = c6[4], c22 = c6[5];
+    for (let r = 0; r < 2; r++) {
+      const g0 = G[3 * r], g1 = G[3 * r + 1], g2 = G[3 * r + 2];
+      GC[3 * r] = g0 * c00 + g1 * c01 + g2 * c02;
+      GC[3 * r + 1] = g0 * c01 + g1 * c11 + g2 * c12;
+      GC[3 * r + 2] = g0 * c02 + g1 * c12 + g2 * c22;
     }
-    const full = new Float64Array(25);
-    for (let r = 0; r < 3; r++) for (let c = 0; c < 3; c++) full[5 * r + c] = Cc[3 * r + c];
-    for (let r = 0; r < 2; r++) for (let c = 0; c < 3; c++) {
-      full[5 * (3 + r) + c] = GC[3 * r + c];
-      full[5 * c + 3 + r] = GC[3 * r + c];
-    }
-    const lineCov = [line.cov[0], line.cov[1], line.cov[1], line.cov[2]];
-    for (let r = 0; r < 2; r++) for (let c = 0; c < 2; c++) {
+    full[0] = c00; full[1] = c01; full[2] = c02; full[6] = c11; full[7] = c12; full[12] = c22;
+    for (let r = 0; r < 2; r++) for (let c = 0; c < 3; c++) full[5 * c + 3 + r] = GC[3 * r + c];
+    const lineCov = [line.varIntercept, line.covIS, line.covIS, line.varSlope];
+    for (let r = 0; r < 2; r++) for (let c = r; c < 2; c++) {
       full[5 * (3 + r) + 3 + c] = GC[3 * r] * G[3 * c] + GC[3 * r + 1] * G[3 * c + 1] + GC[3 * r + 2] * G[3 * c + 2] + lineCov[2 * r + c];
     }
     for (let r = 0, q = 0; r < 5; r++) for (let c = r; c < 5; c++) cov[15 * k + q++] = full[5 * r + c];

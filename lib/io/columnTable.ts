@@ -1,6 +1,7 @@
 import { writeFileSync, renameSync } from 'node:fs';
 import type { DataFrame } from 'danfojs-node';
 import { loadDanfo } from './hitsToDataFrame';
+import { formatSignificant } from './formatSignificant';
 
 /**
  * A named, ordered set of equally long columns — the shape every result table takes on its way
@@ -24,7 +25,7 @@ function cell(c: Column, i: number): string {
   if (typeof v === 'string') return /[",\n\r]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
   if (!Number.isFinite(v)) return '';
   if (c.digits === 0 || Number.isInteger(v)) return String(v);
-  return v.toPrecision(c.digits ?? 10);
+  return formatSignificant(v, c.digits ?? 10);
 }
 
 /** CSV text with a header row. */
@@ -46,7 +47,7 @@ export function rowObjects(table: ColumnTable): Record<string, number | string |
     const row: Record<string, number | string | null> = {};
     for (const c of table.columns) {
       const v = c.values[i];
-      row[c.name] = typeof v === 'string' ? v : Number.isFinite(v) ? (c.digits === 0 || Number.isInteger(v) ? v : Number(v.toPrecision(c.digits ?? 10))) : null;
+      row[c.name] = typeof v === 'string' ? v : Number.isFinite(v) ? (c.digits === 0 || Number.isInteger(v) ? v : Number(formatSignificant(v, c.digits ?? 10))) : null;
     }
     out[i] = row;
   }

@@ -36,6 +36,26 @@ export class HitTableBuilder {
     return this.cols[name];
   }
 
+  /** The current storage of each field's column (null for ignored fields); stale after a grow. */
+  fieldArrays(fields: readonly HeaderField[]): (Float64Array | null)[] {
+    return fields.map((f) => (f.column ? this.cols[f.column] : null));
+  }
+
+  /**
+   * For hot loops that write columns directly: makes room for row `row`, records its line, and
+   * returns true when the columns moved (call fieldArrays again).
+   */
+  reserve(row: number, line: number): boolean {
+    let grown = false;
+    if (row === this.capacity) {
+      this.grow();
+      grown = true;
+    }
+    this.lines[row] = line;
+    this.size = row + 1;
+    return grown;
+  }
+
   private grow(): void {
     this.capacity = Math.ceil(this.capacity * 1.6);
     for (const c of this.present) {

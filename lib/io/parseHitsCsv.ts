@@ -1,5 +1,5 @@
 import { msg } from '../errors';
-import { parseHeader, unitsOf, type HitColumn } from './hitColumns';
+import { parseHeader, unitsOf } from './hitColumns';
 import { HitTableBuilder } from './hitTableBuilder';
 import type { HitTable } from './hitTable';
 import { scanNumber, scanEnd } from './scanNumber';
@@ -51,9 +51,10 @@ export function parseHitsCsv(bytes: Uint8Array, file: string, options: ReadHitsO
 
   const firstRowBytes = Math.max(8, headerText.length);
   const builder = new HitTableBuilder(fields, Math.ceil((n - i) / firstRowBytes) + 16);
-  // Field index → column (or -1 to skip), scale to metres.
-  const target: (HitColumn | undefined)[] = fields.map((f) => f.column);
+  // Field index → storage of its column (null: ignored field), scale to metres.
+  let target = builder.fieldArrays(fields);
   const scale = Float64Array.from(fields.map((f) => f.scale));
+  let row = 0;
 
   while (i < n) {
     // Blank line (or trailing CR): not a row.
@@ -68,22 +69,22 @@ export function parseHitsCsv(bytes: Uint8Array, file: string, options: ReadHitsO
       line++;
       continue;
     }
-    const row = builder.addRow(line);
+    if (builder.reserve(row, line)) target = builder.fieldArrays(fields);
     for (let f = 0; f < nf; f++) {
       const column = target[f];
       if (bytes[i] === QUOTE) {
         const end = skipQuoted(bytes, i, n);
-        if (column !== undefined) {
+        if (column !== null) {
           const text = new TextDecoder().decode(bytes.subarray(i + 1, end - 1)).replace(/""/g, '"');
           const v = text.trim() === '' ? NaN : Number(text);
           if (!Number.isFinite(v)) throw rowError(bytes, file, line, fields[f].raw, i, end, headerText);
-          builder.column(column)[row] = v * scale[f];
+          column[row] = v * scale[f];
         }
         i = end;
-      } else if (column !== undefined) {
+      } else if (column !== null) {
         const v = scanNumber(bytes, i, n, delimiter);
         if (v !== v) throw rowError(bytes, file, line, fields[f].raw, i, scanEnd, headerText);
-        builder.column(column)[row] = v * scale[f];
+        column[row] = v * scale[f];
         i = scanEnd;
       } else {
         while (i < n && (c = bytes[i]) !== delimiter && c !== LF && c !== CR) i++;
@@ -100,6 +101,7 @@ export function parseHitsCsv(bytes: Uint8Array, file: string, options: ReadHitsO
       }
     }
     // End of row.
+    row++;
     if (i < n && bytes[i] === CR) i++;
     if (i < n && bytes[i] === LF) i++;
     line++;

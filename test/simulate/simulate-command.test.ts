@@ -36,8 +36,8 @@ describe('sagitta simulate <scenario> --seed --out --truth', () => {
     expect(() => runSimulate(pkg, { seed: '1' })).toThrow(/not a Sagitta scenario/);
   });
 
-  it('is registered on the sagitta command and its help carries the safety caution', () => {
-    const cmd = buildProgram().commands.find((c) => c.name() === 'simulate');
+  it('is registered on the sagitta command and its help carries the safety caution', async () => {
+    const cmd = (await buildProgram()).commands.find((c) => c.name() === 'simulate');
     expect(cmd).toBeDefined();
     let help = '';
     cmd!.configureOutput({ writeOut: (s) => { help += s; } });

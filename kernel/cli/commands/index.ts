@@ -1,20 +1,25 @@
 import type { Command } from 'commander';
-import { registerFit } from './fit';
-import { registerKernel } from './kernel';
-import { registerRun } from './run';
-import { registerRange } from './range';
-import { registerSimulate } from './simulate';
+
+type Register = (program: Command) => void;
 
 /**
- * Every sub-command, one file each. Add a command by writing `commands/<name>.ts` exporting
- * `register<Name>(program)` and listing it here. Commands that need heavy modules (tslab,
- * zeromq, playwright, danfojs) import them inside their action, so that `sagitta fit` does not
- * pay their start-up time.
+ * Every sub-command, one file each, loaded on demand: `sagitta fit …` imports only the fit
+ * command's modules, so it does not pay the start-up time of the kernel (tslab, zeromq), the
+ * report (playwright) or the simulator (schemas). Bare `sagitta` / `sagitta --help` loads all.
+ * Add a command by writing `commands/<name>.ts` exporting `register<Name>(program)` and listing
+ * it here.
  */
-export function registerCommands(program: Command): void {
-  registerFit(program);
-  registerKernel(program);
-  registerRun(program);
-  registerRange(program);
-  registerSimulate(program);
+const COMMANDS: Readonly<Record<string, () => Promise<Register>>> = {
+  fit: async () => (await import('./fit')).registerFit,
+  range: async () => (await import('./range')).registerRange,
+  simulate: async () => (await import('./simulate')).registerSimulate,
+  run: async () => (await import('./run')).registerRun,
+  kernel: async () => (await import('./kernel')).registerKernel,
+};
+
+/** Registers the command named in argv (node, script, name, …), or all of them. */
+export async function registerCommands(program: Command, argv: readonly string[] = []): Promise<void> {
+  const name = argv[2];
+  const wanted = name !== undefined && name in COMMANDS ? [name] : Object.keys(COMMANDS);
+  for (const n of wanted) (await COMMANDS[n]())(program);
 }
