@@ -11,3 +11,4 @@ export * from './track/index';
 export * from './plot/index';
 export * from './matter/index';
 export * from './simulate/index';
+export * from './fitlab/index';
