@@ -149,7 +149,8 @@ export function storeCircle(
   const c = 6 * k;
   if (!covariance) {
     out.chi2[k] = NaN;
-    out.cov.fill(NaN, c, c + 6);
+    const cov = out.cov;
+    cov[c] = NaN; cov[c + 1] = NaN; cov[c + 2] = NaN; cov[c + 3] = NaN; cov[c + 4] = NaN; cov[c + 5] = NaN;
     return;
   }
   out.chi2[k] = normalEquations(x, y, sx, sy, from, to, xr, yr, P, A, G);

@@ -43,7 +43,7 @@ export interface TrackParams {
  */
 export function paramsFromCentre(xc: number, yc: number, radius: number, sense: number, xr: number, yr: number, out: TrackParams): void {
   const ux0 = xr - xc, uy0 = yr - yc;
-  const dist = Math.hypot(ux0, uy0);
+  const dist = Math.sqrt(ux0 * ux0 + uy0 * uy0);
   // Reference at the centre: any direction is as good as another.
   const ux = dist > 0 ? ux0 / dist : 1, uy = dist > 0 ? uy0 / dist : 0;
   // Travel direction t = ẑ × u for counter-clockwise motion, −ẑ × u for clockwise.

@@ -64,15 +64,25 @@ export function fitCircles(hits: PlaneHits, offsets: Int32Array, options: Circle
   return out;
 }
 
+/**
+ * Cheap screen before a fit: enough hits, finite coordinates, positive finite errors.
+ * (Hits all on one point are caught by the fits themselves, which find no circle.)
+ */
 function checkTrack(x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined, from: number, to: number): number {
   if (to - from < 3) return STATUS_CODE['too-few-hits'];
-  let spread = 0;
-  for (let i = from; i < to; i++) {
-    if (!Number.isFinite(x[i]) || !Number.isFinite(y[i])) return STATUS_CODE['bad-input'];
-    if (sx !== undefined && !(sx[i] > 0 && sy![i] > 0 && Number.isFinite(sx[i]) && Number.isFinite(sy![i]))) return STATUS_CODE['bad-input'];
-    spread = Math.max(spread, Math.abs(x[i] - x[from]), Math.abs(y[i] - y[from]));
+  // v·0 is 0 for finite v and NaN for ±Infinity or NaN, so one sum screens them all.
+  let acc = 0;
+  for (let i = from; i < to; i++) acc += x[i] * 0 + y[i] * 0;
+  if (acc !== 0) return STATUS_CODE['bad-input'];
+  if (sx !== undefined) {
+    let bad = false;
+    for (let i = from; i < to; i++) {
+      const ex = sx[i], ey = sy![i];
+      bad = bad || !(ex > 0 && ey > 0 && ex < Infinity && ey < Infinity);
+    }
+    if (bad) return STATUS_CODE['bad-input'];
   }
-  return spread > 0 ? STATUS_CODE.ok : STATUS_CODE.degenerate;
+  return STATUS_CODE.ok;
 }
 
 function markFailed(out: CircleFitColumns, k: number, status: number, nhits: number): void {

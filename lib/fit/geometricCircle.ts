@@ -41,6 +41,16 @@ export function geometricCircleInto(
 ): void {
   const xr = x[from], yr = y[from];
   const scale = extent(x, y, from, to, xr, yr);
+  if (!(scale > 0)) {
+    // Every hit on one point: no circle to fit.
+    out.status[k] = STATUS_CODE.degenerate;
+    out.kappa[k] = out.phi0[k] = out.d0[k] = out.chi2[k] = NaN;
+    out.xRef[k] = xr;
+    out.yRef[k] = yr;
+    out.ndf[k] = to - from - 3;
+    out.cov.fill(NaN, 6 * k, 6 * k + 6);
+    return;
+  }
   if (taubinCircle(x, y, sx, sy, from, to, START) && START.radius < 1e6 * scale) {
     paramsFromCentre(START.xc, START.yc, START.radius, turningSense(x, y, from, to, START.xc, START.yc), xr, yr, P);
   } else {
