@@ -1,6 +1,8 @@
 import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
+  // This file lives in test/ to keep the top level as the design card lists it; paths are from the root.
+  root: new URL('..', import.meta.url).pathname,
   test: {
     include: ['test/**/*.test.ts'],
     exclude: ['test/bench/**', 'node_modules/**'],
