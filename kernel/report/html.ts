@@ -52,14 +52,23 @@ function cspHash(js: string): string {
 export function renderReport(input: ReportInput): string {
   const { notebook, run } = input;
   const figures = new FigureStore();
-  const title = input.title ?? firstHeading(notebook.cells) ?? basename(run.source.path).replace(/\.ipynb$/i, '');
+  const metaTitle = typeof notebook.metadata.title === 'string' && notebook.metadata.title.trim() ? notebook.metadata.title.trim() : undefined;
+  const title = input.title ?? metaTitle ?? firstHeading(notebook.cells) ?? basename(run.source.path).replace(/\.ipynb$/i, '');
+  // The masthead shows the title; the notebook's own first heading saying the same is not repeated.
+  let headingShown = false;
   const codeOpen = input.codeOpen ?? true;
   const entries: string[] = [];
   let codeNo = 0;
   notebook.cells.forEach((cell, i) => {
     const meta = (cell.metadata.sagitta ?? {}) as SagittaCellMeta;
     if (cell.cell_type === 'markdown') {
-      entries.push(`<section class="sg-entry sg-prose">${renderMarkdown(joinSource(cell.source), cell.attachments)}</section>`);
+      let text = joinSource(cell.source);
+      if (!headingShown) {
+        const m = /^\s*#\s+(.+?)\s*#*\s*(\n|$)/.exec(text);
+        if (m && m[1].replace(/[*_`]/g, '') === title) text = text.slice(m[0].length);
+        headingShown = true;
+      }
+      if (text.trim()) entries.push(`<section class="sg-entry sg-prose">${renderMarkdown(text, cell.attachments)}</section>`);
     } else if (cell.cell_type === 'raw') {
       const text = joinSource(cell.source);
       if (text.trim()) entries.push(`<section class="sg-entry"><pre class="sg-out">${escapeHtml(text)}</pre></section>`);

@@ -63,7 +63,7 @@ describe('runner helpers', () => {
   });
 });
 
-describe('sagitta run (child process per run)', () => {
+describe('sagitta run (child process per run)', { timeout: 180_000 }, () => {
   it('a throwing cell: error output, later cells not run, exit 1, report and executed notebook written, source unchanged', async () => {
     const { dir, file, bytes } = notebookFile([
       code('const fieldT = 1.5;\nconst label = "default";', ['sagitta-knobs']),
@@ -93,7 +93,7 @@ describe('sagitta run (child process per run)', () => {
     const page = readFileSync(html, 'utf8');
     expect(page).toContain('set &lt;here&gt;');
     expect(page).toContain('field out of range');
-  });
+  }, 180_000);
 
   it('--keep-going runs the cells after a failure and still exits 1', async () => {
     const { dir, file } = notebookFile([code('throw new Error("first")'), code('console.log("second ran")')]);
@@ -102,7 +102,7 @@ describe('sagitta run (child process per run)', () => {
     expect(r.reason).toBe('cell 2 failed: Error: first (all cells ran: --keep-going)');
     const nb = readJson(join(dir, 'o.ipynb'));
     expect(outcomes(nb)).toEqual(['failed', 'done']);
-  });
+  }, 180_000);
 
   it('an endless cell under --cell-timeout 2s: CellTimeout output, rest not run, exit 1 with one line, source unchanged', () => {
     const { dir, file, bytes } = notebookFile([code('let n = 0;'), code('while (true) { n++; }'), code('n')]);
@@ -118,7 +118,7 @@ describe('sagitta run (child process per run)', () => {
     expect(loop.outputs[0].ename).toBe('CellTimeout');
     expect(loop.metadata.sagitta.wallMs).toBeGreaterThanOrEqual(2000);
     expect(existsSync(join(dir, 'r.html'))).toBe(true);
-  });
+  }, 180_000);
 
   it('process.exit(1) in a cell: ProcessExit output, rest not run, exit 1', () => {
     const { dir, file, bytes } = notebookFile([code('console.log("before")'), code('process.exit(1)'), code('console.log("after")')]);
@@ -130,7 +130,7 @@ describe('sagitta run (child process per run)', () => {
     expect(validate(nb).errors).toEqual([]);
     expect(outcomes(nb)).toEqual(['done', 'failed', 'not-run']);
     expect((nb.cells[2] as { outputs: Array<{ ename?: string }> }).outputs.at(-1)?.ename).toBe('ProcessExit');
-  });
+  }, 180_000);
 
   it('a truncated .ipynb: exit 1 naming the file and the JSON problem; nothing written, source unchanged', () => {
     const dir = mkdtempSync(join(tmpdir(), 'sagitta-run-'));
@@ -146,5 +146,5 @@ describe('sagitta run (child process per run)', () => {
     expect(readFileSync(file)).toEqual(bytes);
     expect(existsSync(join(dir, 'r.html'))).toBe(false);
     expect(existsSync(join(dir, 'cut.executed.ipynb'))).toBe(false);
-  });
+  }, 120_000);
 });

@@ -14,6 +14,7 @@ const COMMANDS: Readonly<Record<string, () => Promise<Register>>> = {
   range: async () => (await import('./range')).registerRange,
   simulate: async () => (await import('./simulate')).registerSimulate,
   run: async () => (await import('./run')).registerRun,
+  demo: async () => (await import('./demo')).registerDemo,
   kernel: async () => (await import('./kernel')).registerKernel,
 };
 

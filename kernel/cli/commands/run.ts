@@ -4,7 +4,8 @@ import { basename, resolve } from 'node:path';
 export interface RunCommandOptions {
   html?: string;
   pdf?: string;
-  executed?: string;
+  /** Path of the executed notebook; false: do not write one. */
+  executed?: string | false;
   writeBack?: boolean;
   cellTimeout: string;
   keepGoing?: boolean;
@@ -27,6 +28,7 @@ export function registerRun(program: Command): void {
     .option('--html <file>', 'write the report as one self-contained offline HTML file')
     .option('--pdf <file>', 'also print the report to PDF with headless Chromium')
     .option('--executed <file>', 'where to write the executed notebook (default: <name>.executed.ipynb in the current folder)')
+    .option('--no-executed', 'do not write the executed notebook')
     .option('--write-back', 'write the executed notebook over the source notebook (the source is otherwise never changed)')
     .option('--cell-timeout <duration>', 'longest one cell may run, e.g. 120s, 2min, 500ms; 0 for no limit', '120s')
     .option('--keep-going', 'run the remaining cells after a cell raises an error')
@@ -62,7 +64,7 @@ export interface RunCommandResult {
   readonly exitCode: 0 | 1;
   readonly reason?: string;
   readonly summary: string;
-  readonly executedPath: string;
+  readonly executedPath?: string;
   readonly htmlPath?: string;
   readonly pdfPath?: string;
 }
@@ -74,15 +76,18 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
   const { renderReport, printReportPdf } = await import('../../report/index');
   const cellTimeoutMs = parseDuration(options.cellTimeout);
   const parameters = parseSetArguments(options.set ?? []);
-  const executedPath = options.writeBack ? notebook : (options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`);
-  if (!options.writeBack && resolve(executedPath) === resolve(notebook)) {
+  const executedPath = options.writeBack ? notebook : options.executed === false ? undefined : (options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`);
+  if (!options.writeBack && executedPath !== undefined && resolve(executedPath) === resolve(notebook)) {
     const { msg } = await import('../../../lib/errors');
     throw msg.badArgument('--executed', executedPath, 'a path other than the source notebook (use --write-back to replace the source on purpose)');
   }
 
   const result = await runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, parameters });
-  writeNotebook(executedPath, result.notebook);
-  const written = [`executed notebook: ${executedPath}`];
+  const written: string[] = [];
+  if (executedPath !== undefined) {
+    writeNotebook(executedPath, result.notebook);
+    written.push(`executed notebook: ${executedPath}`);
+  }
   let htmlPath: string | undefined;
   let pdfPath: string | undefined;
   if (options.html !== undefined || options.pdf !== undefined) {

@@ -1,0 +1,60 @@
+import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { runCommand } from '../../kernel/cli/commands/run';
+import type { Notebook } from '../../kernel/notebook/types';
+import { chromiumPath, openChromium } from '../../kernel/report/index';
+import { nbformatValidator } from './nbSchema';
+
+const NOTEBOOKS = resolve(import.meta.dirname, '..', '..', 'notebooks');
+const examples = readdirSync(NOTEBOOKS).filter((f) => f.endsWith('.ipynb')).sort();
+const validate = nbformatValidator();
+
+// STYLE.md §11: every example notebook is executed by the test suite and must finish without error.
+describe.each(examples)('example notebook %s', (name) => {
+  it('runs headlessly without error; executed notebook is valid nbformat 4.5; the report draws every figure with no console error', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sagitta-example-'));
+    const source = join(NOTEBOOKS, name);
+    const before = readFileSync(source);
+    const executed = join(dir, 'executed.ipynb');
+    const html = join(dir, 'report.html');
+    const r = await runCommand(source, { cellTimeout: '300s', set: [], executed, html });
+    expect(r.reason).toBeUndefined();
+    expect(r.exitCode).toBe(0);
+    expect(readFileSync(source)).toEqual(before);
+    const nb = JSON.parse(readFileSync(executed, 'utf8')) as Notebook;
+    expect(validate(nb).errors).toEqual([]);
+    const errors = nb.cells.flatMap((c) => (c.cell_type === 'code' ? c.outputs.filter((o) => o.output_type === 'error') : []));
+    expect(errors).toEqual([]);
+    const page = readFileSync(html, 'utf8');
+    // Provenance: the data files the notebook read are listed with their SHA-256.
+    expect(page).toMatch(/brindlemoor-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td class="sg-hash">[0-9a-f]{64}/);
+    if (!existsSync(chromiumPath())) return;
+    const browser = await openChromium();
+    try {
+      const tab = await browser.context.newPage();
+      const problems: string[] = [];
+      tab.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') problems.push(m.text()); });
+      tab.on('pageerror', (e) => problems.push(e.message));
+      await tab.goto(pathToFileURL(html).href);
+      await tab.waitForSelector('body[data-figures="drawn"]', { state: 'attached', timeout: 60_000 });
+      const counts = await tab.evaluate(() => ({
+        figures: document.querySelectorAll('[data-sg-figure]').length,
+        drawn: Array.from(document.querySelectorAll('[data-sg-figure]')).filter((n) => n.querySelector('svg.main-svg .cartesianlayer .trace') && n.getBoundingClientRect().height > 100).length,
+        images: document.querySelectorAll('img.sg-image').length,
+        loaded: Array.from(document.querySelectorAll<HTMLImageElement>('img.sg-image')).filter((i) => i.complete && i.naturalWidth > 0).length,
+      }));
+      expect(problems).toEqual([]);
+      expect(counts.figures).toBeGreaterThan(0);
+      expect(counts.drawn).toBe(counts.figures);
+      expect(counts.loaded).toBe(counts.images);
+      const shot = join(dir, 'report.png');
+      await tab.screenshot({ path: shot, fullPage: true });
+      process.stdout.write(`${name}: report ${html}, screenshot ${shot}\n`);
+    } finally {
+      await browser.close();
+    }
+  }, 300_000);
+});
