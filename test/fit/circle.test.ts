@@ -196,3 +196,19 @@ describe('fitCircles never throws on bad numbers: failures are statuses', () => 
     expect(Math.sqrt(est.cov[0] / known.cov[0])).toBeLessThan(1.4);
   });
 });
+
+describe('fitCircle on a tightening spiral (a track losing momentum is not a circle)', () => {
+  it('geometric: still converges to the best circle, with a χ² that says the model does not fit', () => {
+    const n = 120, x = new Float64Array(n), y = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const a = (4 * Math.PI * i) / (n - 1);
+      const r = 0.05 * (1 - 0.3 * (i / (n - 1)));
+      x[i] = r * Math.cos(a);
+      y[i] = r * Math.sin(a);
+    }
+    const f = fitCircle(x, y, { method: 'geometric', sigma: 3.5e-4 });
+    expect(f.status).toBe('ok');
+    expect(f.kappa).toBeGreaterThan(0);
+    expect(f.chi2 / f.ndf).toBeGreaterThan(100);
+  });
+});
