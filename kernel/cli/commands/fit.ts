@@ -10,6 +10,9 @@ import { fieldTesla, lengthMetres, metresPerUnit } from '../../../lib/units';
 import { msg } from '../../../lib/errors';
 import { consumeWarnings } from '../../../lib/warnings';
 import type { ColumnTable } from '../../../lib/io/columnTable';
+import { material as lookupMaterial } from '../../../lib/matter/materials';
+import { particle as lookupParticle } from '../../../lib/particles';
+import { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns } from '../../../lib/track/resolutionBudget';
 
 export interface FitCommandOptions {
   field: string;
@@ -18,6 +21,10 @@ export interface FitCommandOptions {
   lengthUnit: string;
   hitError?: string;
   chargeNumber: string;
+  /** Chamber medium for the momentum error budget (adds sigma_p_meas, sigma_p_ms, sigma_p_total). */
+  material?: string;
+  /** Mass hypothesis for β in the multiple-scattering term (with --material). */
+  particle?: string;
 }
 
 /**
@@ -36,6 +43,8 @@ export function registerFit(program: Command): void {
     .option('--length-unit <unit>', 'unit of length columns whose header has none, e.g. x[cm] overrides it', READ_HITS_DEFAULTS.lengthUnit)
     .option('--hit-error <quantity>', 'position error for hits without a sigma column, e.g. "200 um" (default: estimated from each track\'s residuals)')
     .option('--charge-number <z>', 'charge magnitude |z| of the particles (2 for alpha particles)', '1')
+    .option('--material <name>', 'medium the tracks cross, e.g. argon-gas, liquid-hydrogen, liquid-propane: adds the momentum error budget columns')
+    .option('--particle <name>', 'mass hypothesis for β in the multiple-scattering term (with --material)', 'pi+')
     .addHelpText('after', `
 Hits of one track must be in the order the particle travelled: the turning sense, and so the
 sign of the charge, is read from that order (B along +z: positive particles turn clockwise).
@@ -44,8 +53,13 @@ Output columns: event, track, nhits, charge, R_m, pT_GeV, p_GeV, tanLambda, phi0
 sigma_pT_GeV, sigma_p_GeV, kappa_signif, chi2, ndf, iterations, status. p_GeV, tanLambda and z0_m
 need a z column. Status is ok, too-few-hits, degenerate, not-converged or bad-input.
 
+With --material: sigma_p_meas (from the hit errors, exact least squares for each track's hits),
+sigma_p_ms (multiple scattering in the medium over the track length, Gluckstern/PDG form, β from
+--particle) and sigma_p_total (quadrature sum), all in GeV/c.
+
 Example:
-  sagitta fit notebooks/data/hits.csv --field "15 kG" --out tracks.csv`)
+  sagitta fit notebooks/data/hits.csv --field "15 kG" --out tracks.csv
+  sagitta fit notebooks/data/hits.csv --field "1.5 T" --material argon-gas --out tracks.csv`)
     .action((hitsPath: string, options: FitCommandOptions) => {
       const summary = runFit(hitsPath, options);
       process.stderr.write(summary + '\n');
@@ -67,7 +81,10 @@ export function runFit(hitsPath: string, options: FitCommandOptions): string {
   const tRead = performance.now();
   const tracks = measureTracks(hits, { fieldT, method: options.fitter, chargeMagnitude, hitErrorM });
   const tFit = performance.now();
-  const table = trackTableColumns(tracks);
+  const medium = options.material !== undefined ? lookupMaterial(options.material) : undefined;
+  const budget = medium ? resolutionBudget(hits, tracks, { material: medium, particle: lookupParticle(options.particle ?? 'pi+'), hitErrorM }) : undefined;
+  const baseTable = trackTableColumns(tracks);
+  const table: ColumnTable = budget ? { rows: baseTable.rows, columns: [...baseTable.columns, ...resolutionBudgetColumns(budget)] } : baseTable;
   if (options.out === undefined) process.stdout.write(formatCsv(table));
   else if (/\.json$/i.test(options.out)) writeFileAtomic(options.out, formatJson(table, tracks, hitsPath, hits.source.units, options));
   else writeFileAtomic(options.out, formatCsv(table));
@@ -84,6 +101,7 @@ export function runFit(hitsPath: string, options: FitCommandOptions): string {
     `  time ${((tEnd - t0) / 1000).toFixed(2)} s (read ${((tRead - t0) / 1000).toFixed(2)}, fit ${((tFit - tRead) / 1000).toFixed(2)}, write ${((tEnd - tFit) / 1000).toFixed(2)})` +
       (options.out ? `; results in ${options.out}` : ''),
   ];
+  if (budget && medium) lines.push(budgetSummary(budget, tracks, medium.name, options.particle ?? 'pi+'));
   for (const w of consumeWarnings()) lines.push(`  warning: ${w.message}`);
   if (hits.source.ignoredColumns.length) lines.push(`  ignored columns: ${hits.source.ignoredColumns.join(', ')}`);
   return lines.join('\n');
@@ -98,6 +116,21 @@ function formatJson(table: ColumnTable, tracks: TrackTable, hitsPath: string, un
     hasZ: tracks.hasZ,
     hitError: options.hitError ?? null,
     statusCounts: tracks.statusCounts,
+    material: options.material ?? null,
   };
   return JSON.stringify({ meta, tracks: rowObjects(table) }, null, 0) + '\n';
+}
+
+/** "error budget in argon-gas (β from pi+): median σp/p measurement 1.2 %, multiple scattering 0.8 %". */
+function budgetSummary(budget: ResolutionBudgetColumns, tracks: TrackTable, medium: string, species: string): string {
+  const median = (sigma: Float64Array): string => {
+    const r: number[] = [];
+    for (let k = 0; k < tracks.count; k++) {
+      const v = sigma[k] / (tracks.hasZ ? tracks.momentum.pGeV[k] : tracks.momentum.ptGeV[k]);
+      if (Number.isFinite(v)) r.push(v);
+    }
+    r.sort((a, b) => a - b);
+    return r.length ? `${(100 * r[r.length >> 1]).toPrecision(3)} %` : 'n/a';
+  };
+  return `  error budget in ${medium} (β from ${species}): median σp/p measurement ${median(budget.sigmaPMeasGeV)}, multiple scattering ${median(budget.sigmaPMsGeV)}`;
 }

@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runFit, type FitCommandOptions } from '../../kernel/cli/commands/fit';
+import { momentumResolution } from '../../lib/track/resolution';
+import { material } from '../../lib/matter/materials';
+import { PION_PLUS } from '../../lib/particles';
+
+const dir = mkdtempSync(join(tmpdir(), 'sagitta-fit-material-'));
+
+/** One positive track: R = 2 m, 25 hits over 0.5 rad of arc, 150 µm errors, in metres. */
+function writeHits(): string {
+  const lines = ['event,track,x[m],y[m],sigma[um]'];
+  for (let i = 0; i < 25; i++) {
+    const a = Math.PI / 2 - (0.5 * i) / 24;
+    lines.push(`1,1,${2 * Math.cos(a)},${-2 + 2 * Math.sin(a)},150`);
+  }
+  const p = join(dir, 'hits.csv');
+  writeFileSync(p, lines.join('\n') + '\n');
+  return p;
+}
+
+const base: FitCommandOptions = { field: '1.5 T', fitter: 'geometric', lengthUnit: 'm', chargeNumber: '1' };
+
+describe('sagitta fit --material (issue 3: momentum error budget)', () => {
+  const hits = writeHits();
+  it('adds sigma_p_meas, sigma_p_ms and sigma_p_total; the MS term matches momentumResolution for argon gas', () => {
+    const out = join(dir, 'tracks.json');
+    const summary = runFit(hits, { ...base, material: 'argon-gas', particle: 'pi+', out });
+    const row = JSON.parse(readFileSync(out, 'utf8')).tracks[0];
+    expect(row).toHaveProperty('sigma_p_meas');
+    expect(row).toHaveProperty('sigma_p_ms');
+    const p = row.pT_GeV as number;
+    const chord = 2 * 2 * Math.sin(0.25);
+    const r = momentumResolution({ momentumGeV: p, beta: p / Math.hypot(p, PION_PLUS.massMeV / 1000), fieldT: 1.5, lengthM: chord, sigmaM: 1.5e-4, nPoints: 25, material: material('argon-gas') });
+    expect(Math.abs(row.sigma_p_ms / (p * r.multipleScattering) - 1)).toBeLessThan(1e-3); // 4 significant digits in the file
+    expect(Math.abs(row.sigma_p_total / Math.hypot(row.sigma_p_meas, row.sigma_p_ms) - 1)).toBeLessThan(1e-3);
+    // The measurement term is the exact least-squares error for these hits: close to the fit's own σ(pT).
+    expect(Math.abs(row.sigma_p_meas / row.sigma_pT_GeV - 1)).toBeLessThan(0.05);
+    expect(summary).toMatch(/error budget in argon-gas \(β from pi\+\): median σp\/p measurement [\d.]+ %, multiple scattering [\d.]+ %/);
+  });
+  it('without --material the columns are absent', () => {
+    const out = join(dir, 'plain.csv');
+    runFit(hits, { ...base, out });
+    expect(readFileSync(out, 'utf8').split('\n')[0]).not.toMatch(/sigma_p_meas/);
+  });
+  it('an unknown material is a located, listed error', () => {
+    expect(() => runFit(hits, { ...base, material: 'cheese', out: join(dir, 'x.csv') })).toThrow(/unknown material "cheese"/);
+  });
+});
