@@ -1,0 +1,38 @@
+import { describe, expect, it } from 'vitest';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+/** The house rules of DEVELOPERS.md, checked on the source text. */
+const root = fileURLToPath(new URL('..', import.meta.url));
+
+function tsFiles(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const p = join(dir, name);
+    return statSync(p).isDirectory() ? tsFiles(p) : name.endsWith('.ts') ? [p] : [];
+  });
+}
+
+const libFiles = tsFiles(join(root, 'lib')).map((p) => ({ path: relative(root, p), text: readFileSync(p, 'utf8') }));
+
+describe('architecture', () => {
+  it('lib/ never imports kernel/', () => {
+    const offenders = libFiles.filter((f) => /from\s+['"][./]*kernel\//.test(f.text) || /import\(['"][./]*kernel\//.test(f.text));
+    expect(offenders.map((f) => f.path)).toEqual([]);
+  });
+  it('lib/ uses no global random numbers (seeded streams only)', () => {
+    expect(libFiles.filter((f) => /Math\.random\s*\(/.test(f.text)).map((f) => f.path)).toEqual([]);
+  });
+  it('lib/ touches no DOM and no network', () => {
+    const pattern = /\b(document|window)\.[a-zA-Z]|\bfetch\s*\(|from\s+['"]node:(http|https|net|dgram)['"]/;
+    expect(libFiles.filter((f) => pattern.test(f.text.replace(/\/\*[\s\S]*?\*\/|\/\/.*$/gm, ''))).map((f) => f.path)).toEqual([]);
+  });
+  it('lib/index.ts only re-exports', () => {
+    const lines = readFileSync(join(root, 'lib/index.ts'), 'utf8').split('\n').filter((l) => l.trim() && !l.trim().startsWith('//'));
+    expect(lines.filter((l) => !/^export (\*|\{[^}]*\}|type \{[^}]*\}) from '/.test(l.trim()))).toEqual([]);
+  });
+  it('nothing in the project reads the shared planning folder at run time', () => {
+    const all = [...libFiles, ...tsFiles(join(root, 'kernel')).map((p) => ({ path: relative(root, p), text: readFileSync(p, 'utf8') }))];
+    expect(all.filter((f) => f.text.includes('../shared')).map((f) => f.path)).toEqual([]);
+  });
+});
