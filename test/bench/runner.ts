@@ -1,0 +1,78 @@
+/**
+ * Runner benchmarks (run by `npm run bench`, or directly: `node --import tsx test/bench/runner.ts`).
+ * Targets from the notebook issue: runner overhead per cell under 50 ms beyond the cell's own
+ * work; a 10-cell notebook with one plot run and reported in under 5 s.
+ *
+ * Overhead per cell = (median wall time of a cell as the runner records it) − (median time of the
+ * same cell executed by an in-process session, which is the cell's own work: compile + run).
+ * Inputs (notebook files) are written before the timed bodies. Nothing here asserts a time.
+ */
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { runCommand } from '../../kernel/cli/commands/run';
+import { runNotebook } from '../../kernel/runner/runNotebook';
+import { createSession } from '../../kernel/session/index';
+
+const CELLS = 30;
+const dir = mkdtempSync(join(tmpdir(), 'sagitta-bench-runner-'));
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[s.length >> 1];
+}
+
+function notebook(sources: string[]): string {
+  return JSON.stringify({ nbformat: 4, nbformat_minor: 5, metadata: {}, cells: sources.map((source, i) => ({ id: `c${i}`, cell_type: 'code', metadata: {}, execution_count: null, outputs: [], source })) });
+}
+
+const small = Array.from({ length: CELLS }, (_, i) => (i === 0 ? 'let acc = 0;' : `acc += ${i};\nacc`));
+const smallFile = join(dir, 'small.ipynb');
+writeFileSync(smallFile, notebook(small));
+
+const ten = [
+  "import { histogramFigure } from 'sagitta';",
+  'const n = 20000;',
+  'const xs = Array.from({ length: n }, (_, i) => Math.sin(i) * Math.sqrt(i));',
+  'let sum = 0; for (const x of xs) sum += x;',
+  'console.log(`mean ${(sum / n).toFixed(4)}`);',
+  'const sq = xs.map((x) => x * x);',
+  'const rms = Math.sqrt(sq.reduce((a, b) => a + b, 0) / n);',
+  'rms',
+  "histogramFigure(xs, { title: 'Bench values', xTitle: 'x', bins: 40 })",
+  "'done'",
+];
+const tenFile = join(dir, 'ten.ipynb');
+writeFileSync(tenFile, notebook(ten));
+
+// 1. The cell's own work: the same cells in an in-process session.
+const session = createSession({ workDir: dir });
+const hooks = { stream() {}, display() {} };
+await session.execute('', hooks);
+const own: number[] = [];
+for (const code of small) {
+  const t = performance.now();
+  await session.execute(code, hooks);
+  own.push(performance.now() - t);
+}
+session.close();
+
+// 2. The same cells through the runner (child process, IPC, bookkeeping).
+const run = await runNotebook(smallFile, { cellTimeoutMs: 60_000 });
+const viaRunner = run.notebook.cells.map((c) => (c.metadata.sagitta as { wallMs: number }).wallMs);
+const ownMs = median(own.slice(1)), runnerMs = median(viaRunner.slice(1));
+process.stdout.write(`runner: ${CELLS} small cells — session alone median ${ownMs.toFixed(1)} ms/cell, via runner ${runnerMs.toFixed(1)} ms/cell → overhead ${(runnerMs - ownMs).toFixed(1)} ms/cell (target < 50 ms); child start-up ${run.startMs.toFixed(0)} ms\n`);
+
+// 3. A 10-cell notebook with one plot: run and report, in-process API and through the CLI.
+const t0 = performance.now();
+const r = await runCommand(tenFile, { cellTimeout: '60s', set: [], executed: join(dir, 'ten.out.ipynb'), html: join(dir, 'ten.html') });
+const apiMs = performance.now() - t0;
+const bin = fileURLToPath(new URL('../../kernel/bin/sagitta.js', import.meta.url));
+const t1 = performance.now();
+const cli = spawnSync(process.execPath, [bin, 'run', tenFile, '--executed', join(dir, 'ten.cli.ipynb'), '--html', join(dir, 'ten.cli.html')], { encoding: 'utf8' });
+const cliMs = performance.now() - t1;
+process.stdout.write(`runner: 10-cell notebook with one plot, run + HTML report: ${(apiMs / 1000).toFixed(2)} s via the API (exit ${r.exitCode}), ${(cliMs / 1000).toFixed(2)} s via \`sagitta run\` (exit ${cli.status}) (target < 5 s)\n`);
+process.stdout.write(`runner: ${(CELLS / (run.run.wallMs / 1000)).toFixed(1)} cells/s over a whole ${CELLS}-cell run including start-up\n`);
