@@ -62,8 +62,8 @@ function bremsWeight(material: Material): number {
  * Radiative (bremsstrahlung) mass stopping power of e± [MeV cm²/g]. Approximation (stated):
  * the smaller of
  *  - the unscreened Bethe–Heitler result, S = 4 α r_e² N_A Σ wZ(Z+1)/A · E [ln(2E/m_e c²) − 1/3]
- *    (Heitler, "The Quantum Theory of Radiation", 3rd ed., §25; Z(Z+1) counts electron–electron
- *    bremsstrahlung, common practice), right for m_e c² ≲ E ≪ 137 m_e c² Z^−1/3, and
+ *    (Heitler, "The Quantum Theory of Radiation", 3rd ed., §25, form recalled (memory) and checked
+ *    against ESTAR; Z(Z+1) counts electron–electron bremsstrahlung, common practice), right for m_e c² ≲ E ≪ 137 m_e c² Z^−1/3, and
  *  - the complete-screening limit S = E / X₀ (PDG RPP, definition of X₀), right for E ≫ that.
  * E is the total energy. Accuracy against NIST ESTAR (water): ≈ 1 % at 1 MeV, up to ≈ 20 % high
  * in the screening transition (≈ 5–500 MeV); radiative loss is a small part of the total below
