@@ -41,6 +41,7 @@ class SendQueue {
 }
 
 const STREAM_FLUSH_MS = 30;
+const WARM_UP_QUIET_MS = 1000;
 
 export class KernelServer {
   private readonly info: ConnectionInfo;
@@ -67,6 +68,7 @@ export class KernelServer {
    */
   private abortUpTo = 0;
   private stopping = false;
+  private warmUpTimer: NodeJS.Timeout | undefined;
   private readonly stopped: Promise<void>;
   private resolveStopped!: () => void;
   private readonly onSigint = () => {
@@ -117,6 +119,7 @@ export class KernelServer {
     if (this.stopping) return this.stopped;
     this.stopping = true;
     process.off('SIGINT', this.onSigint);
+    if (this.warmUpTimer) clearTimeout(this.warmUpTimer);
     await Promise.all(Object.values(this.out).map((q) => q.drain()));
     for (const s of [this.shell, this.control, this.stdin, this.iopub, this.hb]) s.close();
     if (this.session) {
@@ -127,6 +130,23 @@ export class KernelServer {
       }
     }
     this.resolveStopped();
+  }
+
+  /**
+   * Starting the session (the TypeScript compiler) blocks the event loop for a second or two, so
+   * it waits until the front end has been quiet for a moment after its first requests (it may
+   * repeat kernel_info until its iopub subscription is live); a cell arriving earlier starts it.
+   */
+  private scheduleWarmUp(): void {
+    if (this.warmUpTimer) clearTimeout(this.warmUpTimer);
+    this.warmUpTimer = setTimeout(() => {
+      this.warmUpTimer = undefined;
+      if (this.stopping) return;
+      this.getSession()
+        .then((s) => s.warmUp?.())
+        .catch((err: unknown) => this.log(`session failed to start: ${String(err)}`));
+    }, WARM_UP_QUIET_MS);
+    this.warmUpTimer.unref();
   }
 
   private getSession(): Promise<Session> {
@@ -229,10 +249,7 @@ export class KernelServer {
       this.log(`${channel}: ${type} failed: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`);
     }
     await this.publish('status', { execution_state: 'idle' }, parent);
-    if (this.executionCount === 0 && !this.session && !this.stopping) {
-      // Warm up after the first idle so that starting the kernel is quick and the first cell is not.
-      setTimeout(() => void this.getSession().catch((err: unknown) => this.log(`session failed to start: ${String(err)}`)), 0);
-    }
+    if (!this.session && !this.stopping) this.scheduleWarmUp();
   }
 
   private async execute(msg: Message): Promise<void> {

@@ -41,9 +41,11 @@ function isPackageFile(fileName: string): boolean {
 /**
  * Cells are checked against the library's types, but the library's own sources are not
  * re-checked by tslab's older compiler with its older module resolution: that was done by the
- * package's own type check, and an error there would otherwise block every cell. tslab's
- * converter reads the compiler through `require`, so it gets a copy of the compiler module whose
- * `getPreEmitDiagnosticsOfFiles` leaves out files under node_modules. Must run before
+ * package's own type check, and an error there would otherwise block every cell. Nor are they
+ * "emitted" (which type-checks a file in full, for seconds, though nothing is written for a
+ * package file). tslab's converter reads the compiler through `require`, so it gets a copy of
+ * the compiler module in which `getPreEmitDiagnosticsOfFiles` and the builder's
+ * `getAllDependencies` leave out files under node_modules. Must run before
  * tslab/dist/converter is first loaded (session.ts imports this module first).
  */
 function shieldLibraryDiagnostics(): void {
@@ -60,6 +62,23 @@ function shieldLibraryDiagnostics(): void {
     enumerable: true,
     value: (program: unknown, files: ReadonlyArray<{ fileName: string }>, token?: unknown) =>
       (original as (p: unknown, f: unknown, t?: unknown) => unknown)(program, files.filter((f) => !isPackageFile(f.fileName)), token),
+  });
+  type Builder = { getAllDependencies(sourceFile: unknown): readonly string[] };
+  type WatchHost = { createProgram: (...args: unknown[]) => Builder };
+  const createWatchCompilerHost = tslabTs.createWatchCompilerHost as unknown as (...args: unknown[]) => WatchHost;
+  Object.defineProperty(shim, 'createWatchCompilerHost', {
+    enumerable: true,
+    value: (...args: unknown[]) => {
+      const host = createWatchCompilerHost(...args);
+      const createProgram = host.createProgram;
+      host.createProgram = (...programArgs: unknown[]) => {
+        const builder = createProgram(...programArgs);
+        const getAllDependencies = builder.getAllDependencies.bind(builder);
+        builder.getAllDependencies = (sourceFile) => getAllDependencies(sourceFile).filter((f) => !isPackageFile(f));
+        return builder;
+      };
+      return host;
+    },
   });
   Object.defineProperty(shim, '__esModule', { value: true });
   Object.defineProperty(shim, '__sagittaShim', { value: true });

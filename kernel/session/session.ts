@@ -152,6 +152,13 @@ export function createSession(options: SessionOptions): Session {
     if (running) executor.interrupt();
   }
 
+  async function warmUp(): Promise<void> {
+    await libraryReady;
+    if (closed || running) return;
+    const probe = 'import * as sagitta from "sagitta";\nsagitta.';
+    executor.complete(probe, probe.length);
+  }
+
   function close(): void {
     if (closed) return;
     closed = true;
@@ -159,7 +166,7 @@ export function createSession(options: SessionOptions): Session {
     releaseRequireHook();
   }
 
-  return { execute, complete, inspect, isComplete, interrupt, close };
+  return { execute, complete, inspect, isComplete, interrupt, close, warmUp };
 }
 
 /** A finished cell with syntax errors (not merely unfinished) is 'invalid'. */

@@ -47,6 +47,11 @@ export interface Session {
   /** Asks the running cell to stop (resolves a pending await with an error; see session.ts). */
   interrupt(): void;
   close(): void;
+  /**
+   * Optional: loads the library and builds the compiler's view of it ahead of the first cell
+   * (the kernel calls it while the front end is idle). Changes no state a cell can see.
+   */
+  warmUp?(): Promise<void>;
 }
 
 export interface SessionOptions {

@@ -160,13 +160,13 @@ export class ProtocolClient {
    * Until the iopub subscription is live, published messages are lost (a PUB socket drops what no
    * subscriber has joined for); so ask for kernel_info until its status messages arrive.
    */
-  async handshake(timeoutMs = 30_000): Promise<WireMessage> {
+  async handshake(timeoutMs = 30_000, retryMs = 500): Promise<WireMessage> {
     const deadline = Date.now() + timeoutMs;
     while (Date.now() < deadline) {
       const { id, reply } = await this.send('shell', 'kernel_info_request', {});
       const r = await withTimeout(reply, deadline - Date.now(), 'kernel_info_reply');
       try {
-        await this.waitFor((m) => m.parent_header.msg_id === id && m.content.execution_state === 'idle', 500);
+        await this.waitFor((m) => m.parent_header.msg_id === id && m.content.execution_state === 'idle', retryMs);
         return r;
       } catch {
         // iopub not joined yet; ask again.

@@ -44,7 +44,7 @@ afterAll(() => {
   rmSync(notebookDir, { recursive: true, force: true });
 });
 
-describe('createSession({ workDir }) outside the repository', () => {
+describe('createSession({ workDir }) outside the repository', { timeout: 120_000 }, () => {
   it('imports "sagitta" and a local .ts module next to the notebook; returns the last value as text/plain', async () => {
     const r = recorder();
     const out = await session.execute('import { PROTON } from "sagitta";\nimport { BEAM_MOMENTUM_GEV } from "./beam";\n[PROTON.massMeV, BEAM_MOMENTUM_GEV]', r.hooks);
