@@ -3,7 +3,7 @@ import { FIT_STATUS, type FitStatus } from '../fit/circleFit';
 import { fitCircles, CIRCLE_METHODS, type CircleMethod } from '../fit/fitCircles';
 import { fitHelices } from '../fit/fitHelices';
 import type { HitTable } from '../io/hitTable';
-import { indexTracks } from '../io/indexTracks';
+import { gatherRows, indexTracks } from '../io/indexTracks';
 import { momenta, type MomentumColumns } from './momentum';
 
 export interface MeasureTracksOptions {
@@ -40,6 +40,8 @@ export interface TrackTable {
   readonly hasZ: boolean;
   readonly method: CircleMethod;
   readonly fieldT: number;
+  /** Hits with a negative track id (not assigned to any track: noise, or not yet found); not fitted. */
+  readonly unassignedHits: number;
   /** Count of tracks per status. */
   readonly statusCounts: Readonly<Record<FitStatus, number>>;
 }
@@ -53,7 +55,8 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
   const method = options.method ?? 'geometric';
   if (!CIRCLE_METHODS.includes(method)) throw msg.badArgument('method', method, CIRCLE_METHODS.join(' | '));
   if (options.hitErrorM !== undefined && !(options.hitErrorM > 0)) throw msg.badArgument('hitErrorM', options.hitErrorM, 'a positive hit error in metres');
-  const { table, index } = indexTracks(hits);
+  const { assigned, unassignedHits } = splitUnassigned(hits);
+  const { table, index } = indexTracks(assigned);
   let sigmaX = table.sigmaX, sigmaY = table.sigmaY;
   if (sigmaX === undefined && options.hitErrorM !== undefined) {
     sigmaX = sigmaY = new Float64Array(table.length).fill(options.hitErrorM);
@@ -91,5 +94,19 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
     method,
     fieldT: options.fieldT,
     statusCounts,
+    unassignedHits,
   };
+}
+
+/**
+ * Hits whose track id is negative belong to no track (the hit-file convention for noise and for
+ * hits a pattern-recognition step left over). They are set aside and counted, never fitted.
+ */
+function splitUnassigned(hits: HitTable): { assigned: HitTable; unassignedHits: number } {
+  let unassigned = 0;
+  for (let i = 0; i < hits.length; i++) if (hits.track[i] < 0) unassigned++;
+  if (unassigned === 0) return { assigned: hits, unassignedHits: 0 };
+  const keep = new Int32Array(hits.length - unassigned);
+  for (let i = 0, j = 0; i < hits.length; i++) if (hits.track[i] >= 0) keep[j++] = i;
+  return { assigned: gatherRows(hits, keep), unassignedHits: unassigned };
 }

@@ -46,6 +46,7 @@ export function registerFit(program: Command): void {
     .option('--material <name>', 'medium the tracks cross, e.g. argon-gas, liquid-hydrogen, liquid-propane: adds the momentum error budget columns')
     .option('--particle <name>', 'mass hypothesis for β in the multiple-scattering term (with --material)', 'pi+')
     .addHelpText('after', `
+Hits with a negative track id belong to no track (noise); they are counted, not fitted.
 Hits of one track must be in the order the particle travelled: the turning sense, and so the
 sign of the charge, is read from that order (B along +z: positive particles turn clockwise).
 
@@ -97,7 +98,8 @@ export function runFit(hitsPath: string, options: FitCommandOptions): string {
     `sagitta fit: ${hitsPath}: ${hits.length} hits in ${tracks.count} tracks; lengths read as ${units}` +
       (hitErrorM !== undefined && hits.sigmaX === undefined ? `; hit error ${options.hitError}` : hits.sigmaX === undefined ? '; hit errors estimated from residuals' : ''),
     `  field ${fieldT} T along ${fieldT > 0 ? '+z' : '-z'}, fitter ${tracks.method}${tracks.hasZ ? ', helix (z present)' : ', circle only (no z: p and tan(lambda) not measured)'}`,
-    `  fitted ${tracks.statusCounts.ok}, failed ${failed}${failures.length ? ` (${failures.join(', ')})` : ''}`,
+    `  fitted ${tracks.statusCounts.ok}, failed ${failed}${failures.length ? ` (${failures.join(', ')})` : ''}` +
+      (tracks.unassignedHits ? `; ${tracks.unassignedHits} unassigned hits (track < 0) set aside` : ''),
     `  time ${((tEnd - t0) / 1000).toFixed(2)} s (read ${((tRead - t0) / 1000).toFixed(2)}, fit ${((tFit - tRead) / 1000).toFixed(2)}, write ${((tEnd - tFit) / 1000).toFixed(2)})` +
       (options.out ? `; results in ${options.out}` : ''),
   ];
