@@ -19,12 +19,22 @@ export class ColumnBuffer<K extends string> {
     return this.size;
   }
 
-  /** Appends one row; values in the order of the column names. */
+  /** Appends one row; values in the order of the column names (for rare rows; allocates). */
   push(...values: number[]): void {
-    if (this.size === this.capacity) this.grow();
-    const i = this.size++;
+    const i = this.addRow();
     const cols = this.cols;
     for (let k = 0; k < cols.length; k++) cols[k][i] = values[k];
+  }
+
+  /** Appends an empty row and returns its index; fill it with `set` (no allocation). */
+  addRow(): number {
+    if (this.size === this.capacity) this.grow();
+    return this.size++;
+  }
+
+  /** Writes column number `k` (position in the names) of row `i`. */
+  set(k: number, i: number, value: number): void {
+    this.cols[k][i] = value;
   }
 
   private grow(): void {
@@ -36,10 +46,14 @@ export class ColumnBuffer<K extends string> {
     });
   }
 
-  /** Exact-length copies of every column. */
+  /**
+   * Exact-length columns. Views on the buffers (no copy) when at least half of each buffer is
+   * used, copies otherwise, so a finished table never holds more than twice its size.
+   */
   finish(): Record<K, Float64Array> {
     const out = {} as Record<K, Float64Array>;
-    this.names.forEach((n, k) => { out[n] = this.cols[k].slice(0, this.size); });
+    const view = 2 * this.size >= this.capacity;
+    this.names.forEach((n, k) => { out[n] = view ? this.cols[k].subarray(0, this.size) : this.cols[k].slice(0, this.size); });
     return out;
   }
 }

@@ -30,7 +30,9 @@ export interface SeededRandom {
 class Xoroshiro implements SeededRandom {
   readonly seed: number;
   private readonly rng: RandomGenerator & { jump?: () => void };
-  private spare = 0;
+  // A typed array, not a number field: V8 boxes doubles stored in object fields, and one
+  // allocation per Gaussian would keep the garbage collector busy in the transport loop.
+  private readonly spare = new Float64Array(1);
   private hasSpare = false;
 
   constructor(seed: number, rng: RandomGenerator & { jump?: () => void }) {
@@ -50,7 +52,7 @@ class Xoroshiro implements SeededRandom {
   gaussian(): number {
     if (this.hasSpare) {
       this.hasSpare = false;
-      return this.spare;
+      return this.spare[0];
     }
     let u = 0, v = 0, s = 0;
     do {
@@ -59,7 +61,7 @@ class Xoroshiro implements SeededRandom {
       s = u * u + v * v;
     } while (s >= 1 || s === 0);
     const f = Math.sqrt((-2 * Math.log(s)) / s);
-    this.spare = v * f;
+    this.spare[0] = v * f;
     this.hasSpare = true;
     return u * f;
   }

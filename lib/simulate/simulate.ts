@@ -101,7 +101,52 @@ interface Pending extends Primary {
   readonly parent: number;
 }
 
-const HIT_COLUMNS = ['event', 'track', 'x', 'y', 'z', 'sx', 'sy', 'sz', 'tx', 'ty', 'tz', 'tp'] as const;
+/**
+ * Hit rows as they are simulated: measured and true positions, true momentum. A dedicated class
+ * with one typed array per field (rather than a generic column buffer) so that the per-hit write
+ * compiles to plain stores.
+ */
+class HitRecorder {
+  private cap: number;
+  n = 0;
+  event: Float64Array; track: Float64Array; x: Float64Array; y: Float64Array; z: Float64Array;
+  tx: Float64Array; ty: Float64Array; tz: Float64Array; tp: Float64Array;
+
+  constructor(capacity: number) {
+    this.cap = capacity;
+    this.event = new Float64Array(capacity); this.track = new Float64Array(capacity);
+    this.x = new Float64Array(capacity); this.y = new Float64Array(capacity); this.z = new Float64Array(capacity);
+    this.tx = new Float64Array(capacity); this.ty = new Float64Array(capacity); this.tz = new Float64Array(capacity);
+    this.tp = new Float64Array(capacity);
+  }
+
+  add(event: number, track: number, x: number, y: number, z: number, tx: number, ty: number, tz: number, tp: number): void {
+    if (this.n === this.cap) this.grow();
+    const i = this.n++;
+    this.event[i] = event; this.track[i] = track;
+    this.x[i] = x; this.y[i] = y; this.z[i] = z;
+    this.tx[i] = tx; this.ty[i] = ty; this.tz[i] = tz; this.tp[i] = tp;
+  }
+
+  private grow(): void {
+    this.cap *= 2;
+    const g = (a: Float64Array) => {
+      const b = new Float64Array(this.cap);
+      b.set(a);
+      return b;
+    };
+    this.event = g(this.event); this.track = g(this.track);
+    this.x = g(this.x); this.y = g(this.y); this.z = g(this.z);
+    this.tx = g(this.tx); this.ty = g(this.ty); this.tz = g(this.tz); this.tp = g(this.tp);
+  }
+
+  /** Exact-length columns (views when at least half the buffer is used). */
+  column(name: 'event' | 'track' | 'x' | 'y' | 'z' | 'tx' | 'ty' | 'tz' | 'tp'): Float64Array {
+    const a = this[name];
+    return 2 * this.n >= this.cap ? a.subarray(0, this.n) : a.slice(0, this.n);
+  }
+}
+
 const TRUTH_COLUMNS = ['event', 'track', 'parent', 'charge', 'vx', 'vy', 'vz', 'px', 'py', 'pz', 'ex', 'ey', 'ez', 'path', 'hits'] as const;
 
 /**
@@ -125,7 +170,7 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
     deltaRayMinMeV: config.transport.deltaRayMinMeV,
     sampling: measurement.sampling,
   };
-  const hits = new ColumnBuffer(HIT_COLUMNS, 1 << 14);
+  const hits = new HitRecorder(1 << 14);
   const truth = new ColumnBuffer(TRUTH_COLUMNS, 1024);
   const species: string[] = [];
   const process: string[] = [];
@@ -154,16 +199,21 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
         if (sp.charge === 0) {
           ({ end, ex, ey, ez, path } = flyNeutral(item, id, chamber, rng, stack));
         } else {
-          const first = hits.rows;
+          const first = hits.n;
+          const { efficiency, sigmaXM, sigmaYM, sigmaZM } = measurement;
           const r = transportTrack(item, chamber, options, rng,
             (x, y, z, p) => {
-              if (measurement.efficiency < 1 && rng.uniform() >= measurement.efficiency) return;
-              pushHit(hits, event, id, x, y, z, p, measurement, rng);
+              if (efficiency < 1 && rng.uniform() >= efficiency) return;
+              hits.add(event, id,
+                sigmaXM > 0 ? x + sigmaXM * rng.gaussian() : x,
+                sigmaYM > 0 ? y + sigmaYM * rng.gaussian() : y,
+                sigmaZM > 0 ? z + sigmaZM * rng.gaussian() : z,
+                x, y, z, p);
             },
             (x, y, z, ux, uy, uz, t) => {
               stack.push({ species: ELECTRON, xM: x, yM: y, zM: z, ux, uy, uz, momentumGeV: Math.sqrt(t * (t + 2 * ELECTRON.massMeV)) * 1e-3, process: 'delta', parent: id });
             });
-          nHits = hits.rows - first;
+          nHits = hits.n - first;
           end = r.reason; ex = r.xM; ey = r.yM; ez = r.zM; path = r.pathM;
           if (r.reason === 'stopped') decayAtRest(sp, r.xM, r.yM, r.zM, id, rng, stack);
         }
@@ -176,9 +226,17 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
     }
   }
 
-  const h = hits.finish();
+  const h = {
+    event: hits.column('event'), track: hits.column('track'), x: hits.column('x'), y: hits.column('y'), z: hits.column('z'),
+    tx: hits.column('tx'), ty: hits.column('ty'), tz: hits.column('tz'), tp: hits.column('tp'),
+  };
   const t = truth.finish();
   const sameSigma = measurement.sigmaXM === measurement.sigmaYM;
+  // The measurement errors are the same for every hit of a run: filled once here.
+  const rows = h.event.length;
+  const sx = new Float64Array(rows).fill(measurement.sigmaXM);
+  const sy = sameSigma ? sx : new Float64Array(rows).fill(measurement.sigmaYM);
+  const sz = new Float64Array(rows).fill(measurement.sigmaZM);
   return {
     name: config.name,
     seed,
@@ -186,7 +244,7 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
     hits: {
       length: h.event.length,
       event: h.event, track: h.track, x: h.x, y: h.y, z: h.z,
-      sigmaX: h.sx, sigmaY: sameSigma ? h.sx : h.sy, sigmaZ: h.sz,
+      sigmaX: sx, sigmaY: sy, sigmaZ: sz,
       source: { file: `(simulated: ${config.name}, seed ${seed})`, units: { x: 'm', y: 'm', z: 'm' }, ignoredColumns: [] },
     },
     hitTruth: { x: h.tx, y: h.ty, z: h.tz, momentumGeV: h.tp },
@@ -199,25 +257,14 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
   };
 }
 
-function pushHit(
-  hits: ColumnBuffer<(typeof HIT_COLUMNS)[number]>, event: number, track: number,
-  x: number, y: number, z: number, p: number, m: MeasurementModel, rng: SeededRandom,
-): void {
-  hits.push(event, track,
-    x + m.sigmaXM * rng.gaussian(), y + m.sigmaYM * rng.gaussian(), z + m.sigmaZM * rng.gaussian(),
-    m.sigmaXM, m.sigmaYM, m.sigmaZM, x, y, z, p);
-}
-
-function addNoise(
-  hits: ColumnBuffer<(typeof HIT_COLUMNS)[number]>, event: number, c: Chamber, m: MeasurementModel, rng: SeededRandom,
-): void {
+function addNoise(hits: HitRecorder, event: number, c: Chamber, m: MeasurementModel, rng: SeededRandom): void {
   const n = m.noiseHitsPerEvent > 0 ? rng.poisson(m.noiseHitsPerEvent) : 0;
   for (let k = 0; k < n; k++) {
-    hits.push(event, 0,
+    hits.add(event, 0,
       c.xMinM + (c.xMaxM - c.xMinM) * rng.uniform(),
       c.yMinM + (c.yMaxM - c.yMinM) * rng.uniform(),
       c.zMinM + (c.zMaxM - c.zMinM) * rng.uniform(),
-      m.sigmaXM, m.sigmaYM, m.sigmaZM, NaN, NaN, NaN, NaN);
+      NaN, NaN, NaN, NaN);
   }
 }
 

@@ -74,6 +74,22 @@ export interface TrackEnd {
   readonly hits: number;
 }
 
+const B_FIELD = new Float64Array(3);
+const STATE = new Float64Array(6);
+const BEGIN = new Float64Array(6);
+const TRIAL = new Float64Array(6);
+const NO_PLANES = new Float64Array(0);
+const PLANE_CACHE = new WeakMap<readonly number[], Float64Array>();
+
+function sortedPlanes(positions: readonly number[]): Float64Array {
+  let p = PLANE_CACHE.get(positions);
+  if (p === undefined) {
+    p = Float64Array.from(positions).sort();
+    PLANE_CACHE.set(positions, p);
+  }
+  return p;
+}
+
 /** Below this remaining range [m] a track is stopped with one last straight step. */
 const STOP_RANGE_M = 1e-5;
 const MAX_STEPS = 1_000_000;
@@ -108,16 +124,17 @@ export function transportTrack(
   const lossOn = options.energyLoss !== 'off';
   const straggle = options.energyLoss === 'straggling' && loss.stragglingVarianceMeV2PerM > 0;
   const field = chamber.field;
-  const bField = new Float64Array(3);
+  // Scratch state lives at module level: transport never re-enters itself (secondaries are
+  // queued by the caller), and per-track typed arrays would dominate the garbage collector.
+  const bField = B_FIELD, st = STATE, begin = BEGIN, trial = TRIAL;
   if (field.kind === 'uniform') {
     bField[0] = field.bxT; bField[1] = field.byT; bField[2] = field.bzT;
   }
-  const st = Float64Array.of(start.xM, start.yM, start.zM, start.ux, start.uy, start.uz);
-  const begin = new Float64Array(6);
-  const trial = new Float64Array(6);
+  st[0] = start.xM; st[1] = start.yM; st[2] = start.zM;
+  st[3] = start.ux; st[4] = start.uy; st[5] = start.uz;
   const sampling = options.sampling;
   const spacing = sampling.kind === 'spacing' ? sampling.spacingM : Infinity;
-  const planes = sampling.kind === 'planes' ? Float64Array.from(sampling.positionsM).sort() : new Float64Array(0);
+  const planes = sampling.kind === 'planes' ? sortedPlanes(sampling.positionsM) : NO_PLANES;
   const axis = sampling.kind === 'planes' ? sampling.axis : 0;
   const deltaMin = options.deltaRayMinMeV ?? 0;
   const wantDelta = onDelta !== undefined && deltaMin > 0 && chamber.medium.zOverA > 0;
