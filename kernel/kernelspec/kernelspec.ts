@@ -30,17 +30,24 @@ export interface InstallOptions {
   dir?: string;
   id?: string;
   displayName?: string;
+  /** How front ends interrupt a cell (default: signal, except message on Windows, which has no SIGINT to send). */
+  interruptMode?: 'signal' | 'message';
   platformEnv?: PlatformEnv;
 }
 
+export function defaultInterruptMode(platform: NodeJS.Platform = process.platform): 'signal' | 'message' {
+  return platform === 'win32' ? 'message' : 'signal';
+}
+
 /** What kernel.json says for this package: this Node binary running this package's kernel entry. */
-export function kernelJson(displayName = DEFAULT_DISPLAY_NAME): KernelJson {
+export function kernelJson(displayName = DEFAULT_DISPLAY_NAME, interruptMode = defaultInterruptMode()): KernelJson {
   return {
     argv: [process.execPath, kernelEntry, '{connection_file}'],
     display_name: displayName,
     language: 'typescript',
-    // Signal mode: SIGINT also stops a cell that blocks the event loop (see kernel/session).
-    interrupt_mode: 'signal',
+    // Both modes stop a cell that blocks the event loop: a signal directly, a message through the
+    // kernel's control thread, which raises SIGINT (kernel/protocol/controlThread.ts).
+    interrupt_mode: interruptMode,
     metadata: { sagitta: { version: sagittaVersion() } },
   };
 }
@@ -62,7 +69,7 @@ export function installKernelspec(options: InstallOptions = {}): string {
   const staging = path.join(kernelsDir, `.${id}.staging-${process.pid}`);
   rmSync(staging, { recursive: true, force: true });
   mkdirSync(staging);
-  writeFileSync(path.join(staging, 'kernel.json'), `${JSON.stringify(kernelJson(options.displayName), null, 2)}\n`);
+  writeFileSync(path.join(staging, 'kernel.json'), `${JSON.stringify(kernelJson(options.displayName, options.interruptMode), null, 2)}\n`);
   writeFileSync(path.join(staging, 'logo-32x32.png'), logoPng(32));
   writeFileSync(path.join(staging, 'logo-64x64.png'), logoPng(64));
   writeFileSync(path.join(staging, 'logo-svg.svg'), `${logoSvg()}\n`);

@@ -5,13 +5,17 @@
  *
  * Shell requests are handled one at a time, in arrival order. Control requests are handled as
  * they arrive, so `interrupt_request` and `shutdown_request` reach a cell that is waiting on an
- * `await`; a cell blocking the event loop is interrupted with SIGINT (signal interrupt mode).
+ * `await`. A cell blocking the event loop is interrupted by SIGINT: sent by the front end
+ * (signal mode), or raised by the control thread (controlThread.ts) when an interrupt_request
+ * arrives (message mode); that thread also keeps the heartbeat answering during long cells.
  */
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
+import { Worker } from 'node:worker_threads';
 import * as zmq from 'zeromq';
 import type { CellHooks, MimeBundle, Session } from '../session/types';
 import { endpoint, type ConnectionInfo } from './connection';
+import type { FromControlThread, ToControlThread } from './controlThread';
 import { kernelInfoContent } from './kernelInfo';
 import { decode, encode, makeHeader, SignatureHistory, type Header, type Message } from './wire';
 
@@ -23,12 +27,19 @@ export interface KernelServerOptions {
   log?: (line: string) => void;
   /** Kernel id used in iopub topics. */
   kernelId?: string;
+  /** Serve control and heartbeat from a worker thread (default true; see controlThread.ts). */
+  controlThread?: boolean;
 }
 
 type Sendable = Array<Buffer | string>;
 
+interface FrameSender {
+  send(frames: Sendable): Promise<void>;
+  drain(): Promise<void>;
+}
+
 /** zeromq allows one send at a time per socket; this keeps them in order. */
-class SendQueue {
+class SendQueue implements FrameSender {
   private tail: Promise<void> = Promise.resolve();
   constructor(private readonly socket: zmq.Writable, private readonly onError: (err: unknown) => void) {}
   send(frames: Sendable): Promise<void> {
@@ -50,11 +61,14 @@ export class KernelServer {
   private readonly kernelId: string;
   private readonly history = new SignatureHistory();
   private readonly shell = new zmq.Router({ linger: 0 });
-  private readonly control = new zmq.Router({ linger: 0 });
   private readonly stdin = new zmq.Router({ linger: 0 });
   private readonly iopub = new zmq.Publisher({ linger: 0 });
-  private readonly hb = new zmq.Reply({ linger: 0 });
-  private readonly out: { shell: SendQueue; control: SendQueue; stdin: SendQueue; iopub: SendQueue };
+  /** Control and heartbeat sockets when they live on the main thread. */
+  private readonly control?: zmq.Router;
+  private readonly hb?: zmq.Reply;
+  /** The control thread, when control and heartbeat live there. */
+  private worker?: Worker;
+  private readonly out: { shell: FrameSender; control: FrameSender; stdin: FrameSender; iopub: FrameSender };
   private readonly makeSession: KernelServerOptions['createSession'];
   private session: Promise<Session> | undefined;
   private executionCount = 0;
@@ -83,9 +97,23 @@ export class KernelServer {
     this.log = options.log ?? ((line) => void stderrWrite(`[sagitta kernel] ${line}\n`));
     this.kernelId = options.kernelId ?? randomUUID();
     const onError = (err: unknown) => this.log(`send failed: ${err instanceof Error ? err.message : String(err)}`);
+    let control: FrameSender;
+    if (options.controlThread === false) {
+      this.control = new zmq.Router({ linger: 0 });
+      this.hb = new zmq.Reply({ linger: 0 });
+      control = new SendQueue(this.control, onError);
+    } else {
+      control = {
+        send: (frames) => {
+          this.worker?.postMessage({ kind: 'send', frames } satisfies ToControlThread);
+          return Promise.resolve();
+        },
+        drain: () => Promise.resolve(),
+      };
+    }
     this.out = {
       shell: new SendQueue(this.shell, onError),
-      control: new SendQueue(this.control, onError),
+      control,
       stdin: new SendQueue(this.stdin, onError),
       iopub: new SendQueue(this.iopub, onError),
     };
@@ -96,15 +124,15 @@ export class KernelServer {
   async start(): Promise<void> {
     await Promise.all([
       this.shell.bind(endpoint(this.info, 'shell')),
-      this.control.bind(endpoint(this.info, 'control')),
       this.stdin.bind(endpoint(this.info, 'stdin')),
       this.iopub.bind(endpoint(this.info, 'iopub')),
-      this.hb.bind(endpoint(this.info, 'hb')),
+      this.control ? this.control.bind(endpoint(this.info, 'control')) : this.startControlThread(),
+      this.hb?.bind(endpoint(this.info, 'hb')),
     ]);
     process.on('SIGINT', this.onSigint);
-    void this.heartbeat();
+    if (this.hb) void this.heartbeat(this.hb);
     void this.listen(this.shell, 'shell');
-    void this.listen(this.control, 'control');
+    if (this.control) void this.listen(this.control, 'control');
     void this.listen(this.stdin, 'stdin');
     await this.publish('status', { execution_state: 'starting' }, {});
   }
@@ -121,7 +149,15 @@ export class KernelServer {
     process.off('SIGINT', this.onSigint);
     if (this.warmUpTimer) clearTimeout(this.warmUpTimer);
     await Promise.all(Object.values(this.out).map((q) => q.drain()));
-    for (const s of [this.shell, this.control, this.stdin, this.iopub, this.hb]) s.close();
+    for (const s of [this.shell, this.control, this.stdin, this.iopub, this.hb]) s?.close();
+    if (this.worker) {
+      const worker = this.worker;
+      const exited = new Promise<void>((resolve) => worker.once('exit', () => resolve()));
+      worker.postMessage({ kind: 'close' } satisfies ToControlThread);
+      const timer = setTimeout(() => void worker.terminate(), 2000);
+      await exited;
+      clearTimeout(timer);
+    }
     if (this.session) {
       try {
         (await this.session).close();
@@ -154,9 +190,26 @@ export class KernelServer {
     return this.session;
   }
 
-  private async heartbeat(): Promise<void> {
+  private startControlThread(): Promise<void> {
+    const worker = new Worker(new URL('./controlThreadEntry.js', import.meta.url), { workerData: { connection: this.info } });
+    this.worker = worker;
+    return new Promise<void>((resolve, reject) => {
+      worker.on('message', (m: FromControlThread) => {
+        if (m.kind === 'ready') resolve();
+        else if (m.kind === 'failed') reject(new Error(`control thread: ${m.message}`));
+        else if (m.kind === 'log') this.log(m.line);
+        else this.receive(m.frames.map((f) => Buffer.from(f.buffer, f.byteOffset, f.byteLength)), 'control');
+      });
+      worker.once('error', (err) => {
+        this.log(`control thread failed: ${String(err)}`);
+        reject(err);
+      });
+    });
+  }
+
+  private async heartbeat(hb: zmq.Reply): Promise<void> {
     try {
-      for await (const frames of this.hb) await this.hb.send(frames);
+      for await (const frames of hb) await hb.send(frames);
     } catch (err) {
       if (!this.stopping) this.log(`heartbeat stopped: ${String(err)}`);
     }
@@ -164,23 +217,25 @@ export class KernelServer {
 
   private async listen(socket: zmq.Router, channel: 'shell' | 'control' | 'stdin'): Promise<void> {
     try {
-      for await (const frames of socket) {
-        const msg = decode(frames, this.info.key, this.history);
-        if (typeof msg === 'string') {
-          this.log(`${channel}: dropped a message (${msg === 'bad-signature' ? 'bad signature' : msg})`);
-          continue;
-        }
-        if (channel === 'shell') {
-          this.shellQueue.push({ msg, seq: ++this.received });
-          void this.pumpShell();
-        } else if (channel === 'control') {
-          void this.handle(msg, 'control');
-        }
-        // stdin carries only replies to input requests, which this kernel does not make.
-      }
+      for await (const frames of socket) this.receive(frames, channel);
     } catch (err) {
       if (!this.stopping) this.log(`${channel} listener stopped: ${String(err)}`);
     }
+  }
+
+  private receive(frames: Buffer[], channel: 'shell' | 'control' | 'stdin'): void {
+    const msg = decode(frames, this.info.key, this.history);
+    if (typeof msg === 'string') {
+      this.log(`${channel}: dropped a message (${msg === 'bad-signature' ? 'bad signature' : msg})`);
+      return;
+    }
+    if (channel === 'shell') {
+      this.shellQueue.push({ msg, seq: ++this.received });
+      void this.pumpShell();
+    } else if (channel === 'control') {
+      void this.handle(msg, 'control');
+    }
+    // stdin carries only replies to input requests, which this kernel does not make.
   }
 
   private async pumpShell(): Promise<void> {

@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { inflateSync } from 'node:zlib';
 import { afterAll, describe, expect, it } from 'vitest';
-import { installKernelspec, kernelJson, listKernelspecs, removeKernelspec } from '../../kernel/kernelspec/kernelspec';
+import { defaultInterruptMode, installKernelspec, kernelJson, listKernelspecs, removeKernelspec } from '../../kernel/kernelspec/kernelspec';
 import { kernelsDirFor, kernelSearchPath, userDataDir, type PlatformEnv } from '../../kernel/kernelspec/paths';
 import { SagittaError } from '../../lib/errors';
 
@@ -72,6 +72,13 @@ describe('installKernelspec / listKernelspecs / removeKernelspec', () => {
       at += 12 + len;
     }
     expect(inflateSync(Buffer.concat(idat)).length).toBe(64 * (1 + 64 * 4));
+  });
+
+  it('--interrupt message writes the message interrupt mode (the default on Windows)', () => {
+    const dir = installKernelspec({ dir: path.join(scratch, 'k2'), id: 'sagitta-msg', interruptMode: 'message' });
+    expect(JSON.parse(readFileSync(path.join(dir, 'kernel.json'), 'utf8')).interrupt_mode).toBe('message');
+    expect(defaultInterruptMode('win32')).toBe('message');
+    expect(defaultInterruptMode('linux')).toBe('signal');
   });
 
   it('lists through JUPYTER_PATH and JUPYTER_DATA_DIR; the first folder with an id wins', () => {

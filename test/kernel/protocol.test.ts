@@ -214,6 +214,23 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     expect(cell.content.ename).toBe('Interrupted');
   });
 
+  it('while a cell blocks the event loop, the heartbeat still answers and interrupt_request (message mode) stops it', async () => {
+    const long = await client.send('shell', 'execute_request', { code: 'let laps = 0;\nwhile (true) { laps++; }' });
+    await client.waitFor((m) => m.parent_header.msg_id === long.id && m.header.msg_type === 'execute_input', 60_000);
+    await new Promise((r) => setTimeout(r, 1000));
+    expect(await client.ping('still alive')).toBe('still alive');
+    // As with a signal, an interrupt that lands while the cell is still compiling is spent before
+    // the loop starts; ask again until the cell's reply arrives.
+    let replied = false;
+    const reply = long.reply.finally(() => (replied = true));
+    for (let i = 0; i < 30 && !replied; i++) {
+      const ask = await client.send('control', 'interrupt_request', {});
+      expect((await withTimeout(ask.reply, 10_000, 'interrupt_reply')).content.status).toBe('ok');
+      await Promise.race([reply, new Promise((r) => setTimeout(r, 1000))]);
+    }
+    expect((await withTimeout(reply, 5_000, 'reply of the interrupted cell')).content.ename).toBe('Interrupted');
+  });
+
   it('shutdown_request on control: replies, goes idle and the process exits with code 0', async () => {
     const { reply } = await client.request('control', 'shutdown_request', { restart: false });
     expect(reply.content).toMatchObject({ status: 'ok', restart: false });

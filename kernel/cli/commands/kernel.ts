@@ -18,14 +18,15 @@ export function registerKernel(program: Command): void {
     .option('--dir <folder>', 'write into this kernels folder instead of the standard one for the scope')
     .option('--id <name>', 'folder name of the kernel, as front ends list it', 'sagitta')
     .option('--label <text>', 'name front ends show for the kernel', 'Sagitta (TypeScript)')
+    .addOption(new Option('--interrupt <mode>', 'how front ends stop a cell: signal (SIGINT) or message (interrupt_request); default signal, message on Windows').choices(['signal', 'message']))
     .addHelpText('after', `
 Standard kernels folders for --scope user: Linux ~/.local/share/jupyter/kernels (or
 $XDG_DATA_HOME/jupyter/kernels), macOS ~/Library/Jupyter/kernels, Windows %APPDATA%\\jupyter\\kernels;
 JUPYTER_DATA_DIR replaces the data folder if set. kernel.json starts this Node.js binary with this
 package's kernel entry, so reinstall after moving the package or changing Node.js.`)
-    .action(async (opts: { scope: 'user' | 'system'; dir?: string; id: string; label: string }) => {
+    .action(async (opts: { scope: 'user' | 'system'; dir?: string; id: string; label: string; interrupt?: 'signal' | 'message' }) => {
       const { installKernelspec } = await import('../../kernelspec/kernelspec');
-      const dir = installKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id, displayName: opts.label });
+      const dir = installKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id, displayName: opts.label, interruptMode: opts.interrupt });
       process.stdout.write(`installed kernel "${opts.id}" in ${dir}\n`);
     });
 

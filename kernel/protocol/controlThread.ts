@@ -1,0 +1,72 @@
+/**
+ * The control and heartbeat channels, served from a worker thread so that they keep working while
+ * a cell blocks the main thread's event loop:
+ * - the heartbeat keeps answering, so a front end does not declare a busy kernel dead;
+ * - a correctly signed `interrupt_request` raises SIGINT in this process at once, which stops a
+ *   synchronous cell (it runs with `breakOnSigint`) — message-mode interrupts for blocking cells.
+ * Every control message is also passed to the main thread, which verifies it again, replies and
+ * publishes the status messages; the main thread's replies come back here to be sent.
+ */
+import { parentPort, workerData } from 'node:worker_threads';
+import * as zmq from 'zeromq';
+import { endpoint, type ConnectionInfo } from './connection';
+import { decode, SignatureHistory } from './wire';
+
+export type ToControlThread = { kind: 'send'; frames: Array<Uint8Array | string> } | { kind: 'close' };
+export type FromControlThread = { kind: 'ready' } | { kind: 'message'; frames: Uint8Array[] } | { kind: 'log'; line: string } | { kind: 'failed'; message: string };
+
+const info = (workerData as { connection: ConnectionInfo }).connection;
+const port = parentPort!;
+const control = new zmq.Router({ linger: 0 });
+const hb = new zmq.Reply({ linger: 0 });
+const history = new SignatureHistory();
+let closing = false;
+let sending: Promise<void> = Promise.resolve();
+
+const post = (m: FromControlThread) => port.postMessage(m);
+
+async function heartbeat(): Promise<void> {
+  try {
+    for await (const frames of hb) await hb.send(frames);
+  } catch (err) {
+    if (!closing) post({ kind: 'log', line: `heartbeat stopped: ${String(err)}` });
+  }
+}
+
+async function listen(): Promise<void> {
+  try {
+    for await (const frames of control) {
+      const msg = decode(frames, info.key, history);
+      if (typeof msg !== 'string' && msg.header.msg_type === 'interrupt_request') {
+        // The main thread may be stuck in a cell: signal it from here.
+        process.kill(process.pid, 'SIGINT');
+      }
+      // Bad signatures are logged by the main thread, which checks every message again.
+      post({ kind: 'message', frames });
+    }
+  } catch (err) {
+    if (!closing) post({ kind: 'log', line: `control listener stopped: ${String(err)}` });
+  }
+}
+
+port.on('message', (m: ToControlThread) => {
+  if (m.kind === 'send') {
+    sending = sending.then(() => control.send(m.frames.map((f) => (typeof f === 'string' ? f : Buffer.from(f.buffer, f.byteOffset, f.byteLength))))).catch((err: unknown) => post({ kind: 'log', line: `control send failed: ${String(err)}` }));
+  } else {
+    closing = true;
+    void sending.then(() => {
+      control.close();
+      hb.close();
+      port.close();
+    });
+  }
+});
+
+Promise.all([control.bind(endpoint(info, 'control')), hb.bind(endpoint(info, 'hb'))]).then(
+  () => {
+    void heartbeat();
+    void listen();
+    post({ kind: 'ready' });
+  },
+  (err: unknown) => post({ kind: 'failed', message: String(err) }),
+);
