@@ -8,10 +8,6 @@ export * from './provenance';
 export * from './io/index';
 export * from './fit/index';
 export * from './track/index';
-// Issue 3 terms (lib/track/highland, resolution, resolutionBudget) until lib/track/index re-exports them.
-export * from './track/highland';
-export * from './track/resolution';
-export * from './track/resolutionBudget';
 export * from './plot/index';
 export * from './matter/index';
 export * from './simulate/index';
