@@ -16,7 +16,7 @@ export { NEUTRAL_DECAYS, DECAY_AT_REST } from './decays';
 export {
   simulateChamber,
   type SimulationConfig, type SimulationResult, type MeasurementModel, type TransportSettings, type Source,
-  type BeamSource, type CosmicSource, type StoppingMuonSource, type TruthTable, type HitTruth,
+  type BeamSource, type CosmicSource, type StoppingSource, type TruthTable, type HitTruth,
 } from './simulate';
 export { SCENARIO_SCHEMA } from './scenario-schema';
 export { readScenario, parseScenario, resolveScenario, SCENARIO_DEFAULTS } from './scenario';

@@ -86,7 +86,7 @@ export const SCENARIO_SCHEMA = Object.freeze({
       items: {
         type: 'object',
         required: ['type'],
-        properties: { type: { enum: ['beam', 'neutral-decay', 'cosmic', 'stopping-muon'] } },
+        properties: { type: { enum: ['beam', 'neutral-decay', 'cosmic', 'stopping'] } },
         allOf: [
           {
             if: { properties: { type: { const: 'beam' } } },
@@ -129,14 +129,14 @@ export const SCENARIO_SCHEMA = Object.freeze({
             },
           },
           {
-            if: { properties: { type: { const: 'stopping-muon' } } },
+            if: { properties: { type: { const: 'stopping' } } },
             then: {
               additionalProperties: false,
               required: ['type', 'events', 'species', 'depth', 'origin', 'direction'],
               properties: {
                 type: {},
                 events,
-                species: { enum: ['mu+', 'mu-'] },
+                species: { type: 'string', description: 'a charged species: "mu+", "pi+", "proton", …; stopped muons and π⁺ decay at rest' },
                 depth: { type: 'array', items: quantity, minItems: 2, maxItems: 2, description: 'path length range in which the muons stop' },
                 origin: beamLike.origin,
                 direction,

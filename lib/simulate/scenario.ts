@@ -228,11 +228,13 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
     }
     const [lo, hi] = (s.depth as string[]).map((t, k) => len(t, `${p}/depth/${k}`));
     if (!(lo > 0 && hi >= lo)) throw msg.badScenario(file, `${p}/depth: need 0 < shallow ≤ deep, got ${lo} and ${hi} m`);
-    if (medium === VACUUM) throw msg.badScenario(file, `${p}: stopping muons need a medium; the chamber holds vacuum`);
+    if (medium === VACUUM) throw msg.badScenario(file, `${p}: stopping particles need a medium; the chamber holds vacuum`);
+    const stoppingSpecies = at(`${p}/species`, () => particle(s.species as string));
+    if (stoppingSpecies.charge === 0) throw msg.badScenario(file, `${p}/species: ${stoppingSpecies.name} is neutral and cannot be brought to rest by ionisation; use a charged species`);
     return {
-      kind: 'stopping-muon',
+      kind: 'stopping',
       events: s.events as number,
-      species: particle(s.species as string),
+      species: stoppingSpecies,
       minDepthM: lo,
       maxDepthM: hi,
       originM: origin(s.origin),

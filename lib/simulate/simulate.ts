@@ -10,13 +10,13 @@ import { seededRandom, type SeededRandom } from './rng';
 import { beamEvent, type BeamSource } from './sources/beam';
 import { cosmicEvent, type CosmicSource } from './sources/cosmic';
 import type { Primary } from './sources/primary';
-import { stoppingMuonEvent, type StoppingMuonSource } from './sources/stopping-muon';
+import { stoppingEvent, type StoppingSource } from './sources/stopping';
 import { transportTrack, TRANSPORT_DEFAULTS, type EnergyLossMode, type Sampling, type TransportOptions } from './transport';
 import { rotateAbout } from './transport';
 import { twoBodyDecay, twoBodyMomentumMeV } from './two-body-decay';
 
-export type { BeamSource, CosmicSource, StoppingMuonSource };
-export type Source = BeamSource | CosmicSource | StoppingMuonSource;
+export type { BeamSource, CosmicSource, StoppingSource };
+export type Source = BeamSource | CosmicSource | StoppingSource;
 
 /** How hits are measured: where they are taken, Gaussian smearing per coordinate, losses, noise. */
 export interface MeasurementModel {
@@ -182,7 +182,7 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
       event++;
       const primaries = src.kind === 'beam' ? beamEvent(src, rng)
         : src.kind === 'cosmic' ? cosmicEvent(src, chamber, rng)
-        : stoppingMuonEvent(src, chamber, rng);
+        : stoppingEvent(src, chamber, rng);
       addNoise(hits, event, chamber, measurement, rng);
       const stack: Pending[] = primaries.map((p) => ({ ...p, parent: 0 }));
       let trackId = 0;

@@ -15,6 +15,7 @@ const here = dirname(fileURLToPath(import.meta.url));
 /** Scenario name → seed. Changing a seed changes every number in that dataset. */
 export const DEMO_SEEDS: Readonly<Record<string, number>> = Object.freeze({
   brindlemoor: 20260401,
+  'brindlemoor-planes': 20260402,
 });
 
 export function makeDemoFiles(name: string): Record<string, string> {

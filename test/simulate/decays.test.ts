@@ -92,7 +92,7 @@ describe('decay at rest of a stopping muon', () => {
       chamber: chamber({ sizeM: [2, 2, 2], medium: chamberMedium('liquid hydrogen'), fieldT: [0, 0, 1.5] }),
       transport: { energyLoss: 'mean', scattering: true, maxStepM: 0.01, maxPathM: 10, deltaRayMinMeV: 0 },
       measurement: { sampling: { kind: 'spacing', spacingM: 0.01 }, sigmaXM: 0, sigmaYM: 0, sigmaZM: 0, efficiency: 1, noiseHitsPerEvent: 0 },
-      sources: [{ kind: 'stopping-muon', events: 50, species: MUON_PLUS, minDepthM: 0.2, maxDepthM: 0.4, originM: [-0.9, 0, 0], direction: [1, 0, 0], spotSigmaM: 0, divergenceRad: 0 }],
+      sources: [{ kind: 'stopping', events: 50, species: MUON_PLUS, minDepthM: 0.2, maxDepthM: 0.4, originM: [-0.9, 0, 0], direction: [1, 0, 0], spotSigmaM: 0, divergenceRad: 0 }],
     };
     const t = simulateChamber(config, 9).truth;
     for (let i = 0; i < t.length; i++) {

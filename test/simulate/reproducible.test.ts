@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseHitsCsv } from '../../lib/io/index';
 import { formatHitsCsv, formatTruthCsv, parseScenario, simulateChamber } from '../../lib/simulate/index';
-import { makeDemoFiles } from '../../notebooks/data/make-data';
+import { DEMO_SEEDS, makeDemoFiles } from '../../notebooks/data/make-data';
 
 const scenarioText = readFileSync(new URL('../../notebooks/data/brindlemoor.scenario.json', import.meta.url), 'utf8');
 
@@ -17,8 +17,8 @@ describe('the simulator is seeded and reproducible', () => {
     expect(formatHitsCsv(a)).not.toBe(formatHitsCsv(c));
   });
 
-  it('notebooks/data: regenerating the demo data gives the committed bytes', () => {
-    const files = makeDemoFiles('brindlemoor');
+  it.each(Object.keys(DEMO_SEEDS))('notebooks/data: regenerating %s gives the committed bytes', (name) => {
+    const files = makeDemoFiles(name);
     for (const [name, text] of Object.entries(files)) {
       // Compare digests: a failing string comparison of megabytes spends a minute printing the diff.
       const committed = readFileSync(new URL(`../../notebooks/data/${name}`, import.meta.url));

@@ -38,7 +38,7 @@ export function registerSimulate(program: Command): void {
 A scenario sets the chamber (size, medium, field), the transport (energy loss, straggling,
 multiple scattering, knock-on electrons), the measurement model (hit spacing or detector planes,
 resolution per coordinate, efficiency, noise hits) and the sources (beam, neutral-decay, cosmic,
-stopping-muon) with their event counts. The same scenario and seed always give the same bytes.
+stopping) with their event counts. The same scenario and seed always give the same bytes.
 
 ${SIMULATE_CAUTION}
 

@@ -41,8 +41,10 @@ export function beamEvent(src: BeamSource, rng: SeededRandom): Primary[] {
   const t1 = src.divergenceRad * rng.gaussian(), t2 = src.divergenceRad * rng.gaussian();
   const theta = Math.hypot(t1, t2);
   const [ux, uy, uz] = theta > 0 ? rotateAbout(dx, dy, dz, Math.cos(theta), Math.atan2(t2, t1)) : [dx, dy, dz];
+  // A Gaussian spread is truncated at zero momentum by drawing again.
   let p = src.momentumGeV * (1 + src.momentumSpread * rng.gaussian());
-  if (!(p > 0)) p = src.momentumGeV * 1e-3;
+  for (let tries = 0; !(p > 0) && tries < 100; tries++) p = src.momentumGeV * (1 + src.momentumSpread * rng.gaussian());
+  if (!(p > 0)) p = src.momentumGeV;
   return [{
     species,
     xM: src.originM[0] + g1 * a[0] + g2 * b[0],

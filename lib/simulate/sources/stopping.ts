@@ -5,13 +5,14 @@ import { rotateAbout } from '../transport';
 import { unit, type Primary } from './primary';
 
 /**
- * Muons whose momentum is chosen so that they stop at a depth (path length) drawn uniformly in
- * [minDepthM, maxDepthM]: the kinetic energy is the one whose CSDA range in the chamber medium
- * equals the depth (range tables of the matter module). When the muon stops, the event loop lets
- * it decay to an electron with a Michel-spectrum energy.
+ * Charged particles whose momentum is chosen so that they stop at a depth (path length) drawn
+ * uniformly in [minDepthM, maxDepthM]: the kinetic energy is the one whose CSDA range in the
+ * chamber medium equals the depth (range tables of the matter module). When a muon stops, the
+ * event loop lets it decay to an electron with a Michel-spectrum energy; a stopped π⁺ decays to
+ * μ⁺ν and then on (see `DECAY_AT_REST`).
  */
-export interface StoppingMuonSource {
-  readonly kind: 'stopping-muon';
+export interface StoppingSource {
+  readonly kind: 'stopping';
   readonly events: number;
   readonly species: Particle;
   readonly minDepthM: number;
@@ -22,7 +23,7 @@ export interface StoppingMuonSource {
   readonly divergenceRad: number;
 }
 
-export function stoppingMuonEvent(src: StoppingMuonSource, chamber: Chamber, rng: SeededRandom): Primary[] {
+export function stoppingEvent(src: StoppingSource, chamber: Chamber, rng: SeededRandom): Primary[] {
   const depth = src.minDepthM + (src.maxDepthM - src.minDepthM) * rng.uniform();
   const kinetic = chamber.medium.forSpecies(src.species).kineticFromRangeM(depth);
   const m = src.species.massMeV;
