@@ -288,6 +288,7 @@ export class KernelServer {
           break;
         case 'interrupt_request':
           (await this.getSession()).interrupt();
+          this.worker?.postMessage({ kind: 'interrupt-handled' } satisfies ToControlThread);
           await this.reply(channel, msg, 'interrupt_reply', { status: 'ok' });
           break;
         case 'shutdown_request': {
