@@ -14,6 +14,9 @@ export interface FitterTrackColumns {
   readonly pValue: Float64Array;
   /** (κ − κ_true)/σ(κ): mean 0 and width 1 when the covariance is honest. */
   readonly pull: Float64Array;
+  /** tan λ and its pull (tan λ − tan λ_true)/σ, for methods that report them. */
+  readonly tanLambda: Float64Array;
+  readonly tanLambdaPull: Float64Array;
   /** 1 where the fit succeeded. */
   readonly ok: Uint8Array;
 }
@@ -28,7 +31,10 @@ export interface FitMerit {
   readonly kappaBias: number;
   /** Standard deviation of κ_fit − κ_true [1/m]. */
   readonly kappaResolution: number;
-  /** Mean and standard deviation of (p_fit − p_true)/p_true, p_fit = 0.299792458·|B|/|κ_fit|. */
+  /**
+   * Mean and standard deviation of (p_fit − p_true)/p_true for the transverse momentum,
+   * p_T,fit = 0.299792458·|z B|/|κ_fit| (what every circle fit measures).
+   */
   readonly momentumBias: number;
   readonly momentumResolution: number;
   readonly pullMean: number;
@@ -37,6 +43,9 @@ export interface FitMerit {
   readonly chi2PerNdf: number;
   /** Fraction of tracks with p-value below 0.05 (0.05 expected). */
   readonly pValueBelow5Percent: number;
+  /** Standard deviation of tan λ − tan λ_true and the width of its pull; NaN for circle-only methods. */
+  readonly tanLambdaResolution: number;
+  readonly tanLambdaPullWidth: number;
 }
 
 export interface BinnedMerit extends FitMerit {
@@ -111,12 +120,13 @@ function runFitter(fitter: Fitter, s: FitLabSample, tracks: number): FitterTrack
   const kappa = new Float64Array(n).fill(NaN), sigmaKappa = new Float64Array(n).fill(NaN);
   const chi2 = new Float64Array(n).fill(NaN), ndf = new Float64Array(n).fill(NaN);
   const pValue = new Float64Array(n).fill(NaN), pull = new Float64Array(n).fill(NaN);
+  const tanLambda = new Float64Array(n).fill(NaN), tanLambdaPull = new Float64Array(n).fill(NaN);
   const ok = new Uint8Array(n);
   for (let k = 0; k < n; k++) {
     const from = s.offsets[k], to = s.offsets[k + 1];
     let out;
     try {
-      out = fitter.fit(s.x.subarray(from, to), s.y.subarray(from, to), s.sigma.subarray(from, to));
+      out = fitter.fit(s.x.subarray(from, to), s.y.subarray(from, to), s.sigma.subarray(from, to), s.z.subarray(from, to), s.sigmaZ.subarray(from, to));
     } catch {
       continue;
     }
@@ -127,13 +137,17 @@ function runFitter(fitter: Fitter, s: FitLabSample, tracks: number): FitterTrack
       sigmaKappa[k] = out.sigmaKappa;
       pull[k] = (out.kappa - s.kappaTrue[k]) / out.sigmaKappa;
     }
+    if (out.tanLambda !== undefined && Number.isFinite(out.tanLambda)) {
+      tanLambda[k] = out.tanLambda;
+      if (out.sigmaTanLambda !== undefined && out.sigmaTanLambda > 0) tanLambdaPull[k] = (out.tanLambda - s.tanLambdaTrue[k]) / out.sigmaTanLambda;
+    }
     if (out.chi2 !== undefined && out.ndf !== undefined && out.ndf > 0) {
       chi2[k] = out.chi2;
       ndf[k] = out.ndf;
       pValue[k] = chi2Survival(out.chi2, out.ndf);
     }
   }
-  return { kappa, sigmaKappa, chi2, ndf, pValue, pull, ok };
+  return { kappa, sigmaKappa, chi2, ndf, pValue, pull, tanLambda, tanLambdaPull, ok };
 }
 
 function select(n: number, keep: (k: number) => boolean): Int32Array {
@@ -166,21 +180,27 @@ function meanSd(values: ArrayLike<number>): [number, number] {
 function merit(name: string, c: FitterTrackColumns, s: FitLabSample, rows: Int32Array): FitMerit {
   const m = rows.length;
   const dk = new Float64Array(m), dp = new Float64Array(m), pulls = new Float64Array(m), red = new Float64Array(m);
+  const dt = new Float64Array(m), tPulls = new Float64Array(m);
   let failures = 0, withP = 0, lowP = 0;
   for (let i = 0; i < m; i++) {
     const k = rows[i];
-    if (!c.ok[k]) { failures++; dk[i] = dp[i] = pulls[i] = red[i] = NaN; continue; }
+    if (!c.ok[k]) { failures++; dk[i] = dp[i] = pulls[i] = red[i] = dt[i] = tPulls[i] = NaN; continue; }
+    dt[i] = c.tanLambda[k] - s.tanLambdaTrue[k];
+    tPulls[i] = c.tanLambdaPull[k];
     dk[i] = c.kappa[k] - s.kappaTrue[k];
     const pFit = (GEV_PER_TESLA_METRE * Math.abs(s.fieldT * s.charge[k])) / Math.abs(c.kappa[k]);
-    dp[i] = pFit / s.momentumGeV[k] - 1;
+    const ptTrue = s.momentumGeV[k] / Math.sqrt(1 + s.tanLambdaTrue[k] ** 2);
+    dp[i] = pFit / ptTrue - 1;
     pulls[i] = c.pull[k];
     red[i] = c.chi2[k] / c.ndf[k];
     if (Number.isFinite(c.pValue[k])) { withP++; if (c.pValue[k] < 0.05) lowP++; }
   }
   const [kb, kr] = meanSd(dk), [pb, pr] = meanSd(dp), [pm, pw] = meanSd(pulls), [rc] = meanSd(red);
+  const [, tr] = meanSd(dt), [, tw] = meanSd(tPulls);
   return {
     fitter: name, tracks: m, failures, failureRate: m > 0 ? failures / m : NaN,
     kappaBias: kb, kappaResolution: kr, momentumBias: pb, momentumResolution: pr,
     pullMean: pm, pullWidth: pw, chi2PerNdf: rc, pValueBelow5Percent: withP > 0 ? lowP / withP : NaN,
+    tanLambdaResolution: tr, tanLambdaPullWidth: tw,
   };
 }

@@ -1,4 +1,5 @@
 import { fitCircleGeometric, fitCircleKasa, fitCircleTaubin } from '../fit/fitCircles';
+import { fitHelix } from '../fit/fitHelices';
 import type { CircleFit } from '../fit/circleFit';
 
 /**
@@ -16,16 +17,20 @@ export interface FitterOutcome {
   readonly ndf?: number;
   /** False when the method reports a failure (not converged, degenerate, …); default true. */
   readonly ok?: boolean;
+  /** Dip tan λ = dz/ds, for methods that also fit the coordinate along the field. */
+  readonly tanLambda?: number;
+  readonly sigmaTanLambda?: number;
 }
 
 /**
- * A track-fit method under test: hits of one track in travel order (x, y [m]) with per-hit
- * errors `sigma` [m] → curvature. Must not keep references to the arrays (they are reused).
+ * A track-fit method under test: hits of one track in travel order — bending-plane x, y [m] with
+ * per-hit errors `sigma` [m], and the coordinate along the field z [m] with errors `sigmaZ` for
+ * methods that use it — → curvature. Must not keep references to the arrays (they are views).
  * @example const mine: Fitter = { name: 'three-point', fit: (x, y) => ({ kappa: threePointKappa(x, y) }) };
  */
 export interface Fitter {
   readonly name: string;
-  fit(x: Float64Array, y: Float64Array, sigma: Float64Array): FitterOutcome;
+  fit(x: Float64Array, y: Float64Array, sigma: Float64Array, z: Float64Array, sigmaZ: Float64Array): FitterOutcome;
 }
 
 /** Reads a lib/fit circle result as a lab outcome (σ(κ) = √cov[κκ]). */
@@ -40,5 +45,14 @@ export const TAUBIN_FITTER: Fitter = Object.freeze({ name: 'taubin', fit: (x: Fl
 /** Geometric least-squares circle fit of lib/fit (Karimäki parametrisation, Gauss–Newton/LM). */
 export const GEOMETRIC_FITTER: Fitter = Object.freeze({ name: 'geometric', fit: (x: Float64Array, y: Float64Array, s: Float64Array) => outcomeOfCircleFit(fitCircleGeometric(x, y, s)) });
 
-/** The built-in circle fits, in the order the lab reports them. */
-export const BUILTIN_FITTERS: readonly Fitter[] = Object.freeze([KASA_FITTER, TAUBIN_FITTER, GEOMETRIC_FITTER]);
+/** Helix fit of lib/fit: geometric circle fit plus the straight line z(s); reports κ and tan λ. */
+export const HELIX_FITTER: Fitter = Object.freeze({
+  name: 'helix',
+  fit: (x: Float64Array, y: Float64Array, s: Float64Array, z: Float64Array, sz: Float64Array): FitterOutcome => {
+    const h = fitHelix(x, y, z, { sigma: s, sigmaZ: sz });
+    return { ...outcomeOfCircleFit(h.circle), ok: h.status === 'ok', tanLambda: h.tanLambda, sigmaTanLambda: Math.sqrt(h.cov[24]) };
+  },
+});
+
+/** The built-in fits, in the order the lab reports them. */
+export const BUILTIN_FITTERS: readonly Fitter[] = Object.freeze([KASA_FITTER, TAUBIN_FITTER, GEOMETRIC_FITTER, HELIX_FITTER]);

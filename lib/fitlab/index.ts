@@ -1,6 +1,6 @@
 // lib/fitlab: compare track-fit methods on simulated truth (re-exports only).
 export {
-  BUILTIN_FITTERS, KASA_FITTER, TAUBIN_FITTER, GEOMETRIC_FITTER, outcomeOfCircleFit,
+  BUILTIN_FITTERS, KASA_FITTER, TAUBIN_FITTER, GEOMETRIC_FITTER, HELIX_FITTER, outcomeOfCircleFit,
   type Fitter, type FitterOutcome,
 } from './fitter';
 export { fitLabSample, type FitLabSample, type FitLabSampleOptions } from './sample';

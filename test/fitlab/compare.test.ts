@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { fitCircleGeometric } from '../../lib/fit/index';
 import {
-  BUILTIN_FITTERS, compareFitters, fitLabSample, GEOMETRIC_FITTER, meritFigure, pullFigure, pValueFigure, type Fitter,
+  BUILTIN_FITTERS, compareFitters, fitLabSample, GEOMETRIC_FITTER, HELIX_FITTER, meritFigure, pullFigure, pValueFigure, type Fitter,
 } from '../../lib/fitlab/index';
 import { chamberMedium } from '../../lib/simulate/index';
 import { glucksternCurvatureSigma } from '../../lib/track/resolution';
@@ -45,6 +45,16 @@ describe('the fit lab on simulated truth', () => {
     expect(low.pullWidth).toBeGreaterThan(1.5);
   });
 
+  it('helix fitter on dipped tracks (tan λ ∈ [−1, 1]): κ and tan λ pulls have width within 10 % of 1; circle fits measure p_T', () => {
+    const s = fitLabSample({ tracks: 2000, momentumGeV: [0.5, 5], lengthsM: [0.6, 1], hitsPerTrack: 40, sigmaM: 3e-4, sigmaZM: 1e-3, tanLambda: [-1, 1], fieldT: 1.5, seed: 12 });
+    const r = compareFitters([GEOMETRIC_FITTER, HELIX_FITTER], s);
+    const [geo, helix] = r.summary;
+    expect(Math.abs(helix.pullWidth - 1)).toBeLessThan(0.1);
+    expect(Math.abs(helix.tanLambdaPullWidth - 1)).toBeLessThan(0.1);
+    expect(Math.abs(geo.momentumBias)).toBeLessThan(0.01);
+    expect(geo.tanLambdaResolution).toBeNaN();
+  });
+
   it('curvature error grows as L⁻² (fact of the trade): halving the length roughly quadruples σ(κ) at fixed hit count', () => {
     const s = fitLabSample({ tracks: 4000, momentumGeV: [3, 10], lengthsM: [0.5, 1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 6 });
     const [short, long] = compareFitters([GEOMETRIC_FITTER], s).byLength;
@@ -78,11 +88,11 @@ describe('the fit lab on simulated truth', () => {
     const s = fitLabSample({ tracks: 300, momentumGeV: [0.5, 5], lengthsM: [0.5, 1], hitsPerTrack: 20, sigmaM: 3e-4, fieldT: 1.5, seed: 8 });
     const r = compareFitters(BUILTIN_FITTERS, s);
     const pulls = pullFigure(r);
-    expect(pulls.data.length).toBe(4);
+    expect(pulls.data.length).toBe(5);
     expect(JSON.parse(JSON.stringify(pulls)).data[0].y.reduce((a: number, b: number) => a + b, 0)).toBeGreaterThan(250);
-    expect(pValueFigure(r).data.length).toBe(4);
+    expect(pValueFigure(r).data.length).toBe(5);
     const res = meritFigure(r, 'momentum', 'momentumResolution');
-    expect(res.data.map((t) => t.name)).toEqual(['kasa', 'taubin', 'geometric']);
+    expect(res.data.map((t) => t.name)).toEqual(['kasa', 'taubin', 'geometric', 'helix']);
     expect((res.layout.xaxis as { type: string }).type).toBe('log');
   });
 });

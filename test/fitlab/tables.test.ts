@@ -6,9 +6,9 @@ describe('fitLabTables(report)', () => {
     const s = fitLabSample({ tracks: 200, momentumGeV: [0.5, 5], lengthsM: [0.5, 1], hitsPerTrack: 20, sigmaM: 3e-4, fieldT: 1.5, seed: 9 });
     const r = compareFitters(BUILTIN_FITTERS, s, { momentumEdgesGeV: [0.5, 1, 2, 5] });
     const t = fitLabTables(r);
-    expect(t.summary.shape).toEqual([3, 13]);
-    expect(t.summary.column('fitter').values).toEqual(['kasa', 'taubin', 'geometric']);
-    expect(t.byMomentum.shape[0]).toBe(9);
-    expect(t.byLength.shape[0]).toBe(6);
+    expect(t.summary.shape).toEqual([4, 15]);
+    expect(t.summary.column('fitter').values).toEqual(['kasa', 'taubin', 'geometric', 'helix']);
+    expect(t.byMomentum.shape[0]).toBe(12);
+    expect(t.byLength.shape[0]).toBe(8);
   });
 });

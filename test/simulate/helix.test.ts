@@ -113,4 +113,21 @@ describe('transportTrack without loss or scattering follows the analytic helix',
     expect(Array.from(mapped.hits.x)).toEqual(Array.from(uniform.hits.x));
     expect(Array.from(mapped.hits.y)).toEqual(Array.from(uniform.hits.y));
   });
+
+  it('a field-map callback: field only for x < 0 — helix there, a straight line (1e-9) once past the edge', () => {
+    const box = chamber({ sizeM: [2, 2, 2], medium: VACUUM, fieldT: (x, _y, _z, out) => { out[0] = 0; out[1] = 0; out[2] = x < 0 ? 1.5 : 0; } });
+    const hits: number[][] = [];
+    transportTrack({ species: PION_MINUS, xM: -0.5, yM: 0, zM: 0, ux: 1, uy: 0, uz: 0, momentumGeV: 1 },
+      box, { ...noLoss, maxPathM: 1.2, sampling: { kind: 'spacing', spacingM: 0.01 } }, seededRandom(1), (x, y, z) => hits.push([x, y, z]));
+    const before = hits.filter((h) => h[0] < -0.01);
+    before.forEach((h, k) => {
+      const a = analytic((k + 1) * 0.01, -1, 1.5, 1, 0, 0, [-0.5, 0, 0]);
+      expect(Math.hypot(h[0] - a[0], h[1] - a[1])).toBeLessThan(1e-9);
+    });
+    const after = hits.filter((h) => h[0] > 0.02);
+    expect(after.length).toBeGreaterThan(40);
+    const [p, q] = [after[0], after[after.length - 1]];
+    const len = Math.hypot(q[0] - p[0], q[1] - p[1]);
+    for (const h of after) expect(Math.abs(((q[0] - p[0]) * (h[1] - p[1]) - (q[1] - p[1]) * (h[0] - p[0])) / len)).toBeLessThan(1e-9);
+  });
 });
