@@ -6,6 +6,7 @@ import { inflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { chromiumPath, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
 import { executedFixture, XSS } from './reportFixture';
+import { plotlySource } from '../../kernel/report/assets';
 
 const OUT = mkdtempSync(join(tmpdir(), 'sagitta-report-'));
 
@@ -32,10 +33,28 @@ describe('renderReport (static checks)', () => {
   it('carries the provenance block: notebook hash, data files, seeds, versions, parameters, per-cell times', () => {
     expect(html).toContain('a'.repeat(64));
     expect(html).toContain('b'.repeat(64));
-    expect(html).toMatch(/Sagitta 0\.1\.0 · Node \d+\.\d+\.\d+ · TypeScript 5\.9\.3/);
+    expect(html).toContain("Sagitta 0.1.0 · Node 20.19.0 · TypeScript 5.9.3");
     expect(html).toContain('fieldT');
     expect(html).toContain('<td>simulate</td>');
     expect(html).toContain('40 ms');
+  });
+
+  it('matches its golden file (plotly.js and its hash replaced by placeholders)', () => {
+    const plotly = plotlySource();
+    const at = html.indexOf(plotly.slice(0, 200));
+    expect(at).toBeGreaterThan(0);
+    const golden = (html.slice(0, at) + '/* plotly.min.js inlined here */' + html.slice(at + plotly.length))
+      .replace(/'sha256-[A-Za-z0-9+/=]+'/, "'sha256-(plotly)'");
+    const file = join(import.meta.dirname, 'report-golden', 'fixture.html');
+    if (process.env.SAGITTA_UPDATE_GOLDEN === '1' || !existsSync(file)) writeFileSync(file, golden);
+    expect(golden).toBe(readFileSync(file, 'utf8'));
+  });
+
+  it('renderMarkdown embeds attachment: images as data URLs and drops remote images', () => {
+    const png = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==';
+    const out = renderMarkdown('![dot](attachment:dot.png) ![far](https://example.org/x.png)', { 'dot.png': { 'image/png': png } });
+    expect(out).toContain(`<img src="data:image/png;base64,${png}" alt="dot" />`);
+    expect(out).not.toContain('example.org');
   });
 
   it('renderMarkdown typesets $…$ as MathML and strips raw <script> and handlers', () => {

@@ -34,7 +34,7 @@ export function executedFixture(): ReportInput {
       reason: 'cell 6 raised RangeError: bad <field>',
       parameters: { fieldT: 0.5, label: XSS },
       provenance: { inputs: [{ name: `hits${XSS}.csv`, path: '/x/hits.csv', sizeBytes: 1234, sha256: 'b'.repeat(64), firstReadAt: t0 }], seeds: [{ seed: 7, label: 'simulate' }] },
-      versions: { sagitta: '0.1.0', node: process.versions.node, typescript: '5.9.3' },
+      versions: { sagitta: '0.1.0', node: '20.19.0', typescript: '5.9.3' },
     },
   };
 }

@@ -49,7 +49,7 @@ Exit codes: 0 every cell ran without error; 1 a cell failed, timed out or ended 
 the notebook could not be read; 2 bad usage.
 
 Example:
-  sagitta run notebooks/01-chamber-momenta.ipynb --html report.html --set fieldT=1.2 --cell-timeout 60s`)
+  sagitta run notebooks/01-brindlemoor-bending.ipynb --html report.html --set fieldT=1.2 --cell-timeout 60s`)
     .action(async (notebook: string, options: RunCommandOptions) => {
       const result = await runCommand(notebook, options);
       process.stderr.write(`${result.summary}\n`);
@@ -73,7 +73,6 @@ export interface RunCommandResult {
 export async function runCommand(notebook: string, options: RunCommandOptions): Promise<RunCommandResult> {
   const { parseDuration, parseSetArguments, runNotebook } = await import('../../runner/index');
   const { writeNotebook, writeFileAtomic } = await import('../../notebook/write');
-  const { renderReport, printReportPdf } = await import('../../report/index');
   const cellTimeoutMs = parseDuration(options.cellTimeout);
   const parameters = parseSetArguments(options.set ?? []);
   const executedPath = options.writeBack ? notebook : options.executed === false ? undefined : (options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`);
@@ -82,7 +81,12 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
     throw msg.badArgument('--executed', executedPath, 'a path other than the source notebook (use --write-back to replace the source on purpose)');
   }
 
-  const result = await runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, parameters });
+  // Start the notebook process first; the report modules load while it boots.
+  const running = runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, parameters });
+  const wantReport = options.html !== undefined || options.pdf !== undefined;
+  const report = wantReport ? import('../../report/index') : undefined;
+  report?.catch(() => undefined);
+  const result = await running;
   const written: string[] = [];
   if (executedPath !== undefined) {
     writeNotebook(executedPath, result.notebook);
@@ -90,7 +94,8 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
   }
   let htmlPath: string | undefined;
   let pdfPath: string | undefined;
-  if (options.html !== undefined || options.pdf !== undefined) {
+  if (report !== undefined) {
+    const { renderReport, printReportPdf } = await report;
     const html = renderReport({ notebook: result.notebook, run: result.run, codeOpen: !options.hideCode });
     htmlPath = options.html ?? `${options.pdf!.replace(/\.pdf$/i, '')}.html`;
     writeFileAtomic(htmlPath, html);
@@ -103,6 +108,7 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
   }
   const code = result.notebook.cells.filter((c) => c.cell_type === 'code');
   const ran = code.filter((c) => (c.metadata.sagitta as { outcome?: string } | undefined)?.outcome !== 'not-run').length;
-  const summary = `ran ${ran} of ${code.length} code cells in ${(result.run.wallMs / 1000).toFixed(2)} s (start-up ${(result.startMs / 1000).toFixed(2)} s)\n${written.join('\n')}`;
+  const startup = Number.isFinite(result.startMs) ? ` (start-up ${(result.startMs / 1000).toFixed(2)} s)` : '';
+  const summary = `ran ${ran} of ${code.length} code cells in ${(result.run.wallMs / 1000).toFixed(2)} s${startup}\n${written.join('\n')}`;
   return { exitCode: result.exitCode, reason: result.reason, summary, executedPath, htmlPath, pdfPath };
 }
