@@ -314,6 +314,7 @@ export class KernelServer {
       silent?: boolean;
       store_history?: boolean;
       stop_on_error?: boolean;
+      user_expressions?: Record<string, unknown>;
     };
     const code = c.code ?? '';
     const silent = c.silent === true;
@@ -356,7 +357,8 @@ export class KernelServer {
       if (outcome.result && !silent) {
         await this.publish('execute_result', { execution_count: count, data: jsonSafe(outcome.result), metadata: {} }, parent);
       }
-      await this.reply('shell', msg, 'execute_reply', { status: 'ok', execution_count: count, user_expressions: {}, payload: [] }, { started, status: 'ok' });
+      const userExpressions = await this.evaluateUserExpressions(session, c.user_expressions);
+      await this.reply('shell', msg, 'execute_reply', { status: 'ok', execution_count: count, user_expressions: userExpressions, payload: [] }, { started, status: 'ok' });
       return;
     }
     const error = outcome.error ?? { ename: 'Error', evalue: 'the cell failed', traceback: [] };
@@ -374,6 +376,23 @@ export class KernelServer {
       { status: 'error', execution_count: count, ename: error.ename, evalue: error.evalue, traceback: error.traceback },
       { started, status: 'error' },
     );
+  }
+
+  /**
+   * The spec's user_expressions: each expression is evaluated after the cell, quietly, and its
+   * value returned as a MIME bundle (or its error), keyed by the client's names.
+   */
+  private async evaluateUserExpressions(session: Session, expressions: Record<string, unknown> | undefined): Promise<Record<string, unknown>> {
+    const out: Record<string, unknown> = {};
+    const quiet: CellHooks = { stream: () => {}, display: () => {} };
+    for (const [name, expression] of Object.entries(expressions ?? {})) {
+      const r = await session.execute(String(expression), quiet);
+      out[name] =
+        r.status === 'ok'
+          ? { status: 'ok', data: jsonSafe(r.result ?? { 'text/plain': 'undefined' }), metadata: {} }
+          : { status: 'error', ename: r.error?.ename ?? 'Error', evalue: r.error?.evalue ?? '', traceback: r.error?.traceback ?? [] };
+    }
+    return out;
   }
 
   /** Reply to an execute request that was queued behind a failed cell. */

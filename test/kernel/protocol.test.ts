@@ -114,6 +114,21 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     expect(typeof data['text/plain']).toBe('string');
   });
 
+  it('user_expressions are evaluated after the cell and returned in the reply as MIME bundles', async () => {
+    const { reply, iopub } = await run('const fieldT = 1.5;', { user_expressions: { field: 'fieldT * 10', broken: 'notDefinedAnywhere' } });
+    expect(reply.content.user_expressions.field).toEqual({ status: 'ok', data: { 'text/plain': '15' }, metadata: {} });
+    expect(reply.content.user_expressions.broken.status).toBe('error');
+    expect(types(iopub)).not.toContain('execute_result');
+  });
+
+  it('silent execution publishes no execute_input and no result and leaves the counter alone', async () => {
+    const before = (await run('"count"')).reply.content.execution_count;
+    const { reply, iopub } = await run('console.log("quiet"); 42', { silent: true, store_history: false });
+    expect(reply.content.status).toBe('ok');
+    expect(types(iopub).filter((t) => t !== 'status')).toEqual([]);
+    expect((await run('"next"')).reply.content.execution_count).toBe(before + 1);
+  });
+
   it('an error cell publishes error and replies status error with ename, evalue and traceback', async () => {
     const { reply, iopub } = await run('function deep(): never { throw new RangeError("field map ends at 2 m"); }\ndeep();');
     expect(reply.content.status).toBe('error');
