@@ -8,7 +8,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, simulateChamber } from 'sagitta';
+import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, simulateChamber } from 'sagitta';
 
 const here = dirname(fileURLToPath(import.meta.url));
 
@@ -34,11 +34,17 @@ export function makeDemoFiles(name: string): Record<string, string> {
   };
 }
 
+/** The JSON Schema of scenario files, kept beside them so that editors can check them. */
+export function schemaFile(): Record<string, string> {
+  return { 'scenario.schema.json': JSON.stringify(SCENARIO_SCHEMA, null, 2) + '\n' };
+}
+
 function main(): void {
   const check = process.argv.includes('--check');
   let differ = 0;
-  for (const name of Object.keys(DEMO_SEEDS)) {
-    for (const [file, text] of Object.entries(makeDemoFiles(name))) {
+  const outputs = [schemaFile(), ...Object.keys(DEMO_SEEDS).map(makeDemoFiles)];
+  for (const files of outputs) {
+    for (const [file, text] of Object.entries(files)) {
       const path = join(here, file);
       if (check) {
         let old = '';

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseHitsCsv } from '../../lib/io/index';
 import { formatHitsCsv, formatTruthCsv, parseScenario, simulateChamber } from '../../lib/simulate/index';
-import { DEMO_SEEDS, makeDemoFiles } from '../../notebooks/data/make-data';
+import { DEMO_SEEDS, makeDemoFiles, schemaFile } from '../../notebooks/data/make-data';
 
 const scenarioText = readFileSync(new URL('../../notebooks/data/brindlemoor.scenario.json', import.meta.url), 'utf8');
 
@@ -25,6 +25,11 @@ describe('the simulator is seeded and reproducible', () => {
       const sha = (b: Uint8Array | string) => createHash('sha256').update(b).digest('hex');
       expect(sha(committed), `${name} differs from a regeneration; run npx tsx notebooks/data/make-data.ts`).toBe(sha(text));
     }
+  });
+
+  it('notebooks/data/scenario.schema.json is the schema the code validates with', () => {
+    const [[name, text]] = Object.entries(schemaFile());
+    expect(readFileSync(new URL(`../../notebooks/data/${name}`, import.meta.url), 'utf8')).toBe(text);
   });
 
   it('the demo hits file reads back through lib/io with the simulated rows, units and seed-stable values', () => {

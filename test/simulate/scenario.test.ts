@@ -83,7 +83,7 @@ describe('scenario files: schema validation with errors that name the path', () 
 
   it('broken JSON is reported with line and column', () => {
     const bad = demoText.replace('"medium": "liquid hydrogen",', '"medium": "liquid hydrogen"');
-    expect(() => parseScenario(bad, 'x.json')).toThrow(/x\.json: not valid JSON \(line 8, column 5\)/);
+    expect(() => parseScenario(bad, 'x.json')).toThrow(/x\.json: not valid JSON \(line 9, column 5\)/);
   });
 
   it('planes given as from/to/count become evenly spaced positions', () => {
