@@ -4,9 +4,10 @@
  * tslab; the messaging layer is ours (kernel/protocol).
  *
  * What a session adds around the executor:
- * - output capture: while a cell runs, process.stdout/stderr writes and the global console go to
- *   the cell's hooks as `stream` output, and the display channel (lib/plot/display.ts) goes to
- *   `hooks.display`;
+ * - output capture: from the first cell until `close()`, process.stdout/stderr writes and the
+ *   global console go to the running cell's hooks as `stream` output, and the display channel
+ *   (lib/plot/display.ts) to `hooks.display`; output a cell's timers or promises produce after
+ *   it ended goes to the hooks of the cell that ran last, as a notebook shows it under that cell;
  * - the value of the last expression comes back as a MIME bundle (`mimeBundleOf`), not printed;
  * - errors come back as { ename, evalue, traceback }, type errors as `CompileError`;
  * - "sagitta" is importable from a notebook in any folder (see moduleRoot.ts);
@@ -73,6 +74,8 @@ export function createSession(options: SessionOptions): Session {
   const executor = createExecutor(workDir, { node: converter, browser: converter, close: () => converter.close() }, executorConsole);
 
   let running = false;
+  let currentHooks: CellHooks | undefined;
+  let restoreOutput: (() => void) | undefined;
   let interruptRequested = false;
   let closed = false;
 
@@ -81,7 +84,8 @@ export function createSession(options: SessionOptions): Session {
     await libraryReady;
     capture = { diagnostics: [] };
     interruptRequested = false;
-    const restore = redirectOutput(hooks);
+    currentHooks = hooks;
+    restoreOutput ??= redirectOutput(() => currentHooks);
     running = true;
     let ok: boolean;
     try {
@@ -91,7 +95,6 @@ export function createSession(options: SessionOptions): Session {
       ok = false;
     } finally {
       running = false;
-      restore();
     }
     if (ok) {
       if (capture.value === undefined) return { status: 'ok' };
@@ -162,6 +165,8 @@ export function createSession(options: SessionOptions): Session {
   function close(): void {
     if (closed) return;
     closed = true;
+    restoreOutput?.();
+    restoreOutput = undefined;
     executor.close();
     releaseRequireHook();
   }
@@ -177,10 +182,10 @@ function completeOrInvalid(code: string): Completeness {
 }
 
 /**
- * Sends the cell's stdout/stderr writes, console output and displays to its hooks until the
- * returned function is called.
+ * Sends stdout/stderr writes, console output and displays to the hooks `current()` returns
+ * until the returned function is called.
  */
-function redirectOutput(hooks: CellHooks): () => void {
+function redirectOutput(current: () => CellHooks | undefined): () => void {
   const out = process.stdout as unknown as { write: unknown };
   const err = process.stderr as unknown as { write: unknown };
   const savedOut = out.write;
@@ -189,7 +194,7 @@ function redirectOutput(hooks: CellHooks): () => void {
   const writer = (name: 'stdout' | 'stderr') =>
     function write(chunk: unknown, encoding?: unknown, callback?: unknown): boolean {
       const text = typeof chunk === 'string' ? chunk : Buffer.from(chunk as Uint8Array).toString(typeof encoding === 'string' ? (encoding as BufferEncoding) : 'utf8');
-      if (text.length > 0) hooks.stream(name, text);
+      if (text.length > 0) current()?.stream(name, text);
       const done = typeof encoding === 'function' ? encoding : callback;
       if (typeof done === 'function') queueMicrotask(() => (done as () => void)());
       return true;
@@ -201,12 +206,12 @@ function redirectOutput(hooks: CellHooks): () => void {
       decodeStrings: false,
       write(chunk: unknown, _encoding, done) {
         const text = typeof chunk === 'string' ? chunk : Buffer.from(chunk as Uint8Array).toString('utf8');
-        if (text.length > 0) hooks.stream(name, text);
+        if (text.length > 0) current()?.stream(name, text);
         done();
       },
     });
   globalThis.console = new Console({ stdout: sink('stdout'), stderr: sink('stderr'), colorMode: false });
-  const savedSink = setDisplaySink((bundle, options) => hooks.display(bundle, options));
+  const savedSink = setDisplaySink((bundle, options) => current()?.display(bundle, options));
   return () => {
     out.write = savedOut;
     err.write = savedErr;

@@ -60,7 +60,7 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
     expect(out.result).toEqual({ 'text/plain': '6' });
   });
 
-  it('sends console and process.stdout/stderr writes to the stream hook only while the cell runs', async () => {
+  it('sends console and process.stdout/stderr writes to the running cell\'s stream hook', async () => {
     const r = recorder();
     await session.execute('console.log("a", 1);\nprocess.stdout.write("b\\n");\nconsole.error("c");', r.hooks);
     expect(r.streams).toEqual([
@@ -68,7 +68,14 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
       { name: 'stdout', text: 'b\n' },
       { name: 'stderr', text: 'c\n' },
     ]);
-    expect(typeof process.stdout.write).toBe('function');
+  });
+
+  it('output a cell\'s timer makes after the cell ended goes to the hooks of the cell that ran last', async () => {
+    const first = recorder();
+    await session.execute('setTimeout(() => console.log("late"), 50);', first.hooks);
+    expect(first.streams).toEqual([]);
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    expect(first.streams).toEqual([{ name: 'stdout', text: 'late\n' }]);
   });
 
   it('present / refresh reach the display hook with the display id and the update flag', async () => {
