@@ -95,12 +95,15 @@ describe('sagitta run (child process per run)', { timeout: 180_000 }, () => {
     expect(page).toContain('field out of range');
   }, 180_000);
 
-  it('--keep-going runs the cells after a failure and still exits 1', async () => {
-    const { dir, file } = notebookFile([code('throw new Error("first")'), code('console.log("second ran")')]);
-    const r = await runCommand(file, { cellTimeout: '60s', set: [], keepGoing: true, executed: join(dir, 'o.ipynb') });
+  it('--keep-going runs the cells after a failure and still exits 1; --write-back replaces the source only when asked', async () => {
+    const { file } = notebookFile([code('throw new Error("first")'), code('console.log("second ran")')]);
+    await expect(runCommand(file, { cellTimeout: '60s', set: [], executed: file })).rejects.toThrow(/^--executed = .*(use --write-back to replace the source on purpose)/);
+    const r = await runCommand(file, { cellTimeout: '60s', set: [], keepGoing: true, writeBack: true });
     expect(r.exitCode).toBe(1);
     expect(r.reason).toBe('cell 2 failed: Error: first (all cells ran: --keep-going)');
-    const nb = readJson(join(dir, 'o.ipynb'));
+    expect(r.executedPath).toBe(file);
+    const nb = readJson(file);
+    expect(validate(nb).errors).toEqual([]);
     expect(outcomes(nb)).toEqual(['failed', 'done']);
   }, 180_000);
 
