@@ -1,6 +1,7 @@
 import { fork, type ChildProcess } from 'node:child_process';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { msg } from '../../lib/errors';
 import type { ProvenanceSnapshot } from '../../lib/provenance';
 import { sagittaVersion } from '../cli/version';
 import { readNotebook } from '../notebook/read';
@@ -57,6 +58,7 @@ type CellEnd =
 export async function runNotebook(path: string, options: RunNotebookOptions = {}): Promise<NotebookRun> {
   const o = { ...DEFAULTS, ...options };
   const loaded = readNotebook(path);
+  checkLanguage(loaded.notebook, path);
   const parameters = { ...(options.parameters ?? {}) };
   const nb = injectParameters(upgradeNotebook(loaded.notebook), parameters, path);
   for (const cell of nb.cells) {
@@ -207,6 +209,15 @@ function pushStream(cell: CodeCell, name: 'stdout' | 'stderr', text: string): vo
   const last = cell.outputs[cell.outputs.length - 1];
   if (last && last.output_type === 'stream' && last.name === name) last.text = joinSource(last.text) + text;
   else cell.outputs.push({ output_type: 'stream', name, text });
+}
+
+/** A notebook written for another language (its kernelspec or language_info says so) is refused before anything runs. */
+function checkLanguage(nb: Notebook, path: string): void {
+  const meta = nb.metadata as { kernelspec?: { language?: unknown }; language_info?: { name?: unknown } };
+  const language = meta.kernelspec?.language ?? meta.language_info?.name;
+  if (typeof language === 'string' && !/^(typescript|javascript|ts|js)$/i.test(language)) {
+    throw msg.badNotebook(path, `is written for ${language}; sagitta runs TypeScript notebooks (metadata.kernelspec.language "typescript")`);
+  }
 }
 
 function markNotRun(nb: Notebook, from: number): void {

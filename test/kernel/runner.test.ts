@@ -135,6 +135,13 @@ describe('sagitta run (child process per run)', { timeout: 180_000 }, () => {
     expect((nb.cells[2] as { outputs: Array<{ ename?: string }> }).outputs.at(-1)?.ename).toBe('ProcessExit');
   }, 180_000);
 
+  it('a notebook written for another language is refused before anything runs', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sagitta-run-'));
+    const file = join(dir, 'py.ipynb');
+    writeFileSync(file, JSON.stringify({ nbformat: 4, nbformat_minor: 5, metadata: { kernelspec: { name: 'x', display_name: 'X', language: 'python' } }, cells: [] }));
+    await expect(runCommand(file, { cellTimeout: '60s', set: [] })).rejects.toThrow(/py\.ipynb: is written for python; sagitta runs TypeScript notebooks/);
+  });
+
   it('a truncated .ipynb: exit 1 naming the file and the JSON problem; nothing written, source unchanged', () => {
     const dir = mkdtempSync(join(tmpdir(), 'sagitta-run-'));
     const file = join(dir, 'cut.ipynb');
