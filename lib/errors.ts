@@ -25,7 +25,8 @@ export type SagittaErrorCode =
   | 'UNKNOWN_FORMAT'
   | 'BAD_SCENARIO'
   | 'BAD_NOTEBOOK'
-  | 'OUTSIDE_VALIDITY';
+  | 'OUTSIDE_VALIDITY'
+  | 'CANNOT_WRITE';
 
 /** Where in an input a problem sits; all fields optional so callers fill what they know. */
 export interface SourceLocation {
@@ -112,6 +113,9 @@ export const msg = {
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),
 
   /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
+  cannotWrite: (path: string, reason: string, fix: string) =>
+    new SagittaError('CANNOT_WRITE', `${path}: cannot write here (${reason}); ${fix}`, { file: path }),
+
   outsideValidity: (what: string, value: string, valid: string) =>
     new SagittaError('OUTSIDE_VALIDITY', `${what} ${value} is outside the validity range ${valid}; choose a value inside it`),
 } as const;
