@@ -7,6 +7,7 @@ import { recordInput } from '../provenance';
 import { fieldTesla, energyMeV, lengthMetres, momentumGeV } from '../units';
 import { chamber, insideChamber, type Chamber } from './chamber';
 import { chamberMedium } from './chamber-medium';
+import { jsonPointerLines, withLines } from './json-pointer-lines';
 import { VACUUM } from './medium';
 import { SCENARIO_SCHEMA } from './scenario-schema';
 import type { MeasurementModel, SimulationConfig, Source, TransportSettings } from './simulate';
@@ -67,8 +68,9 @@ function describeErrors(errors: readonly ErrorObject[]): string {
 
 /**
  * Reads, validates (JSON Schema, `SCENARIO_SCHEMA`) and resolves a scenario file into a
- * `SimulationConfig`. Every problem is a BAD_SCENARIO error naming the file and the JSON path of
- * the bad field (e.g. "run.json: /sources/1/momentum: …"); bad JSON names line and column.
+ * `SimulationConfig`. Every problem is a BAD_SCENARIO error naming the file, the JSON path of
+ * the bad field and its line (e.g. "run.json: /sources/1/momentum (line 23): …"); bad JSON names
+ * line and column.
  * Records the file in the provenance registry.
  * @example readScenario('notebooks/data/ember-hollow.scenario.json').sources.length
  */
@@ -91,7 +93,14 @@ export function parseScenario(text: string, file = '(scenario)'): SimulationConf
   } catch (err) {
     throw msg.badScenario(file, `not valid JSON (${jsonErrorPlace(text, err)}); check commas, quotes and brackets`);
   }
-  return resolveScenario(doc, file);
+  try {
+    return resolveScenario(doc, file);
+  } catch (err) {
+    if (err instanceof SagittaError && err.code === 'BAD_SCENARIO') {
+      throw new SagittaError('BAD_SCENARIO', withLines(err.message, jsonPointerLines(text)), err.where);
+    }
+    throw err;
+  }
 }
 
 function jsonErrorPlace(text: string, err: unknown): string {
@@ -120,7 +129,7 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
       throw err;
     }
   };
-  const len = (text: unknown, path: string) => at(path, () => lengthMetres(String(text)));
+  const len = (text: unknown, path: string) => at(path, () => lengthMetres(String(text), { what: fieldName(path) }));
   const angle = (text: unknown, path: string) => at(path, () => {
     try {
       const u = mathUnit(String(text));
@@ -135,8 +144,8 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
   const mediumName = String(ch.medium);
   const medium = mediumName.trim().toLowerCase() === 'vacuum' ? VACUUM : at('/chamber/medium', () => chamberMedium(mediumName));
   const fieldT: [number, number, number] = typeof ch.field === 'string'
-    ? [0, 0, at('/chamber/field', () => fieldTesla(ch.field as string))]
-    : (ch.field as string[]).map((s, i) => at(`/chamber/field/${i}`, () => fieldTesla(s))) as [number, number, number];
+    ? [0, 0, at('/chamber/field', () => fieldTesla(ch.field as string, { what: 'the field' }))]
+    : (ch.field as string[]).map((s, i) => at(`/chamber/field/${i}`, () => fieldTesla(s, { what: 'the field' }))) as [number, number, number];
   const box: Chamber = at('/chamber/size', () => chamber({ sizeM: size, medium, fieldT }));
 
   const tr = (d.transport ?? {}) as Json;
@@ -145,7 +154,7 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
     scattering: (tr.scattering as boolean | undefined) ?? SCENARIO_DEFAULTS.scattering,
     maxStepM: tr.maxStep !== undefined ? positive(len(tr.maxStep, '/transport/maxStep'), '/transport/maxStep', file) : SCENARIO_DEFAULTS.maxStepM,
     maxPathM: tr.maxPath !== undefined ? positive(len(tr.maxPath, '/transport/maxPath'), '/transport/maxPath', file) : SCENARIO_DEFAULTS.maxPathM,
-    deltaRayMinMeV: tr.deltaRaysAbove !== undefined ? positive(at('/transport/deltaRaysAbove', () => energyMeV(tr.deltaRaysAbove as string)), '/transport/deltaRaysAbove', file) : 0,
+    deltaRayMinMeV: tr.deltaRaysAbove !== undefined ? positive(at('/transport/deltaRaysAbove', () => energyMeV(tr.deltaRaysAbove as string, { what: 'the δ-ray threshold' })), '/transport/deltaRaysAbove', file) : 0,
   };
 
   const me = d.measurement as Json;
@@ -205,7 +214,7 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
         kind: 'beam',
         events: s.events as number,
         species,
-        momentumGeV: positive(at(`${p}/momentum`, () => momentumGeV(s.momentum as string)), `${p}/momentum`, file),
+        momentumGeV: positive(at(`${p}/momentum`, () => momentumGeV(s.momentum as string, { what: 'the momentum' })), `${p}/momentum`, file),
         momentumSpread: (s.momentumSpread as number | undefined) ?? SCENARIO_DEFAULTS.momentumSpread,
         originM: origin(s.origin),
         direction: dir(s.direction),
@@ -215,7 +224,7 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
       };
     }
     if (type === 'cosmic') {
-      const [lo, hi] = (s.momentumRange as string[]).map((t, k) => at(`${p}/momentumRange/${k}`, () => momentumGeV(t)));
+      const [lo, hi] = (s.momentumRange as string[]).map((t, k) => at(`${p}/momentumRange/${k}`, () => momentumGeV(t, { what: 'the momentum range' })));
       if (!(lo > 0 && hi > lo)) throw msg.badScenario(file, `${p}/momentumRange: need 0 < low < high, got ${lo} and ${hi} GeV/c`);
       return {
         kind: 'cosmic',
@@ -245,6 +254,12 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
   });
 
   return { name: d.name as string, chamber: box, transport, measurement, sources };
+}
+
+/** "the spacing" for "/measurement/spacing", "the size" for "/chamber/size/0". */
+function fieldName(path: string): string {
+  const parts = path.split('/').filter((x) => x !== '' && !/^\d+$/.test(x));
+  return `the ${parts[parts.length - 1] ?? 'value'}`;
 }
 
 function positive(v: number, path: string, file: string): number {

@@ -137,7 +137,9 @@ export function transportTrack(
   const planes = sampling.kind === 'planes' ? sortedPlanes(sampling.positionsM) : NO_PLANES;
   const axis = sampling.kind === 'planes' ? sampling.axis : 0;
   const deltaMin = options.deltaRayMinMeV ?? 0;
-  const wantDelta = onDelta !== undefined && deltaMin > 0 && chamber.medium.zOverA > 0;
+  // e± parents would need Møller/Bhabha kinematics (identical or annihilating partners), which the
+  // heavy-particle δ-ray spectrum does not describe: they emit none.
+  const wantDelta = onDelta !== undefined && deltaMin > 0 && chamber.medium.zOverA > 0 && mass > 1;
 
   let kinetic = Math.sqrt(start.momentumGeV * start.momentumGeV * 1e6 + mass * mass) - mass;
   let range = lossOn ? loss.rangeM(kinetic) : Infinity;
