@@ -21,3 +21,4 @@ export {
 export { SCENARIO_SCHEMA } from './scenario-schema';
 export { readScenario, parseScenario, resolveScenario, SCENARIO_DEFAULTS } from './scenario';
 export { formatHitsCsv, formatTruthCsv, formatRunRecord, TRUTH_CSV_COLUMNS } from './simulation-csv';
+export { truthToDataFrame } from './truth-frame';

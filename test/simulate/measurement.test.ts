@@ -63,3 +63,14 @@ describe('measurement model', () => {
     expect(Math.abs(plus / (t.length - plus) - 1.27)).toBeLessThan(0.12);
   });
 });
+
+describe('truthToDataFrame', () => {
+  it('gives one row per particle with the CSV columns in mm and MeV/c', async () => {
+    const { truthToDataFrame } = await import('../../lib/simulate/index');
+    const r = run({}, 5);
+    const df = truthToDataFrame(r.truth);
+    expect(df.shape).toEqual([r.truth.length, 19]);
+    expect(df.column('p_MeV').values[0]).toBeCloseTo(2000, 6);
+    expect(df.column('species').values[0]).toBe('pi-');
+  });
+});
