@@ -16,7 +16,7 @@ export class FigureStore {
 }
 
 /** The richest representation we can show safely, in this order. */
-const MIME_ORDER = [PLOTLY_MIME, 'image/svg+xml', 'image/png', 'image/jpeg', 'image/gif', 'text/html', 'text/markdown', 'text/latex', 'text/plain'] as const;
+const MIME_ORDER = [PLOTLY_MIME, 'image/svg+xml', 'image/png', 'image/jpeg', 'image/gif', 'text/html', 'text/markdown', 'text/latex', 'application/json', 'text/plain'] as const;
 
 /** Renders one output of a code cell. Every string taken from the output is escaped or sanitized. */
 export function renderOutput(o: Output, figures: FigureStore): string {
@@ -59,6 +59,8 @@ function renderBundle(data: Record<string, unknown>, figures: FigureStore, isRes
       return `<div class="${cls} sg-md">${renderMarkdown(text('text/markdown'))}</div>`;
     case 'text/latex':
       return `<div class="${cls} sg-math">${renderTex(text('text/latex').trim().replace(/^\$+|\$+$/g, ''), true)}</div>`;
+    case 'application/json':
+      return `<pre class="${cls}">${escapeHtml(JSON.stringify(data['application/json'], null, 2) ?? 'null')}</pre>`;
     case 'text/plain':
       return `<pre class="${cls}">${escapeHtml(stripAnsi(text('text/plain')))}</pre>`;
     default:

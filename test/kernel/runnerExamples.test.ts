@@ -1,3 +1,4 @@
+import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -56,5 +57,17 @@ describe.each(examples)('example notebook %s', (name) => {
     } finally {
       await browser.close();
     }
+  }, 300_000);
+});
+
+describe('sagitta demo (npm run demo)', () => {
+  it('runs the first example notebook and writes report.html in the folder it was started from, saying where', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sagitta-demo-'));
+    const bin = resolve(import.meta.dirname, '..', '..', 'kernel', 'bin', 'sagitta.js');
+    const res = spawnSync(process.execPath, [bin, 'demo'], { cwd: dir, encoding: 'utf8', timeout: 280_000, env: { ...process.env, INIT_CWD: dir } });
+    expect(res.stderr).toContain('01-brindlemoor-bending.ipynb');
+    expect(res.status).toBe(0);
+    expect(res.stdout.trim()).toBe(`Report written to ${join(dir, 'report.html')} — one self-contained file; open it in any browser, no network needed.`);
+    expect(readFileSync(join(dir, 'report.html'), 'utf8')).toContain('<title>Bending in the Brindlemoor chamber</title>');
   }, 300_000);
 });

@@ -27,13 +27,15 @@ export function registerDemo(program: Command): void {
     .option('--cell-timeout <duration>', 'longest one cell may run', '300s')
     .action(async (options: { out: string; cellTimeout: string }) => {
       const notebook = firstExampleNotebook();
+      // `npm run demo` runs in the package folder; INIT_CWD is the folder the user typed it in.
+      const out = resolve(process.env.INIT_CWD ?? process.cwd(), options.out);
       process.stderr.write(`running ${notebook} …\n`);
-      const result = await runCommand(notebook, { html: options.out, executed: false, cellTimeout: options.cellTimeout, set: [] });
+      const result = await runCommand(notebook, { html: out, executed: false, cellTimeout: options.cellTimeout, set: [] });
       process.stderr.write(`${result.summary}\n`);
       if (result.exitCode !== 0) {
         process.stderr.write(`sagitta: ${result.reason}\n`);
         process.exitCode = result.exitCode;
       }
-      process.stdout.write(`Report written to ${resolve(options.out)} — one self-contained file; open it in any browser, no network needed.\n`);
+      process.stdout.write(`Report written to ${out} — one self-contained file; open it in any browser, no network needed.\n`);
     });
 }
