@@ -240,7 +240,7 @@ export function transportTrack(
     const pEndStep = Math.sqrt(kineticEnd * (kineticEnd + 2 * mass)) * 1e-3;
     if (options.scattering && !stopping) {
       const eMid = kineticMid + mass;
-      const theta0 = loss.theta0Rad(pMid, Math.sqrt(kineticMid * (kineticMid + 2 * mass)) / eMid, s, path - s);
+      const theta0 = loss.theta0Rad(pMid, Math.min(1, Math.sqrt(kineticMid * (kineticMid + 2 * mass)) / eMid), s, path - s);
       if (theta0 > 0) kick(st, theta0 * rng.gaussian(), theta0 * rng.gaussian());
     }
     if (wantDelta && !stopping) {
