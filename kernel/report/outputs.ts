@@ -15,6 +15,15 @@ export class FigureStore {
   }
 }
 
+/**
+ * Text as a terminal would leave it: a carriage return (progress counters) starts its line over,
+ * so only what follows the last one on each line remains.
+ * @example collapseCarriageReturns('10%\r50%\r100%\n') // '100%\n'
+ */
+export function collapseCarriageReturns(text: string): string {
+  return text.replace(/\r\n/g, '\n').split('\n').map((line) => line.slice(line.lastIndexOf('\r') + 1)).join('\n');
+}
+
 /** The richest representation we can show safely, in this order. */
 const MIME_ORDER = [PLOTLY_MIME, 'image/svg+xml', 'image/png', 'image/jpeg', 'image/gif', 'text/html', 'text/markdown', 'text/latex', 'application/json', 'text/plain'] as const;
 
@@ -22,7 +31,7 @@ const MIME_ORDER = [PLOTLY_MIME, 'image/svg+xml', 'image/png', 'image/jpeg', 'im
 export function renderOutput(o: Output, figures: FigureStore): string {
   switch (o.output_type) {
     case 'stream':
-      return `<pre class="sg-out sg-${o.name === 'stderr' ? 'stderr' : 'stdout'}">${escapeHtml(stripAnsi(joinSource(o.text)))}</pre>`;
+      return `<pre class="sg-out sg-${o.name === 'stderr' ? 'stderr' : 'stdout'}">${escapeHtml(collapseCarriageReturns(stripAnsi(joinSource(o.text))))}</pre>`;
     case 'error': {
       const trace = o.traceback.map(stripAnsi).join('\n');
       return `<div class="sg-out sg-error" role="alert"><div class="sg-error-head"><b>${escapeHtml(o.ename)}</b>: ${escapeHtml(o.evalue)}</div>` +

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { inflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromiumPath, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
+import { chromiumPath, collapseCarriageReturns, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
 import { executedFixture, XSS } from './reportFixture';
 import { plotlySource } from '../../kernel/report/assets';
 
@@ -55,6 +55,10 @@ describe('renderReport (static checks)', () => {
     const out = renderMarkdown('![dot](attachment:dot.png) ![far](https://example.org/x.png)', { 'dot.png': { 'image/png': png } });
     expect(out).toContain(`<img src="data:image/png;base64,${png}" alt="dot" />`);
     expect(out).not.toContain('example.org');
+  });
+
+  it('collapseCarriageReturns keeps what a terminal would show', () => {
+    expect(collapseCarriageReturns('10%\r50%\r100%\nnext\r\nend')).toBe('100%\nnext\nend');
   });
 
   it('renderMarkdown typesets $…$ as MathML and strips raw <script> and handlers', () => {

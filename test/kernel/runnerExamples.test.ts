@@ -19,6 +19,7 @@ describe.each(examples)('example notebook %s', (name) => {
     const dir = mkdtempSync(join(tmpdir(), 'sagitta-example-'));
     const source = join(NOTEBOOKS, name);
     const before = readFileSync(source);
+    expect(validate(JSON.parse(before.toString('utf8'))).errors).toEqual([]); // the file as shipped is nbformat 4.5 too
     const executed = join(dir, 'executed.ipynb');
     const html = join(dir, 'report.html');
     const r = await runCommand(source, { cellTimeout: '300s', set: [], executed, html });
