@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { basename } from 'node:path';
+import { basename, dirname, resolve } from 'node:path';
 import type { Cell, SagittaCellMeta } from '../notebook/types';
 import { joinSource } from '../notebook/source';
 import { plotlySource } from './assets';
@@ -57,6 +57,7 @@ export function renderReport(input: ReportInput): string {
   // The masthead shows the title; the notebook's own first heading saying the same is not repeated.
   let headingShown = false;
   const codeOpen = input.codeOpen ?? true;
+  const imageDir = input.imageDir ?? dirname(resolve(run.source.path));
   const entries: string[] = [];
   let codeNo = 0;
   notebook.cells.forEach((cell, i) => {
@@ -68,7 +69,7 @@ export function renderReport(input: ReportInput): string {
         if (m && m[1].replace(/[*_`]/g, '') === title) text = text.slice(m[0].length);
         headingShown = true;
       }
-      if (text.trim()) entries.push(`<section class="sg-entry sg-prose">${renderMarkdown(text, cell.attachments)}</section>`);
+      if (text.trim()) entries.push(`<section class="sg-entry sg-prose">${renderMarkdown(text, cell.attachments, imageDir)}</section>`);
     } else if (cell.cell_type === 'raw') {
       const text = joinSource(cell.source);
       if (text.trim()) entries.push(`<section class="sg-entry"><pre class="sg-out">${escapeHtml(text)}</pre></section>`);

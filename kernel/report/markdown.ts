@@ -1,3 +1,5 @@
+import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
+import { extname, resolve, sep } from 'node:path';
 import katex from 'katex';
 import MarkdownIt, { type StateBlock, type StateInline } from 'markdown-it';
 import { escapeHtml } from './escape';
@@ -5,13 +7,52 @@ import { sanitize } from './sanitize';
 
 /**
  * Markdown cells to HTML: CommonMark (markdown-it) with tables and strikethrough, TeX math
- * between `$…$` (inline) and `$$…$$` (display) typeset to MathML by KaTeX (no fonts or styles to
- * ship: the browser lays MathML out itself), `attachment:` images resolved to data URLs, and the
- * result — including any raw HTML the author wrote — passed through the sanitizer.
+ * between `$…import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
+import { extname, resolve, sep } from 'node:path';
+import katex from 'katex';
+import MarkdownIt, { type StateBlock, type StateInline } from 'markdown-it';
+import { escapeHtml } from './escape';
+import { sanitize } from './sanitize';
+
+/**
+ * Markdown cells to HTML: CommonMark (markdown-it) with tables and strikethrough, TeX math
+ (inline) and `$…$` (display) typeset to MathML by KaTeX (no fonts or styles to
+ * ship: the browser lays MathML out itself), images embedded as data URLs (`attachment:` images
+ * from the cell, and image files given by a relative path inside `imageDir`, the notebook's
+ * folder), and the result — including any raw HTML the author wrote — passed through the
+ * sanitizer. Images that cannot be embedded (remote, missing, outside the folder) are named in
+ * place of the picture, since a self-contained report must not load anything.
  */
-export function renderMarkdown(text: string, attachments?: Record<string, Record<string, string>>): string {
-  const env = { attachments: attachments ?? {} };
-  return sanitize(md.render(text, env));
+export function renderMarkdown(text: string, attachments?: Record<string, Record<string, string>>, imageDir?: string): string {
+  const env: MarkdownEnv = { attachments: attachments ?? {}, imageDir };
+  return sanitize(md.render(text, env as unknown as Record<string, unknown>));
+}
+
+interface MarkdownEnv {
+  attachments: Record<string, Record<string, string>>;
+  imageDir?: string;
+}
+
+const IMAGE_TYPES: Readonly<Record<string, string>> = Object.freeze({
+  '.png': 'image/png', '.jpg': 'image/jpeg', '.jpeg': 'image/jpeg', '.gif': 'image/gif', '.webp': 'image/webp', '.svg': 'image/svg+xml',
+});
+
+/** Largest local image embedded (bytes); bigger files are named instead. */
+const MAX_IMAGE_BYTES = 8 * 1024 * 1024;
+
+/** A data URL for an image file under `dir` (never outside it), or a reason it cannot be embedded. */
+function localImage(src: string, dir: string): { url?: string; why?: string } {
+  const path = decodeURIComponent(src.split(/[?#]/)[0]);
+  const type = IMAGE_TYPES[extname(path).toLowerCase()];
+  if (!type) return { why: 'not an image file type' };
+  if (!existsSync(dir)) return { why: 'notebook folder not found' };
+  const root = realpathSync(dir);
+  const file = resolve(root, path);
+  if (!existsSync(file)) return { why: 'file not found' };
+  const real = realpathSync(file);
+  if (real !== root && !real.startsWith(root + sep)) return { why: "outside the notebook's folder" };
+  if (statSync(real).size > MAX_IMAGE_BYTES) return { why: 'larger than 8 MiB' };
+  return { url: `data:${type};base64,${readFileSync(real).toString('base64')}` };
 }
 
 /** TeX to MathML; a TeX error is shown as the escaped source in an error span, never thrown. */
@@ -33,11 +74,23 @@ const defaultImage = md.renderer.rules.image!;
 md.renderer.rules.image = (tokens, idx, options, env, self) => {
   const token = tokens[idx];
   const src = String(token.attrGet('src') ?? '');
-  const attached = ((env as { attachments?: Record<string, Record<string, string>> } | undefined)?.attachments) ?? {};
+  const e = (env ?? { attachments: {} }) as unknown as MarkdownEnv;
+  const alt = self.renderInlineAsText(token.children ?? [], options, env);
+  const missing = (why: string) => `<span class="sg-missing-image">[image “${escapeHtml(alt || src)}” not embedded: ${escapeHtml(why)}]</span>`;
   if (src.startsWith('attachment:')) {
-    const bundle = attached[decodeURIComponent(src.slice('attachment:'.length))];
+    const bundle = e.attachments[decodeURIComponent(src.slice('attachment:'.length))];
     const mime = bundle && Object.keys(bundle).find((m) => m.startsWith('image/'));
-    if (bundle && mime) token.attrSet('src', `data:${mime};base64,${String(bundle[mime]).replace(/\s+/g, '')}`);
+    if (!bundle || !mime) return missing('no such attachment in the cell');
+    token.attrSet('src', `data:${mime};base64,${String(bundle[mime]).replace(/\s+/g, '')}`);
+  } else if (src.startsWith('data:')) {
+    // kept as written; the sanitizer allows only image data URLs
+  } else if (/^[a-z][a-z0-9+.-]*:|^\/\//i.test(src)) {
+    return missing('remote images are not loaded by a self-contained report');
+  } else {
+    if (e.imageDir === undefined) return missing('no notebook folder to read it from');
+    const local = localImage(src, e.imageDir);
+    if (!local.url) return missing(local.why ?? 'unreadable');
+    token.attrSet('src', local.url);
   }
   return defaultImage(tokens, idx, options, env, self);
 };

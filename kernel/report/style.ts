@@ -59,6 +59,7 @@ pre.sg-stderr { border-left-color: var(--copper); color: #7a3a12; }
 .sg-figure-fallback { margin: 0; padding: 0.6rem; font: 0.8rem var(--mono); color: var(--muted); }
 .sg-skipped { opacity: 0.55; }
 .sg-failed { color: var(--fail); font-weight: 600; }
+.sg-missing-image { font: 0.85rem var(--sans); color: var(--muted); border: 1px dashed var(--rule); padding: 0.1rem 0.4rem; }
 .sg-skipped .sg-note b::after { content: " · not run"; color: var(--fail); }
 .sg-card { margin-top: 3rem; border: 1px solid var(--ink); background: var(--card); padding: 1.2rem 1.4rem; font: 0.88rem/1.45 var(--sans); }
 .sg-card h2 { font: 600 0.8rem/1 var(--sans); letter-spacing: 0.14em; text-transform: uppercase; color: var(--copper); margin: 0 0 0.9rem; }

@@ -24,6 +24,8 @@ export interface ReportInput {
   readonly run: ReportRun;
   /** Title; default the notebook's first level-1 heading, else the file name. */
   readonly title?: string;
+  /** Folder that relative image paths in markdown cells are read from; default the notebook's folder. */
+  readonly imageDir?: string;
   /** Show code cells expanded (true, default) or collapsed. */
   readonly codeOpen?: boolean;
 }

@@ -1,4 +1,4 @@
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -50,11 +50,19 @@ describe('renderReport (static checks)', () => {
     expect(golden).toBe(readFileSync(file, 'utf8'));
   });
 
-  it('renderMarkdown embeds attachment: images as data URLs and drops remote images', () => {
+  it('renderMarkdown embeds attachment: images and image files in the notebook folder as data URLs; names the rest', () => {
     const png = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==';
-    const out = renderMarkdown('![dot](attachment:dot.png) ![far](https://example.org/x.png)', { 'dot.png': { 'image/png': png } });
+    const dir = mkdtempSync(join(tmpdir(), 'sagitta-img-'));
+    mkdirSync(join(dir, 'nb', 'figs'), { recursive: true });
+    writeFileSync(join(dir, 'nb', 'figs', 'dot.png'), Buffer.from(png, 'base64'));
+    writeFileSync(join(dir, 'secret.png'), 'not for the report');
+    const out = renderMarkdown('![dot](attachment:dot.png) ![local](figs/dot.png) ![far](https://example.org/x.png) ![up](../secret.png) ![gone](figs/none.png)', { 'dot.png': { 'image/png': png } }, join(dir, 'nb'));
     expect(out).toContain(`<img src="data:image/png;base64,${png}" alt="dot" />`);
-    expect(out).not.toContain('example.org');
+    expect(out).toContain(`<img src="data:image/png;base64,${png}" alt="local" />`);
+    expect(out).not.toContain('<img src="https');
+    expect(out).toContain('[image “far” not embedded: remote images are not loaded by a self-contained report]');
+    expect(out).toContain("[image “up” not embedded: outside the notebook's folder]");
+    expect(out).toContain('[image “gone” not embedded: file not found]');
   });
 
   it('collapseCarriageReturns keeps what a terminal would show', () => {
