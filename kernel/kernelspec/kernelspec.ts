@@ -63,6 +63,24 @@ function checkId(id: string): string {
 export function installKernelspec(options: InstallOptions = {}): string {
   const id = checkId(options.id ?? DEFAULT_KERNEL_ID);
   const kernelsDir = options.dir ? path.resolve(options.dir) : kernelsDirFor(options.scope ?? 'user', options.platformEnv ?? currentPlatformEnv());
+  return withWriteAccess(kernelsDir, options.scope, () => writeSpec(kernelsDir, id, options));
+}
+
+/** Turns "permission denied" into a message that says what to do instead. */
+function withWriteAccess<T>(kernelsDir: string, scope: InstallOptions['scope'], body: () => T): T {
+  try {
+    return body();
+  } catch (err) {
+    const code = (err as { code?: string }).code;
+    if (code === 'EACCES' || code === 'EPERM' || code === 'EROFS') {
+      const fix = scope === 'system' ? 'run as an administrator, or use --scope user' : 'choose a folder you can write with --dir';
+      throw msg.cannotWrite(kernelsDir, code === 'EROFS' ? 'read-only file system' : 'permission denied', fix);
+    }
+    throw err;
+  }
+}
+
+function writeSpec(kernelsDir: string, id: string, options: InstallOptions): string {
   const target = path.join(kernelsDir, id);
   mkdirSync(kernelsDir, { recursive: true });
   // Write into a fresh folder next to the target, then swap, so a front end never sees half a spec.
@@ -135,6 +153,8 @@ export function removeKernelspec(options: InstallOptions = {}): string {
   const spec = readSpec(target, id);
   if (!spec) throw msg.badArgument('--id', id, `an installed kernel in ${kernelsDir} (see "sagitta kernel list")`);
   if (!spec.sagitta) throw msg.badArgument('--id', id, `a Sagitta kernel; ${target} belongs to another kernel and was left alone`);
-  rmSync(target, { recursive: true, force: true });
-  return target;
+  return withWriteAccess(kernelsDir, options.scope, () => {
+    rmSync(target, { recursive: true, force: true });
+    return target;
+  });
 }

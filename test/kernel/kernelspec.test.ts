@@ -109,6 +109,26 @@ describe('installKernelspec / listKernelspecs / removeKernelspec', () => {
   });
 });
 
+describe('installKernelspec into a folder the user may not write', () => {
+  it.skipIf(process.getuid?.() === 0)('says so and how to fix it instead of failing with a raw system error', async () => {
+    const { chmodSync } = await import('node:fs');
+    const locked = path.join(scratch, 'locked');
+    mkdirSync(locked);
+    chmodSync(locked, 0o500);
+    try {
+      expect(() => installKernelspec({ dir: path.join(locked, 'kernels') })).toThrow(/cannot write here \(permission denied\)/);
+    } finally {
+      chmodSync(locked, 0o700);
+    }
+  });
+});
+
+describe('installKernelspec under /sys (not writable, even for root)', () => {
+  it.skipIf(process.platform !== 'linux' || !existsSync('/sys/kernel'))('reports the folder and a fix', () => {
+    expect(() => installKernelspec({ dir: '/sys/sagitta-test/kernels' })).toThrow(/^\/sys\/sagitta-test\/kernels: cannot write here .*--dir/);
+  });
+});
+
 describe('sagitta kernel (command line)', () => {
   const cli = (args: string[], env: Record<string, string>) =>
     execFileSync(process.execPath, [path.join(root, 'kernel/bin/sagitta.js'), 'kernel', ...args], { cwd: root, env: { ...process.env, ...env }, encoding: 'utf8' });
