@@ -96,6 +96,8 @@ export interface SimulationResult {
 
 /** Safety limit on particles per event (δ-ray showers of a looper could otherwise grow without end). */
 const MAX_TRACKS_PER_EVENT = 2000;
+/** Track id of noise hits: negative ids mean "on no track" in hit files (lib/track/measureTracks). */
+const NOISE_TRACK = -1;
 
 interface Pending extends Primary {
   readonly parent: number;
@@ -155,7 +157,7 @@ const TRUTH_COLUMNS = ['event', 'track', 'parent', 'charge', 'vx', 'vy', 'vz', '
  * at rest followed, hits measured with the measurement model. One seed drives everything; the
  * same config and seed give the same numbers on any machine (pure-rand, no global RNG).
  * Output: the hit table the fitters read (rows of a track contiguous, in travel order; noise hits
- * first in each event with track 0) and the truth table.
+ * first in each event with track −1, the lib/io convention for hits on no track) and the truth table.
  * @example simulateChamber(config, 7).hits.length
  */
 export function simulateChamber(config: SimulationConfig, seed: number): SimulationResult {
@@ -260,7 +262,7 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
 function addNoise(hits: HitRecorder, event: number, c: Chamber, m: MeasurementModel, rng: SeededRandom): void {
   const n = m.noiseHitsPerEvent > 0 ? rng.poisson(m.noiseHitsPerEvent) : 0;
   for (let k = 0; k < n; k++) {
-    hits.add(event, 0,
+    hits.add(event, NOISE_TRACK,
       c.xMinM + (c.xMaxM - c.xMinM) * rng.uniform(),
       c.yMinM + (c.yMaxM - c.yMinM) * rng.uniform(),
       c.zMinM + (c.zMaxM - c.zMinM) * rng.uniform(),

@@ -6,7 +6,7 @@ import type { SimulationResult } from './simulate';
  *
  * Hits: `event,track,x[mm],y[mm],z[mm],sigma[mm],sigma_z[mm]` (or `sigma_x[mm],sigma_y[mm]` when
  * the two bending-plane errors differ), one row per hit, rows of a track together in travel
- * order, noise hits first in their event with track 0 — the columns lib/io reads.
+ * order, noise hits first in their event with track −1 — the columns lib/io reads.
  * Truth: one row per particle, see `TRUTH_CSV_COLUMNS`.
  */
 export const TRUTH_CSV_COLUMNS = [

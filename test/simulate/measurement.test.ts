@@ -29,13 +29,13 @@ describe('measurement model', () => {
     expect(r.truth.hits.reduce((a, b) => a + b, 0)).toBe(r.hits.length);
   });
 
-  it('noise hits: Poisson with the mean asked for, track 0, first in their event, uniform inside the chamber', () => {
+  it('noise hits: Poisson with the mean asked for, track −1, first in their event, uniform inside the chamber', () => {
     const r = run({ noiseHitsPerEvent: 4 }, 3);
     let noise = 0;
     for (let i = 0; i < r.hits.length; i++) {
-      if (r.hits.track[i] !== 0) continue;
+      if (r.hits.track[i] !== -1) continue;
       noise++;
-      expect(i === 0 || r.hits.event[i - 1] < r.hits.event[i] || r.hits.track[i - 1] === 0).toBe(true);
+      expect(i === 0 || r.hits.event[i - 1] < r.hits.event[i] || r.hits.track[i - 1] === -1).toBe(true);
       expect(Math.abs(r.hits.x[i])).toBeLessThanOrEqual(0.6);
       expect(Number.isNaN(r.hitTruth.x[i])).toBe(true);
     }
