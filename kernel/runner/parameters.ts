@@ -1,7 +1,7 @@
 import { msg } from '../../lib/errors';
 import type { Cell, CodeCell, Notebook } from '../notebook/types';
 import { DEFAULTS_TAG, INJECTED_TAG } from '../notebook/types';
-import { splitLines } from '../notebook/source';
+import { joinSource, splitLines } from '../notebook/source';
 
 const IDENTIFIER = /^[A-Za-z_$][A-Za-z0-9_$]*$/;
 
@@ -55,6 +55,13 @@ export function injectParameters(nb: Notebook, values: Readonly<Record<string, u
   if (at < 0) {
     throw msg.badNotebook(file, `--set was given, but no code cell is tagged "${DEFAULTS_TAG}"; add that tag to the cell that holds the defaults`);
   }
+  const declared = declaredNames(joinSource(cells[at].source));
+  if (declared !== undefined) {
+    const unknown = Object.keys(values).filter((name) => !declared.includes(name));
+    if (unknown.length > 0) {
+      throw msg.badNotebook(file, `--set ${unknown.join(', ')}: the cell tagged "${DEFAULTS_TAG}" declares no such name (it declares ${declared.join(', ') || 'nothing'}); check the spelling`);
+    }
+  }
   const defaultsId = cells[at].id ?? 'knobs';
   const injected: CodeCell = {
     id: `${defaultsId}-set`.slice(0, 64),
@@ -65,4 +72,38 @@ export function injectParameters(nb: Notebook, values: Readonly<Record<string, u
     execution_count: null,
   };
   return { ...nb, cells: [...cells.slice(0, at + 1), injected, ...cells.slice(at + 1)] };
+}
+
+/**
+ * Names declared at the top level of a knobs cell (`const|let|var name = …`, several per
+ * statement allowed), or undefined when the cell uses a form this reader does not follow
+ * (destructuring), in which case --set names are not checked.
+ */
+export function declaredNames(source: string): string[] | undefined {
+  const names: string[] = [];
+  const code = source.replace(/\/\*[\s\S]*?\*\//g, '').replace(/\/\/.*$/gm, '');
+  for (const m of code.matchAll(/(?:^|[;\n])\s*(?:export\s+)?(?:const|let|var)\s+([^;\n]*)/g)) {
+    if (/^[{[]/.test(m[1].trim())) return undefined;
+    for (const part of splitTopLevel(m[1])) {
+      const name = /^\s*([A-Za-z_$][\w$]*)/.exec(part)?.[1];
+      if (name) names.push(name);
+    }
+  }
+  return names;
+}
+
+/** Splits a declaration list at commas that are not inside brackets or strings. */
+function splitTopLevel(text: string): string[] {
+  const parts: string[] = [];
+  let depth = 0, quote = '', start = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i];
+    if (quote) { if (c === '\\') i++; else if (c === quote) quote = ''; continue; }
+    if (c === '"' || c === "'" || c === '`') quote = c;
+    else if ('([{'.includes(c)) depth++;
+    else if (')]}'.includes(c)) depth--;
+    else if (c === ',' && depth === 0) { parts.push(text.slice(start, i)); start = i + 1; }
+  }
+  parts.push(text.slice(start));
+  return parts;
 }

@@ -5,7 +5,7 @@ import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { Notebook } from '../../kernel/notebook/types';
 import { joinSource } from '../../kernel/notebook/source';
-import { parseDuration, parseSetArguments, injectParameters } from '../../kernel/runner/index';
+import { declaredNames, parseDuration, parseSetArguments, injectParameters } from '../../kernel/runner/index';
 import { runCommand } from '../../kernel/cli/commands/run';
 import { nbformatValidator } from './nbSchema';
 
@@ -60,6 +60,12 @@ describe('runner helpers', () => {
     expect(out.cells.map((c) => c.id)).toEqual(['a', 'a-set', 'b']);
     expect(joinSource(out.cells[1].source)).toContain('const fieldT = 2;');
     expect(() => injectParameters({ ...nb, cells: [nb.cells[2]] }, { fieldT: 2 }, 'x.ipynb')).toThrow(/no code cell is tagged "sagitta-knobs"/);
+    expect(() => injectParameters(nb, { fieldt: 2 }, 'x.ipynb')).toThrow(/--set fieldt: the cell tagged "sagitta-knobs" declares no such name \(it declares fieldT\)/);
+  });
+
+  it('declaredNames reads the names a knobs cell declares', () => {
+    expect(declaredNames('// B\nconst fieldT = 1.5, label = "a,b"; // c\nlet runs = [1, 2], x: number = f(1, 2);\n/* const hidden = 1 */')).toEqual(['fieldT', 'label', 'runs', 'x']);
+    expect(declaredNames('const { a, b } = obj;')).toBeUndefined();
   });
 });
 
