@@ -1,7 +1,6 @@
 import { writeFileSync, renameSync } from 'node:fs';
 import type { DataFrame } from 'danfojs-node';
 import { loadDanfo } from './hitsToDataFrame';
-import { formatSignificant } from './formatSignificant';
 
 /**
  * A named, ordered set of equally long columns — the shape every result table takes on its way
@@ -20,24 +19,54 @@ export interface ColumnTable {
   readonly rows: number;
 }
 
-function cell(c: Column, i: number): string {
-  const v = c.values[i];
-  if (typeof v === 'string') return /[",\n\r]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
-  if (!Number.isFinite(v)) return '';
-  if (c.digits === 0 || Number.isInteger(v)) return String(v);
-  return formatSignificant(v, c.digits ?? 10);
+type CellWriter = (i: number) => string;
+
+const NEEDS_QUOTES = /[",\n\r]/;
+
+/** One writer per column, chosen once, so the row loop does no type tests per cell. */
+function cellWriter(c: Column): CellWriter {
+  const values = c.values;
+  if (values.length > 0 && typeof values[0] === 'string') {
+    const text = values as readonly string[];
+    const quoted = new Map<string, string>();
+    return (i) => {
+      const v = text[i];
+      let q = quoted.get(v);
+      if (q === undefined) {
+        q = NEEDS_QUOTES.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+        quoted.set(v, q);
+      }
+      return q;
+    };
+  }
+  const numbers = values as ArrayLike<number>;
+  if (c.digits === 0) return (i) => (Number.isFinite(numbers[i]) ? String(numbers[i]) : '');
+  const digits = c.digits ?? 10;
+  return (i) => {
+    const v = numbers[i];
+    if (!Number.isFinite(v)) return '';
+    return Number.isInteger(v) && Math.abs(v) < 1e15 ? String(v) : v.toPrecision(digits);
+  };
 }
 
 /** CSV text with a header row. */
 export function formatCsv(table: ColumnTable): string {
   const { columns, rows } = table;
-  const parts: string[] = [columns.map((c) => c.name).join(',')];
+  const writers = columns.map(cellWriter);
+  const m = writers.length;
+  const parts: string[] = [columns.map((c) => c.name).join(',') + '\n'];
+  let chunk = '';
   for (let i = 0; i < rows; i++) {
-    let line = cell(columns[0], i);
-    for (let j = 1; j < columns.length; j++) line += ',' + cell(columns[j], i);
-    parts.push(line);
+    let line = writers[0](i);
+    for (let j = 1; j < m; j++) line += ',' + writers[j](i);
+    chunk += line + '\n';
+    if (chunk.length > 1 << 16) {
+      parts.push(chunk);
+      chunk = '';
+    }
   }
-  return parts.join('\n') + '\n';
+  parts.push(chunk);
+  return parts.join('');
 }
 
 /** Rows as plain objects (NaN → null), for JSON output. */
@@ -47,7 +76,7 @@ export function rowObjects(table: ColumnTable): Record<string, number | string |
     const row: Record<string, number | string | null> = {};
     for (const c of table.columns) {
       const v = c.values[i];
-      row[c.name] = typeof v === 'string' ? v : Number.isFinite(v) ? (c.digits === 0 || Number.isInteger(v) ? v : Number(formatSignificant(v, c.digits ?? 10))) : null;
+      row[c.name] = typeof v === 'string' ? v : Number.isFinite(v) ? (c.digits === 0 || Number.isInteger(v) ? v : Number(v.toPrecision(c.digits ?? 10))) : null;
     }
     out[i] = row;
   }
