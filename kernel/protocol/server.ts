@@ -287,7 +287,11 @@ export class KernelServer {
           await this.reply(channel, msg, 'history_reply', { status: 'ok', history: [] });
           break;
         case 'interrupt_request':
-          (await this.getSession()).interrupt();
+          // Before the session exists there is nothing to interrupt (and no reason to start it).
+          await this.session?.then(
+            (session) => session.interrupt(),
+            () => undefined, // a session that failed to start runs nothing
+          );
           this.worker?.postMessage({ kind: 'interrupt-handled' } satisfies ToControlThread);
           await this.reply(channel, msg, 'interrupt_reply', { status: 'ok' });
           break;
@@ -303,6 +307,17 @@ export class KernelServer {
       }
     } catch (err) {
       this.log(`${channel}: ${type} failed: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`);
+      // A request must not go unanswered: the front end would wait for ever.
+      if (type.endsWith('_request')) {
+        const error = err instanceof Error ? err : new Error(String(err));
+        await this.reply(channel, msg, type.replace(/_request$/, '_reply'), {
+          status: 'error',
+          ename: 'KernelError',
+          evalue: error.message,
+          traceback: [`KernelError: ${error.message}`],
+          ...(type === 'execute_request' ? { execution_count: this.executionCount } : {}),
+        });
+      }
     }
     await this.publish('status', { execution_state: 'idle' }, parent);
     if (!this.session && !this.stopping) this.scheduleWarmUp();

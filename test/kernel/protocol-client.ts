@@ -72,6 +72,11 @@ export class ProtocolClient {
     child.stderr!.on('data', (d: Buffer) => (this.stderr += d.toString()));
     child.stdout!.on('data', () => {});
     this.exitCode = new Promise((resolve) => child.once('exit', (code) => resolve(code)));
+    this.connect(info);
+  }
+
+  /** Connects to a kernel already serving `info` (e.g. one started in this process). */
+  connect(info: Record<string, unknown>): void {
     const at = (port: unknown) => `tcp://127.0.0.1:${port}`;
     this.shell.connect(at(info.shell_port));
     this.control.connect(at(info.control_port));
