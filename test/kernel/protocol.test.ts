@@ -114,6 +114,28 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     expect(typeof data['text/plain']).toBe('string');
   });
 
+  it('an event display shows as image/svg+xml, shown mid-cell with present()', async () => {
+    const { reply, iopub } = await run(
+      [
+        'import { eventDisplay, present } from "sagitta";',
+        'const xs = [0, 0.1, 0.2, 0.3], ys = xs.map((x) => 2 - Math.sqrt(4 - x * x));',
+        'present(eventDisplay({ xM: xs, yM: ys, track: [0, 0, 0, 0] }, [{ centerXM: 0, centerYM: 2, radiusM: 2, charge: 1 }], { fieldT: 1.5 }));',
+      ].join('\n'),
+    );
+    expect(reply.content.status).toBe('ok');
+    const shown = iopub.find((m) => m.header.msg_type === 'display_data')!;
+    expect(String(shown.content.data['image/svg+xml'])).toMatch(/^<svg/);
+    expect(typeof shown.content.data['text/plain']).toBe('string');
+  });
+
+  it('a danfojs DataFrame shows as an HTML table plus text', async () => {
+    const { reply, iopub } = await run('import * as dfd from "danfojs-node";\nnew dfd.DataFrame({ track: [1, 2], pGeV: [0.95, 1.31] })');
+    expect(reply.content.status).toBe('ok');
+    const data = iopub.find((m) => m.header.msg_type === 'execute_result')!.content.data;
+    expect(String(data['text/html'])).toMatch(/^<table/);
+    expect(String(data['text/plain'])).toContain('pGeV');
+  });
+
   it('user_expressions are evaluated after the cell and returned in the reply as MIME bundles', async () => {
     const { reply, iopub } = await run('const fieldT = 1.5;', { user_expressions: { field: 'fieldT * 10', broken: 'notDefinedAnywhere' } });
     expect(reply.content.user_expressions.field).toEqual({ status: 'ok', data: { 'text/plain': '15' }, metadata: {} });
