@@ -70,6 +70,8 @@ export interface FitLabReport {
 export interface CompareOptions {
   /** Momentum bin edges [GeV/c]; default 6 log-spaced bins over the sample's range. */
   readonly momentumEdgesGeV?: readonly number[];
+  /** Track-length bin edges [m]; default one bin per distinct length when there are at most 12, else 6 equal bins. */
+  readonly lengthEdgesM?: readonly number[];
 }
 
 /**
@@ -99,7 +101,8 @@ export function compareFitters(fitters: readonly Fitter[], sample: FitLabSample,
   const edges = options.momentumEdgesGeV ?? defaultEdges(sample.momentumGeV);
   const byMomentum: BinnedMerit[] = [];
   const byLength: BinnedMerit[] = [];
-  const lengths = [...new Set(sample.lengthM)].sort((a, b) => a - b);
+  const distinct = [...new Set(sample.lengthM)].sort((a, b) => a - b);
+  const lengthEdges = options.lengthEdgesM ?? (distinct.length <= 12 ? undefined : linearEdges(distinct[0], distinct[distinct.length - 1], 6));
   for (const fitter of fitters) {
     const cols = perTrack[fitter.name];
     for (let b = 0; b + 1 < edges.length; b++) {
@@ -107,9 +110,17 @@ export function compareFitters(fitters: readonly Fitter[], sample: FitLabSample,
       const rows = select(sample.count, (k) => sample.momentumGeV[k] >= lo && (sample.momentumGeV[k] < hi || (b + 2 === edges.length && sample.momentumGeV[k] <= hi)));
       byMomentum.push({ ...merit(fitter.name, cols, sample, rows), low: lo, high: hi, centre: Math.sqrt(lo * hi) });
     }
-    for (const l of lengths) {
-      const rows = select(sample.count, (k) => sample.lengthM[k] === l);
-      byLength.push({ ...merit(fitter.name, cols, sample, rows), low: l, high: l, centre: l });
+    if (lengthEdges === undefined) {
+      for (const l of distinct) {
+        const rows = select(sample.count, (k) => sample.lengthM[k] === l);
+        byLength.push({ ...merit(fitter.name, cols, sample, rows), low: l, high: l, centre: l });
+      }
+    } else {
+      for (let b = 0; b + 1 < lengthEdges.length; b++) {
+        const lo = lengthEdges[b], hi = lengthEdges[b + 1], last = b + 2 === lengthEdges.length;
+        const rows = select(sample.count, (k) => sample.lengthM[k] >= lo && (sample.lengthM[k] < hi || (last && sample.lengthM[k] <= hi)));
+        byLength.push({ ...merit(fitter.name, cols, sample, rows), low: lo, high: hi, centre: 0.5 * (lo + hi) });
+      }
     }
   }
   return { fitters: names, summary, byMomentum, byLength, perTrack, sample };
@@ -154,6 +165,10 @@ function select(n: number, keep: (k: number) => boolean): Int32Array {
   const out: number[] = [];
   for (let k = 0; k < n; k++) if (keep(k)) out.push(k);
   return Int32Array.from(out);
+}
+
+function linearEdges(lo: number, hi: number, n: number): number[] {
+  return Array.from({ length: n + 1 }, (_, i) => lo + ((hi - lo) * i) / n);
 }
 
 function defaultEdges(p: Float64Array): number[] {
