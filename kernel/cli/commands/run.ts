@@ -1,5 +1,6 @@
 import { Command } from 'commander';
-import { basename, resolve } from 'node:path';
+import { existsSync } from 'node:fs';
+import { basename, dirname, resolve } from 'node:path';
 
 export interface RunCommandOptions {
   html?: string;
@@ -37,7 +38,8 @@ export function registerRun(program: Command): void {
     .addHelpText('after', `
 Knobs: tag the code cell that holds a notebook's adjustable defaults "sagitta-knobs". Values given
 with --set are placed in a new cell right after it, tagged "sagitta-knobs-set", which redeclares
-them (const name = value;). The report's provenance card lists them.
+them (const name = value;); each name must be one the knobs cell declares. The report's
+provenance card lists the values set.
 
 Cells run in order in a separate Node process. A cell that raises gets an error output; with
 --keep-going the later cells still run. A cell that exceeds --cell-timeout, or that ends the
@@ -81,6 +83,11 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
     throw msg.badArgument('--executed', executedPath, 'a path other than the source notebook (use --write-back to replace the source on purpose)');
   }
 
+  // Refuse unwritable destinations before running anything (a long run should not end in ENOENT).
+  const { msg } = await import('../../../lib/errors');
+  for (const [flag, path] of [['--html', options.html], ['--pdf', options.pdf], ['--executed', executedPath]] as const) {
+    if (path !== undefined && !existsSync(dirname(resolve(path)))) throw msg.badArgument(flag, path, 'a file in an existing folder');
+  }
   // Start the notebook process first; the report modules load while it boots.
   const running = runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, parameters });
   const wantReport = options.html !== undefined || options.pdf !== undefined;
