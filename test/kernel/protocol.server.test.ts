@@ -10,9 +10,12 @@ import { ProtocolClient, withTimeout } from './protocol-client';
 
 const client = new ProtocolClient();
 const logged: string[] = [];
-let server: KernelServer;
+let server: KernelServer | undefined;
 
-afterAll(() => client.close());
+afterAll(async () => {
+  client.close();
+  await server?.stop(); // no-op after a served shutdown; closes the sockets if the test failed early
+});
 
 describe('KernelServer with a failing session', { timeout: 60_000 }, () => {
   it('answers kernel_info, replies KernelError to execute, and shuts down', async () => {
