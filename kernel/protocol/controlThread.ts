@@ -6,7 +6,8 @@
  *   synchronous cell (it runs with `breakOnSigint`) — message-mode interrupts for blocking cells.
  *   A signal that lands while the cell is still being compiled is spent before the cell's code
  *   runs, so the signal is repeated every half second until the main thread, free again, reports
- *   that it has handled the request (or ten seconds have passed).
+ *   that it has handled the request (or ten seconds have passed). On Windows there are no signals
+ *   to raise: there the request stops only a cell that is waiting on an `await`.
  * Every control message is also passed to the main thread, which verifies it again, replies and
  * publishes the status messages; the main thread's replies come back here to be sent.
  */
@@ -60,8 +61,9 @@ async function listen(): Promise<void> {
     for await (const frames of control) {
       const msg = decode(frames, info.key, history);
       if (typeof msg !== 'string' && msg.header.msg_type === 'interrupt_request') {
-        // The main thread may be stuck in a cell: signal it from here.
-        raiseInterrupt();
+        // The main thread may be stuck in a cell: signal it from here. Not on Windows, where
+        // process.kill(pid, 'SIGINT') ends the process instead of signalling it.
+        if (process.platform !== 'win32') raiseInterrupt();
       }
       // Bad signatures are logged by the main thread, which checks every message again.
       post({ kind: 'message', frames });
