@@ -14,6 +14,16 @@ export const NEUTRAL_DECAYS: Readonly<Record<string, readonly [Particle, Particl
 });
 
 /**
+ * Decays in flight the simulator follows (two-body, the neutrino unseen): π± → μ±ν (branching
+ * 99.988 %, PDG 2022). Other charged species fly on (muons live cτ = 659 m; kaons are not decayed,
+ * since only a part of their modes would be modelled).
+ */
+export const DECAY_IN_FLIGHT: Readonly<Record<string, Particle>> = Object.freeze({
+  [PION_PLUS.name]: MUON_PLUS,
+  [PION_MINUS.name]: MUON_MINUS,
+});
+
+/**
  * What a charged particle that stops in the chamber turns into (decay at rest):
  * π⁺ → μ⁺ν (the neutrino is unseen; the μ⁺ has the two-body momentum 29.79 MeV/c), μ± → e± ν ν̄
  * (Michel spectrum). A stopped π⁻ is captured by a nucleus and a stopped μ⁻ in hydrogen decays

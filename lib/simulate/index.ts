@@ -12,7 +12,7 @@ export { twoBodyMomentumMeV, twoBodyDecay, invariantMassMeV, type TwoBodyProduct
 export { michelMaxEnergyMeV, sampleMichelFraction } from './michel';
 export { deltaRayRatePerM, sampleDeltaRayKineticMeV, deltaRayCosTheta } from './delta-ray';
 export { bohrVarianceMeV2 } from './bohr-straggling';
-export { NEUTRAL_DECAYS, DECAY_AT_REST } from './decays';
+export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays';
 export {
   simulateChamber,
   type SimulationConfig, type SimulationResult, type MeasurementModel, type TransportSettings, type Source,

@@ -50,6 +50,7 @@ export const SCENARIO_SCHEMA = Object.freeze({
         maxStep: quantity,
         maxPath: quantity,
         deltaRaysAbove: { ...quantity, description: 'make knock-on electrons above this kinetic energy, e.g. "2 MeV"; omit for none' },
+        decaysInFlight: { type: 'boolean', description: 'charged pions decay in flight (π → μν) with their lifetime; default true' },
       },
     },
     measurement: {

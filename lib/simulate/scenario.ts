@@ -154,6 +154,7 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
     scattering: (tr.scattering as boolean | undefined) ?? SCENARIO_DEFAULTS.scattering,
     maxStepM: tr.maxStep !== undefined ? positive(len(tr.maxStep, '/transport/maxStep'), '/transport/maxStep', file) : SCENARIO_DEFAULTS.maxStepM,
     maxPathM: tr.maxPath !== undefined ? positive(len(tr.maxPath, '/transport/maxPath'), '/transport/maxPath', file) : SCENARIO_DEFAULTS.maxPathM,
+    decaysInFlight: (tr.decaysInFlight as boolean | undefined) ?? true,
     deltaRayMinMeV: tr.deltaRaysAbove !== undefined ? positive(at('/transport/deltaRaysAbove', () => energyMeV(tr.deltaRaysAbove as string, { what: 'the δ-ray threshold' })), '/transport/deltaRaysAbove', file) : 0,
   };
 

@@ -4,7 +4,7 @@ import { warn } from '../warnings';
 import type { Chamber } from './chamber';
 import { insideChamber } from './chamber';
 import { ColumnBuffer } from './column-buffer';
-import { DECAY_AT_REST, NEUTRAL_DECAYS } from './decays';
+import { DECAY_AT_REST, DECAY_IN_FLIGHT, NEUTRAL_DECAYS } from './decays';
 import { michelMaxEnergyMeV, sampleMichelFraction } from './michel';
 import { seededRandom, type SeededRandom } from './rng';
 import { beamEvent, type BeamSource } from './sources/beam';
@@ -38,6 +38,8 @@ export interface TransportSettings {
   readonly maxPathM: number;
   /** Knock-on electrons above this kinetic energy [MeV] are made; 0: none. */
   readonly deltaRayMinMeV: number;
+  /** Charged pions decay in flight (π → μν) with their lifetime; default true. */
+  readonly decaysInFlight?: boolean;
 }
 
 /** Everything a run needs, in internal units (what a scenario file resolves to). */
@@ -66,7 +68,7 @@ export interface TruthTable {
   readonly px: Float64Array;
   readonly py: Float64Array;
   readonly pz: Float64Array;
-  /** 'stopped', 'exited', 'max-path', 'decayed'. */
+  /** 'stopped', 'exited', 'max-path', 'decayed' (neutral parents and pions decaying in flight). */
   readonly end: readonly string[];
   readonly ex: Float64Array;
   readonly ey: Float64Array;
@@ -203,7 +205,9 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
         } else {
           const first = hits.n;
           const { efficiency, sigmaXM, sigmaYM, sigmaZM } = measurement;
-          const r = transportTrack(item, chamber, options, rng,
+          const inFlight = config.transport.decaysInFlight !== false ? DECAY_IN_FLIGHT[sp.name] : undefined;
+          const start = inFlight !== undefined && Number.isFinite(sp.ctauM) ? { ...item, properDecayLengthM: rng.exponential(sp.ctauM) } : item;
+          const r = transportTrack(start, chamber, options, rng,
             (x, y, z, p) => {
               if (efficiency < 1 && rng.uniform() >= efficiency) return;
               hits.add(event, id,
@@ -218,6 +222,12 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
           nHits = hits.n - first;
           end = r.reason; ex = r.xM; ey = r.yM; ez = r.zM; path = r.pathM;
           if (r.reason === 'stopped') decayAtRest(sp, r.xM, r.yM, r.zM, id, rng, stack);
+          if (r.reason === 'decayed' && inFlight !== undefined) {
+            const pMeV = r.momentumGeV * 1e3;
+            const d = twoBodyDecay(sp.massMeV, pMeV * r.ux, pMeV * r.uy, pMeV * r.uz, inFlight.massMeV, 0, rng);
+            const pm = Math.hypot(d.first[1], d.first[2], d.first[3]);
+            stack.push({ species: inFlight, xM: r.xM, yM: r.yM, zM: r.zM, ux: d.first[1] / pm, uy: d.first[2] / pm, uz: d.first[3] / pm, momentumGeV: pm * 1e-3, process: 'decay', parent: id });
+          }
         }
         species.push(sp.name);
         process.push(item.process);

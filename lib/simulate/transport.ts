@@ -48,6 +48,11 @@ export interface TrackStart {
   readonly uy: number;
   readonly uz: number;
   readonly momentumGeV: number;
+  /**
+   * Proper decay length [m] this particle will live (drawn by the caller from an exponential of
+   * mean cτ); the track ends with reason 'decayed' after that much proper path. Absent: stable.
+   */
+  readonly properDecayLengthM?: number;
 }
 
 /** Receives the true position of each hit and the momentum there. */
@@ -55,7 +60,7 @@ export type HitSink = (xM: number, yM: number, zM: number, momentumGeV: number) 
 /** Receives a knock-on electron (position [m], unit direction, kinetic energy [MeV]). */
 export type DeltaSink = (xM: number, yM: number, zM: number, ux: number, uy: number, uz: number, kineticMeV: number) => void;
 
-export type EndReason = 'stopped' | 'exited' | 'max-path';
+export type EndReason = 'stopped' | 'exited' | 'max-path' | 'decayed';
 
 /** How and where a track ended. */
 export interface TrackEnd {
@@ -66,7 +71,7 @@ export interface TrackEnd {
   readonly ux: number;
   readonly uy: number;
   readonly uz: number;
-  /** Momentum at the end [GeV/c]; 0 when stopped. */
+  /** Momentum at the end [GeV/c]; 0 when stopped; at the decay point when decayed. */
   readonly momentumGeV: number;
   /** Path length travelled inside the chamber [m]. */
   readonly pathM: number;
@@ -104,7 +109,9 @@ const MAX_STEPS = 1_000_000;
  * mid-point (so the radius shrinks as the particle slows: tracks spiral inwards); (4) the
  * direction receives two Gaussian projected kicks of width θ₀(p, β, s) (Highland, from the
  * medium); (5) knock-on electrons are emitted with the δ-ray rate. The particle stops when its
- * range is used up, leaves the box, or exceeds `maxPathM`.
+ * range is used up, leaves the box, exceeds `maxPathM`, or — when `start.properDecayLengthM` is
+ * given — has lived that much proper path (lab path × m/p, accumulated step by step; the step
+ * before the decay is shortened to end at the decay point).
  *
  * Internal units: metres, MeV (kinetic), GeV/c. The start point must lie inside the chamber.
  * Validity: the step model assumes θ₀ per step ≪ 1 and a field that varies little over a step.
@@ -148,6 +155,7 @@ export function transportTrack(
   let hits = 0;
   let reason: EndReason = 'max-path';
   let pEnd = start.momentumGeV;
+  let properLeft = start.properDecayLengthM ?? Infinity;
 
   for (let iter = 0; iter < MAX_STEPS; iter++) {
     if (path >= options.maxPathM) { reason = 'max-path'; break; }
@@ -174,6 +182,20 @@ export function transportTrack(
           if (kineticEnd > kinetic) kineticEnd = kinetic;
           if (kineticEnd <= 0) { kineticEnd = 0; stopping = true; rangeEnd = 0; }
           else rangeEnd = loss.rangeM(kineticEnd);
+        }
+      }
+    }
+    let decaying = false;
+    if (properLeft < Infinity && !stopping) {
+      // Lab distance to the decay at the momentum of the step start (p/m = βγ).
+      const sDecay = (properLeft * Math.sqrt(kinetic * (kinetic + 2 * mass))) / mass;
+      if (sDecay < s) {
+        s = sDecay;
+        decaying = true;
+        sampleAtEnd = nextSample - path <= s;
+        if (lossOn && Number.isFinite(range)) {
+          rangeEnd = range - s;
+          kineticEnd = loss.kineticFromRangeM(rangeEnd);
         }
       }
     }
@@ -208,6 +230,7 @@ export function transportTrack(
       helixStep(st, sUsed, pMid, bField[0], bField[1], bField[2], charge);
       sampleAtEnd = false;
       stopping = false;
+      decaying = false;
     }
 
     if (planes.length > 0) {
@@ -238,6 +261,12 @@ export function transportTrack(
     }
 
     const pEndStep = Math.sqrt(kineticEnd * (kineticEnd + 2 * mass)) * 1e-3;
+    if (decaying) {
+      reason = 'decayed';
+      pEnd = pEndStep;
+      break;
+    }
+    if (properLeft < Infinity) properLeft -= (sUsed * mass) / (pMid * 1e3);
     if (options.scattering && !stopping) {
       const eMid = kineticMid + mass;
       const theta0 = loss.theta0Rad(pMid, Math.min(1, Math.sqrt(kineticMid * (kineticMid + 2 * mass)) / eMid), s, path - s);

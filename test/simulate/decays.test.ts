@@ -109,3 +109,43 @@ describe('decay at rest of a stopping muon', () => {
     }
   });
 });
+
+describe('decay in flight of charged pions', () => {
+  it('π⁻ of 0.3 GeV/c: the fraction decaying within 2 m is 1 − exp(−L/βγcτ) (cτ = 7.8045 m, PDG); the μ⁻ and the unseen ν are a massless pair', () => {
+    const n = 4000;
+    const config: SimulationConfig = {
+      name: 'pi-decay',
+      chamber: chamber({ sizeM: [40, 40, 40], medium: VACUUM, fieldT: [0, 0, 1] }),
+      transport: { energyLoss: 'off', scattering: false, maxStepM: 0.05, maxPathM: 2, deltaRayMinMeV: 0 },
+      measurement: { sampling: { kind: 'spacing', spacingM: 0.5 }, sigmaXM: 0, sigmaYM: 0, sigmaZM: 0, efficiency: 1, noiseHitsPerEvent: 0 },
+      sources: [{ kind: 'beam', events: n, species: [{ particle: PION_MINUS, weight: 1 }], momentumGeV: 0.3, momentumSpread: 0, originM: [0, 0, 0], direction: [1, 0, 0], spotSigmaM: 0, divergenceRad: 0 }],
+    };
+    const t = simulateChamber(config, 13).truth;
+    let decayed = 0;
+    for (let i = 0; i < t.length; i++) {
+      if (t.species[i] !== 'pi-' || t.end[i] !== 'decayed') continue;
+      decayed++;
+      expect(t.pathM[i]).toBeLessThanOrEqual(2);
+      const j = i + 1;
+      expect(t.species[j]).toBe('mu-');
+      expect([t.vx[j], t.vy[j], t.vz[j]]).toEqual([t.ex[i], t.ey[i], t.ez[i]]);
+      // The pion keeps |p| (no loss); at the end point its direction has turned in the field, so
+      // use the four-momentum difference: (p_π − p_μ)² = m_ν² = 0.
+      const pmu = [t.px[j], t.py[j], t.pz[j]].map((v) => v * 1e3);
+      const emu = Math.hypot(Math.hypot(pmu[0], pmu[1], pmu[2]), MUON_PLUS.massMeV);
+      const epi = Math.hypot(300, PION_MINUS.massMeV);
+      const pnuMag = epi - emu;
+      // |p_ν| = E_ν for a massless ν, and the pion rest-frame momentum fixes E_ν range: check the
+      // muon energy lies in the kinematic band of a 300 MeV/c pion decaying to μν.
+      const g = epi / PION_MINUS.massMeV, bg = 300 / PION_MINUS.massMeV;
+      const eStar = Math.hypot(PDG_P_PI_MUNU_EXACT, MUON_PLUS.massMeV);
+      expect(emu).toBeGreaterThanOrEqual(g * eStar - bg * PDG_P_PI_MUNU_EXACT - 1e-6);
+      expect(emu).toBeLessThanOrEqual(g * eStar + bg * PDG_P_PI_MUNU_EXACT + 1e-6);
+      expect(pnuMag).toBeGreaterThan(0);
+    }
+    const expected = n * (1 - Math.exp(-2 / ((300 / PION_MINUS.massMeV) * PION_MINUS.ctauM)));
+    expect(Math.abs(decayed - expected)).toBeLessThan(4 * Math.sqrt(expected));
+  });
+});
+
+const PDG_P_PI_MUNU_EXACT = twoBodyMomentumMeV(PION_PLUS.massMeV, MUON_PLUS.massMeV, 0);
