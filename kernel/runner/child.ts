@@ -5,10 +5,20 @@
  */
 import { provenanceSnapshot } from '../../lib/provenance';
 import { createSession } from '../session/index';
+import { tslabTs } from '../session/moduleRoot';
 import type { Session } from '../session/types';
 import type { FromChild, ToChild } from './messages';
 
 const t0 = performance.now();
+
+// A headless run compiles each cell against the sources as they are when it runs; it needs none
+// of the compiler's file and folder watchers. Left on, a watcher that fires between two cells (any
+// process touching a watched file or folder) leaves tslab's converter with a pending rebuild that
+// it then refuses for every later cell ("Unexpected pending rebuildTimer"). The interactive
+// kernel keeps them; this child process does not.
+const noWatcher = () => ({ close() {} });
+tslabTs.sys.watchFile = noWatcher;
+tslabTs.sys.watchDirectory = noWatcher;
 let session: Session | undefined;
 let current = -1;
 
@@ -39,7 +49,6 @@ async function handle(m: ToChild): Promise<void> {
     // Compile and run an empty cell so the compiler and the library are loaded before the first
     // timed cell: the per-cell timeout then measures the cell's own work.
     await session.execute('', { stream() {}, display() {} });
-    const { tslabTs } = await import('../session/moduleRoot');
     send({ kind: 'ready', typescript: tslabTs.version, startMs: performance.now() - t0 });
   } else if (m.kind === 'cell') {
     if (!session) throw new Error('cell before start');
