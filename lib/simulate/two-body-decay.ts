@@ -84,7 +84,9 @@ function perpendicular(x: number, y: number, z: number): [number, number, number
 
 /**
  * Invariant mass [MeV] of two four-momenta (E, px, py, pz) in MeV:
- * m² = (E₁+E₂)² − |p₁+p₂|². Valid for any pair; returns NaN for a space-like sum.
+ * m² = (E₁+E₂)² − |p₁+p₂|² (special relativity, c = 1; common practice; PDG RPP "Kinematics").
+ * Valid for any pair; returns NaN for a space-like sum.
+ * @example invariantMassMeV([E1, px1, py1, pz1], [E2, px2, py2, pz2]) // 497.611 for a K⁰_S pair
  */
 export function invariantMassMeV(a: readonly number[], b: readonly number[]): number {
   const e = a[0] + b[0], x = a[1] + b[1], y = a[2] + b[2], z = a[3] + b[3];
