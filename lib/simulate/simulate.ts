@@ -174,7 +174,7 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
     deltaRayMinMeV: config.transport.deltaRayMinMeV,
     sampling: measurement.sampling,
   };
-  const hits = new HitRecorder(1 << 14);
+  const hits = new HitRecorder(expectedHitRows(config));
   const truth = new ColumnBuffer(TRUTH_COLUMNS, 1024);
   const species: string[] = [];
   const process: string[] = [];
@@ -267,6 +267,20 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
       end: ends, ex: t.ex, ey: t.ey, ez: t.ez, pathM: t.path, hits: t.hits,
     },
   };
+}
+
+/**
+ * A first guess of the number of hit rows (one primary per event crossing the box diagonal), so
+ * that the hit columns rarely need to grow; they still grow when the guess is short.
+ */
+function expectedHitRows(config: SimulationConfig): number {
+  const c = config.chamber;
+  const diagonal = Math.hypot(c.xMaxM - c.xMinM, c.yMaxM - c.yMinM, c.zMaxM - c.zMinM);
+  const s = config.measurement.sampling;
+  const perTrack = s.kind === 'spacing' ? Math.ceil(diagonal / s.spacingM) : s.positionsM.length;
+  const events = config.sources.reduce((sum, src) => sum + src.events, 0);
+  const rows = events * (perTrack + Math.ceil(config.measurement.noiseHitsPerEvent)) + 1024;
+  return Math.min(1 << 24, Math.max(1 << 12, rows));
 }
 
 function addNoise(hits: HitRecorder, event: number, c: Chamber, m: MeasurementModel, rng: SeededRandom): void {
