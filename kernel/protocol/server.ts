@@ -72,6 +72,8 @@ export class KernelServer {
   private readonly makeSession: KernelServerOptions['createSession'];
   private session: Promise<Session> | undefined;
   private executionCount = 0;
+  /** Cells run with store_history, as [session, line, input] (this kernel's lifetime is session 1). */
+  private readonly inputs: Array<[number, number, string]> = [];
   private shellQueue: Array<{ msg: Message; seq: number }> = [];
   /** Number of shell messages received so far (their arrival order). */
   private received = 0;
@@ -284,7 +286,7 @@ export class KernelServer {
         case 'comm_close':
           break;
         case 'history_request':
-          await this.reply(channel, msg, 'history_reply', { status: 'ok', history: [] });
+          await this.reply(channel, msg, 'history_reply', { status: 'ok', history: this.historyFor(msg.content) });
           break;
         case 'interrupt_request':
           // Before the session exists there is nothing to interrupt (and no reason to start it).
@@ -337,6 +339,7 @@ export class KernelServer {
     const stopOnError = c.stop_on_error !== false;
     if (storeHistory) this.executionCount++;
     const count = this.executionCount;
+    if (storeHistory) this.inputs.push([1, count, code]);
     const parent = msg.header;
     const started = new Date().toISOString();
     if (!silent) await this.publish('execute_input', { code, execution_count: count }, parent);
@@ -410,6 +413,26 @@ export class KernelServer {
     return out;
   }
 
+  /** history_request: 'tail' (last n), 'range' (start ≤ line < stop) or 'search' (glob pattern, * and ?). */
+  private historyFor(content: Record<string, unknown>): Array<[number, number, string]> {
+    const n = typeof content.n === 'number' ? content.n : this.inputs.length;
+    switch (content.hist_access_type) {
+      case 'range': {
+        const start = typeof content.start === 'number' ? content.start : 0;
+        const stop = typeof content.stop === 'number' ? content.stop : Infinity;
+        return this.inputs.filter(([, line]) => line >= start && line < stop);
+      }
+      case 'search': {
+        const re = globToRegExp(String(content.pattern ?? '*'));
+        let found = this.inputs.filter(([, , input]) => re.test(input));
+        if (content.unique === true) found = found.filter(([, , input], i) => found.findIndex(([, , other]) => other === input) === i);
+        return found.slice(-n);
+      }
+      default:
+        return this.inputs.slice(-n);
+    }
+  }
+
   /** Reply to an execute request that was queued behind a failed cell. */
   private async abort(msg: Message): Promise<void> {
     await this.publish('status', { execution_state: 'busy' }, msg.header);
@@ -468,4 +491,12 @@ function jsonSafe(bundle: MimeBundle): MimeBundle {
 export function kernelIdFromFile(file: string): string | undefined {
   const m = /^kernel-(.+)\.json$/.exec(path.basename(file));
   return m?.[1];
+}
+
+/** A shell-style glob (`*` any run, `?` one character) as an anchored regular expression. */
+function globToRegExp(glob: string): RegExp {
+  const body = [...glob]
+    .map((ch) => (ch === '*' ? '[\\s\\S]*' : ch === '?' ? '[\\s\\S]' : ch.replace(/[.+^${}()|[\]\\]/g, (c) => `\\${c}`)))
+    .join('');
+  return new RegExp(`^${body}$`);
 }

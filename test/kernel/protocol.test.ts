@@ -216,6 +216,19 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     expect(reply.content.data['text/plain']).toMatch(/particle\(name: string\)/);
   });
 
+  it('history: tail, range and search over the cells run so far', async () => {
+    await run('const historyMarker = "kinks";');
+    const tail = (await client.request('shell', 'history_request', { output: false, raw: true, hist_access_type: 'tail', n: 1 })).reply.content;
+    expect(tail.status).toBe('ok');
+    expect(tail.history).toHaveLength(1);
+    expect(tail.history[0][2]).toBe('const historyMarker = "kinks";');
+    const found = (await client.request('shell', 'history_request', { output: false, raw: true, hist_access_type: 'search', pattern: '*historyMarker*', n: 10 })).reply.content;
+    expect(found.history.map((h: unknown[]) => h[2])).toEqual(['const historyMarker = "kinks";']);
+    const line = tail.history[0][1] as number;
+    const range = (await client.request('shell', 'history_request', { output: false, raw: true, hist_access_type: 'range', session: 0, start: line, stop: line + 1 })).reply.content;
+    expect(range.history).toEqual(tail.history);
+  });
+
   it('comm_info answers with no comms', async () => {
     const { reply } = await client.request('shell', 'comm_info_request', {});
     expect(reply.content).toEqual({ status: 'ok', comms: {} });
