@@ -40,7 +40,7 @@ multiple scattering, knock-on electrons), the measurement model (hit spacing or 
 resolution per coordinate, efficiency, noise hits) and the sources (beam, neutral-decay, cosmic,
 stopping) with their event counts. The same scenario and seed always give the same bytes.
 
-${SIMULATE_CAUTION}
+${wrap(SIMULATE_CAUTION, 96)}
 
 Examples:
   sagitta simulate notebooks/data/brindlemoor.scenario.json --seed 7 --out hits.csv --truth truth.csv
@@ -50,6 +50,18 @@ Examples:
       process.stdout.write(stdout);
       process.stderr.write(stderr);
     });
+}
+
+/** Breaks text into lines of at most `width` characters at spaces. */
+function wrap(text: string, width: number): string {
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    if (line !== '' && line.length + 1 + word.length > width) { lines.push(line); line = word; }
+    else line = line === '' ? word : `${line} ${word}`;
+  }
+  if (line !== '') lines.push(line);
+  return lines.join('\n');
 }
 
 /** The command's work without touching process streams (for tests). Writes the output files. */
