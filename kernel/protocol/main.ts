@@ -1,9 +1,15 @@
 import { readConnectionFile } from './connection';
 import { KernelServer, kernelIdFromFile } from './server';
 
+/** How often the kernel checks that the front end that started it is still there. */
+const PARENT_CHECK_MS = 3000;
+
 /**
  * Starts the kernel for a front end: `sagitta-kernel <connection-file>`. Cells run in this
  * process, with the working directory the front end started us in (normally the notebook's folder).
+ * If the process that started the kernel goes away without a shutdown request (a crashed front
+ * end), the kernel shuts itself down instead of lingering: the system hands an orphan to another
+ * parent, so a changed parent pid means ours is gone.
  */
 export async function runKernel(connectionFile: string): Promise<number> {
   const connection = readConnectionFile(connectionFile);
@@ -14,6 +20,15 @@ export async function runKernel(connectionFile: string): Promise<number> {
     createSession: async () => (await import('../session/session')).createSession({ workDir }),
   });
   await server.start();
+  const parent = process.ppid;
+  const watch = setInterval(() => {
+    if (process.ppid !== parent) {
+      process.stderr.write(`[sagitta kernel] the front end (pid ${parent}) is gone; shutting down\n`);
+      void server.stop();
+    }
+  }, PARENT_CHECK_MS);
+  watch.unref();
   await server.whenStopped();
+  clearInterval(watch);
   return 0;
 }
