@@ -15,7 +15,8 @@
  *
  * Interrupts: `interrupt()` stops a cell that is waiting (an `await`); a cell that blocks the
  * event loop with synchronous code is stopped only by a SIGINT to the process (the cell runs with
- * `breakOnSigint`), which is why the kernelspec declares the signal interrupt mode.
+ * `breakOnSigint`) — sent by the front end in signal mode, or raised by the kernel's control
+ * thread for an interrupt_request (kernel/protocol/controlThread.ts).
  *
  * A session changes the process's working directory to `workDir` (so data files next to the
  * notebook open by relative path); there should be one live session per process.
