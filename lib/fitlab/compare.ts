@@ -1,6 +1,6 @@
 import { GEV_PER_TESLA_METRE } from '../constants';
 import { msg } from '../errors';
-import { chi2Survival } from './chi2-survival';
+import { chi2Survival } from './chi2Survival';
 import type { Fitter } from './fitter';
 import type { FitLabSample } from './sample';
 

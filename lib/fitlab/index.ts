@@ -4,8 +4,8 @@ export {
   type Fitter, type FitterOutcome,
 } from './fitter';
 export { fitLabSample, type FitLabSample, type FitLabSampleOptions } from './sample';
-export { fitLabSampleFromRun, type SampleFromRunOptions } from './sample-from-run';
+export { fitLabSampleFromRun, type SampleFromRunOptions } from './sampleFromRun';
 export { compareFitters, type FitLabReport, type FitMerit, type BinnedMerit, type FitterTrackColumns, type CompareOptions } from './compare';
-export { chi2Survival, lnGamma } from './chi2-survival';
+export { chi2Survival, lnGamma } from './chi2Survival';
 export { pullFigure, pValueFigure, meritFigure } from './figures';
 export { fitLabTables } from './tables';

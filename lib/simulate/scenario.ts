@@ -6,10 +6,10 @@ import { particle, type Particle } from '../particles';
 import { recordInput } from '../provenance';
 import { fieldTesla, energyMeV, lengthMetres, momentumGeV } from '../units';
 import { chamber, insideChamber, type Chamber } from './chamber';
-import { chamberMedium } from './chamber-medium';
-import { jsonPointerLines, withLines } from './json-pointer-lines';
+import { chamberMedium } from './chamberMedium';
+import { jsonPointerLines, withLines } from './jsonPointerLines';
 import { VACUUM } from './medium';
-import { SCENARIO_SCHEMA } from './scenario-schema';
+import { SCENARIO_SCHEMA } from './scenarioSchema';
 import type { MeasurementModel, SimulationConfig, Source, TransportSettings } from './simulate';
 import type { Sampling } from './transport';
 

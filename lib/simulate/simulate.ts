@@ -3,7 +3,7 @@ import { ELECTRON, type Particle } from '../particles';
 import { warn } from '../warnings';
 import type { Chamber } from './chamber';
 import { insideChamber } from './chamber';
-import { ColumnBuffer } from './column-buffer';
+import { ColumnBuffer } from './columnBuffer';
 import { DECAY_AT_REST, DECAY_IN_FLIGHT, NEUTRAL_DECAYS } from './decays';
 import { michelMaxEnergyMeV, sampleMichelFraction } from './michel';
 import { seededRandom, type SeededRandom } from './rng';
@@ -13,7 +13,7 @@ import type { Primary } from './sources/primary';
 import { stoppingEvent, type StoppingSource } from './sources/stopping';
 import { transportTrack, TRANSPORT_DEFAULTS, type EnergyLossMode, type Sampling, type TransportOptions } from './transport';
 import { rotateAbout } from './transport';
-import { twoBodyDecay, twoBodyMomentumMeV } from './two-body-decay';
+import { twoBodyDecay, twoBodyMomentumMeV } from './twoBodyDecay';
 
 export type { BeamSource, CosmicSource, StoppingSource };
 export type Source = BeamSource | CosmicSource | StoppingSource;

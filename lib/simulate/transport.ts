@@ -1,9 +1,9 @@
 import type { Particle } from '../particles';
 import type { Chamber } from './chamber';
-import { helixStep } from './helix-step';
+import { helixStep } from './helixStep';
 import type { SeededRandom } from './rng';
 import { maxEnergyTransferMeV } from '../matter/bethe';
-import { deltaRayCosTheta, deltaRayRatePerM, sampleDeltaRayKineticMeV } from './delta-ray';
+import { deltaRayCosTheta, deltaRayRatePerM, sampleDeltaRayKineticMeV } from './deltaRay';
 
 /** Where hits are taken: every `spacingM` of path length, or where the path crosses planes. */
 export type Sampling =

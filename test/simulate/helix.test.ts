@@ -7,7 +7,7 @@ import { chamber, seededRandom, simulateChamber, transportTrack, TRANSPORT_DEFAU
  * Analytic helix in a field B along +z (Lorentz force with exact c; common practice): with
  * a = 0.299792458·q·B/p [1/m], the transverse direction angle is φ(s) = φ₀ − a s, so
  * x(s) = x₀ + cosλ (sin φ₀ − sin(φ₀ − a s))/a, y(s) = y₀ + cosλ (cos(φ₀ − a s) − cos φ₀)/a,
- * z(s) = z₀ + s sinλ. Written independently of lib/simulate/helix-step.ts.
+ * z(s) = z₀ + s sinλ. Written independently of lib/simulate/helixStep.ts.
  */
 function analytic(s: number, q: number, bT: number, pGeV: number, phi0: number, lambda: number, r0: [number, number, number]): [number, number, number] {
   const a = (GEV_PER_TESLA_METRE * q * bT) / pGeV;

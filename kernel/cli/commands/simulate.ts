@@ -4,9 +4,9 @@ import type { Command } from 'commander';
 import { msg } from '../../../lib/errors';
 import { consumeWarnings } from '../../../lib/warnings';
 import { readScenario } from '../../../lib/simulate/scenario';
-import { SCENARIO_SCHEMA } from '../../../lib/simulate/scenario-schema';
+import { SCENARIO_SCHEMA } from '../../../lib/simulate/scenarioSchema';
 import { simulateChamber } from '../../../lib/simulate/simulate';
-import { formatHitsCsv, formatRunRecord, formatTruthCsv } from '../../../lib/simulate/simulation-csv';
+import { formatHitsCsv, formatRunRecord, formatTruthCsv } from '../../../lib/simulate/simulationCsv';
 
 export interface SimulateCommandOptions {
   seed: string;

@@ -3,7 +3,7 @@ import { material as findMaterial, type Material } from '../matter/materials';
 import { energyAtRange, rangeAt, rangeCutoffMeV, rangeMaxMeV, rangeTable, type RangeTable } from '../matter/range';
 import type { Particle } from '../particles';
 import { highlandTheta0, HIGHLAND_MAX_X_OVER_X0, HIGHLAND_MIN_X_OVER_X0, radiationLengthM } from '../track/highland';
-import { bohrVarianceMeV2 } from './bohr-straggling';
+import { bohrVarianceMeV2 } from './bohrStraggling';
 import type { Medium, SpeciesLoss } from './medium';
 
 /** Points of the per-species range table (log-spaced from the cutoff to the top energy). */
