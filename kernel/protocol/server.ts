@@ -458,7 +458,7 @@ export class KernelServer {
   private async isComplete(msg: Message): Promise<void> {
     const code = String(msg.content.code ?? '');
     const status = await (await this.getSession()).isComplete(code);
-    await this.reply('shell', msg, 'is_complete_reply', status === 'incomplete' ? { status, indent: '' } : { status });
+    await this.reply('shell', msg, 'is_complete_reply', status === 'incomplete' ? { status, indent: nextIndent(code) } : { status });
   }
 
   private reply(channel: 'shell' | 'control', request: Message, type: string, content: Record<string, unknown>, metadata: Record<string, unknown> = {}): Promise<void> {
@@ -499,4 +499,11 @@ function globToRegExp(glob: string): RegExp {
     .map((ch) => (ch === '*' ? '[\\s\\S]*' : ch === '?' ? '[\\s\\S]' : ch.replace(/[.+^${}()|[\]\\]/g, (c) => `\\${c}`)))
     .join('');
   return new RegExp(`^${body}$`);
+}
+
+/** Indentation for the line after an unfinished one: its own, plus two spaces after an opening bracket. */
+export function nextIndent(code: string): string {
+  const last = code.split('\n').at(-1) ?? '';
+  const current = /^\s*/.exec(last)![0];
+  return /[{([]\s*$/.test(last) ? `${current}  ` : current;
 }

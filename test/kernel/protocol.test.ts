@@ -194,7 +194,7 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     expect((await ask('const p = 1.5 * 0.3;')).status).toBe('complete');
     const open = await ask('for (let i = 0; i < 3; i++) {');
     expect(open.status).toBe('incomplete');
-    expect(typeof open.indent).toBe('string');
+    expect(open.indent).toBe('  ');
     expect((await ask('let x = 1 +* ;)')).status).toBe('invalid');
   });
 
