@@ -55,12 +55,14 @@ async function handle(m: ToChild): Promise<void> {
     if (!session) throw new Error('cell before start');
     current = m.index;
     const index = m.index;
+    const c0 = performance.now();
     const outcome = await session.execute(m.code, {
       stream: (name, text) => send({ kind: 'stream', index, name, text }),
       display: (bundle, options) => send({ kind: 'display', index, bundle: toJson(bundle), displayId: options.displayId, update: options.update }),
     });
+    const execMs = performance.now() - c0;
     if (outcome.result) outcome.result = toJson(outcome.result);
-    send({ kind: 'done', index, outcome, provenance: provenanceSnapshot() });
+    send({ kind: 'done', index, outcome, provenance: provenanceSnapshot(), execMs });
   } else {
     session?.close();
     process.disconnect?.();

@@ -12,5 +12,6 @@ export type FromChild =
   | { kind: 'ready'; typescript: string; startMs: number }
   | { kind: 'stream'; index: number; name: 'stdout' | 'stderr'; text: string }
   | { kind: 'display'; index: number; bundle: MimeBundle; displayId?: string; update?: boolean }
-  | { kind: 'done'; index: number; outcome: CellOutcome; provenance: ProvenanceSnapshot }
+  /** `execMs`: time the session spent on the cell inside the child (compile + run). */
+  | { kind: 'done'; index: number; outcome: CellOutcome; provenance: ProvenanceSnapshot; execMs: number }
   | { kind: 'fault'; message: string };

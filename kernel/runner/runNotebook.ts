@@ -33,8 +33,10 @@ export interface NotebookRun {
   readonly exitCode: 0 | 1;
   /** One line saying why the run is not complete. */
   readonly reason?: string;
-  /** Milliseconds from fork to the child's first idle moment (compiler and library loaded). */
+  /** Milliseconds from fork to the child's first idle moment (compiler built). */
   readonly startMs: number;
+  /** Per completed cell: runner wall time minus the session's own time for it (IPC, bookkeeping), ms. */
+  readonly overheadMs: readonly number[];
 }
 
 const DEFAULTS = Object.freeze({ cellTimeoutMs: 120_000, keepGoing: false, startTimeoutMs: 120_000 });
@@ -85,6 +87,7 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
   let startMs = NaN;
   let reason: string | undefined;
   const failures: string[] = [];
+  const overheadMs: number[] = [];
 
   try {
     channel.send({ kind: 'start', workDir });
@@ -120,6 +123,7 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
         }
         if (end.kind === 'done') {
           provenance = end.message.provenance;
+          overheadMs.push(wallMs - end.message.execMs);
           if (end.message.outcome.status === 'ok') {
             meta.outcome = 'done';
             continue;
@@ -158,6 +162,7 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
     exitCode: reason === undefined ? 0 : 1,
     reason,
     startMs,
+    overheadMs,
     run: {
       source: { path, sha256: loaded.sha256, sizeBytes: loaded.sizeBytes },
       startedAt: startedAt.toISOString(),
