@@ -4,6 +4,7 @@ import type { Cell, SagittaCellMeta } from '../notebook/types';
 import { joinSource } from '../notebook/source';
 import { plotlySource } from './assets';
 import { escapeHtml, jsonForScript } from './escape';
+import { highlightTypeScript } from './highlight';
 import { renderMarkdown } from './markdown';
 import { FigureStore, renderOutput } from './outputs';
 import { REPORT_CSS } from './style';
@@ -83,7 +84,7 @@ export function renderReport(input: ReportInput): string {
       entries.push(
         `<section class="${classes.join(' ')}" id="cell-${escapeHtml(cell.id ?? String(i + 1))}">` +
           `<aside class="sg-note"><b>[${codeNo}]</b>${noteText(meta)}</aside>` +
-          `<details${codeOpen ? ' open' : ''}><summary>${escapeHtml(label)}</summary><pre><code>${escapeHtml(joinSource(cell.source))}</code></pre></details>` +
+          `<details${codeOpen ? ' open' : ''}><summary>${escapeHtml(label)}</summary><pre><code>${highlightTypeScript(joinSource(cell.source))}</code></pre></details>` +
           (outs ? `<div class="sg-outputs">${outs}</div>` : '') +
           '</section>',
       );

@@ -2,6 +2,7 @@ export * from './types';
 export * from './escape';
 export * from './sanitize';
 export * from './markdown';
+export * from './highlight';
 export * from './outputs';
 export * from './html';
 export * from './chromium';

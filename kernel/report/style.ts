@@ -47,6 +47,10 @@ math { font-size: 1.08em; }
 .sg-code > details > summary { font: 0.75rem/1 var(--sans); letter-spacing: 0.06em; text-transform: uppercase; color: #a9b1c3; padding: 0.55rem 0.8rem; cursor: pointer; user-select: none; }
 .sg-code > details > pre { margin: 0; padding: 0 0.9rem 0.8rem; overflow-x: auto; font: 0.84rem/1.5 var(--mono); white-space: pre; }
 body.sg-hide-code .sg-code > details { display: none; }
+.sg-code .sg-c { color: #8d96a8; font-style: italic; }
+.sg-code .sg-s { color: #e0b27a; }
+.sg-code .sg-n { color: #9fd3c7; }
+.sg-code .sg-k { color: #f0a07a; }
 .sg-injected > details { border-left: 4px solid var(--copper); }
 .sg-outputs { margin-top: 0.5rem; }
 .sg-out { margin: 0.4rem 0; }

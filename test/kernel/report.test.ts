@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { inflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromiumPath, collapseCarriageReturns, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
+import { chromiumPath, collapseCarriageReturns, highlightTypeScript, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
 import { executedFixture, XSS } from './reportFixture';
 import { plotlySource } from '../../kernel/report/assets';
 
@@ -63,6 +63,14 @@ describe('renderReport (static checks)', () => {
     expect(out).toContain('[image “far” not embedded: remote images are not loaded by a self-contained report]');
     expect(out).toContain("[image “up” not embedded: outside the notebook's folder]");
     expect(out).toContain('[image “gone” not embedded: file not found]');
+  });
+
+  it('highlightTypeScript colours tokens and escapes every character exactly once', () => {
+    const code = 'const s = "<b>"; // a < b & c\nlet n = 1.5e3; /* x */ `t ${1}`';
+    const out = highlightTypeScript(code);
+    expect(out).toBe('<span class="sg-k">const</span> s = <span class="sg-s">&quot;&lt;b&gt;&quot;</span>; <span class="sg-c">// a &lt; b &amp; c</span>\n<span class="sg-k">let</span> n = <span class="sg-n">1.5e3</span>; <span class="sg-c">/* x */</span> <span class="sg-s">`t ${1}`</span>');
+    const text = out.replace(/<[^>]+>/g, '').replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, '&');
+    expect(text).toBe(code);
   });
 
   it('collapseCarriageReturns keeps what a terminal would show', () => {
