@@ -1,10 +1,11 @@
 import { STATUS_CODE, type CircleFitColumns } from './circleFit';
-import { invertSym3, normalEquations, paramsFromCentre, turningSense, type TrackParams } from './curvatureResidual';
+import { invertSym3, normalEquations, paramsFromCentre, type TrackParams } from './curvatureResidual';
 
 /**
- * The two algebraic circle fits (internal kernels; public wrappers in kasa.ts / taubin.ts).
+ * The two algebraic circle fits (internal kernels; the public entry is fitCircles.ts).
  * Both work on weighted, centred moments of one track's hits [from, to) and give a centre and
- * radius in one pass, no iteration.
+ * radius without iteration. Weights are per hit, w = 2/(σx² + σy²), computed once per table by
+ * the caller (undefined: unit weights).
  */
 
 /** A circle from an algebraic fit, in the coordinates of the hits. */
@@ -12,6 +13,8 @@ export interface Circle {
   xc: number;
   yc: number;
   radius: number;
+  /** Turning sense of the hits in order: +1 counter-clockwise, −1 clockwise (seen from +z). */
+  sense: number;
 }
 
 /** Weighted centred moments of one track. */
@@ -22,65 +25,107 @@ interface Moments {
   xz: number; yz: number; zz: number;
   /** Mean of z = x'² + y'² (centred). */
   mz: number;
+  /** Σ p_i × p_{i+1} over consecutive hits (centred), for the turning sense. */
+  swept: number;
+  /** Last minus first hit (centred = raw differences). */
+  dx: number; dy: number;
 }
 
-const M: Moments = { n: 0, mx: 0, my: 0, xx: 0, yy: 0, xy: 0, xz: 0, yz: 0, zz: 0, mz: 0 };
+const M: Moments = { n: 0, mx: 0, my: 0, xx: 0, yy: 0, xy: 0, xz: 0, yz: 0, zz: 0, mz: 0, swept: 0, dx: 0, dy: 0 };
+
+let ONES = new Float64Array(0);
+/** A shared array of at least n ones (unit weights), grown on demand. */
+function ones(n: number): Float64Array {
+  if (ONES.length < n) ONES = new Float64Array(Math.max(n, 2 * ONES.length, 1024)).fill(1);
+  return ONES;
+}
 
 /**
  * Weighted centred moments, two passes (mean, then moments about it) for accuracy when the
- * track sits far from the origin. Weight w = 2/(σx² + σy²), or 1 without errors.
+ * track sits far from the origin. The second pass also sums the cross products of consecutive
+ * hits, from which `senseAbout` gets the turning sense without another pass.
  */
-function moments(x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined, from: number, to: number): Moments {
+function moments(x: Float64Array, y: Float64Array, w: Float64Array | undefined, from: number, to: number): Moments {
   let sw = 0, sxw = 0, syw = 0;
-  if (sx === undefined) {
-    for (let i = from; i < to; i++) { sxw += x[i]; syw += y[i]; }
-    sw = to - from;
-  } else {
-    for (let i = from; i < to; i++) {
-      const ex = sx[i], ey = sy![i];
-      const w = 2 / (ex * ex + ey * ey);
-      sw += w; sxw += w * x[i]; syw += w * y[i];
-    }
+  const ww = w ?? ones(to);
+  for (let i = from; i < to; i++) {
+    const wi = ww[i];
+    sw += wi; sxw += wi * x[i]; syw += wi * y[i];
   }
   const mx = sxw / sw, my = syw / sw;
-  let xx = 0, yy = 0, xy = 0, xz = 0, yz = 0, zz = 0;
+  let xx = 0, yy = 0, xy = 0, xz = 0, yz = 0, zz = 0, swept = 0;
+  let pu = x[from] - mx, pv = y[from] - my;
   for (let i = from; i < to; i++) {
-    let w = 1;
-    if (sx !== undefined) {
-      const ex = sx[i], ey = sy![i];
-      w = 2 / (ex * ex + ey * ey);
-    }
+    const wi = ww[i];
     const u = x[i] - mx, v = y[i] - my;
     const z = u * u + v * v;
-    const wu = w * u, wv = w * v, wz = w * z;
+    const wu = wi * u, wv = wi * v, wz = wi * z;
     xx += wu * u; yy += wv * v; xy += wu * v;
     xz += wu * z; yz += wv * z; zz += wz * z;
+    swept += pu * v - pv * u;
+    pu = u; pv = v;
   }
   const iw = 1 / sw;
   M.n = to - from; M.mx = mx; M.my = my;
   M.xx = xx * iw; M.yy = yy * iw; M.xy = xy * iw;
   M.xz = xz * iw; M.yz = yz * iw; M.zz = zz * iw;
   M.mz = M.xx + M.yy;
+  M.swept = swept;
+  M.dx = x[to - 1] - x[from];
+  M.dy = y[to - 1] - y[from];
   return M;
+}
+
+/**
+ * Turning sense (+1 counter-clockwise, −1 clockwise) of the hits of the last `moments` call
+ * about the centre (xc, yc): Σ (p_i − c) × (p_{i+1} − c) = Σ p_i × p_{i+1} + (p_last − p_first) × c,
+ * twice the signed area swept — right for arcs and for spirals of several turns.
+ */
+function senseAbout(xc: number, yc: number): number {
+  const cu = xc - M.mx, cv = yc - M.my;
+  return M.swept + (M.dx * cv - M.dy * cu) >= 0 ? 1 : -1;
 }
 
 /**
  * Kåsa fit: minimises Σ w (x² + y² + Dx + Ey + F)² (Kåsa, IEEE Trans. Instrum. Meas. IM-25
  * (1976) 8). Fast and exact on exact points, but biased towards small radii on short, noisy
  * arcs (Chernov, "Circular and Linear Regression", CRC 2010, ch. 5).
- * In centred coordinates the F equation decouples: F = −mean(z), and (D, E) solve a 2×2 system.
+ * The fit is translation-covariant, so it runs in one pass on coordinates relative to the first
+ * hit (which keeps the sums of the order of the track's size); eliminating F leaves a 2×2
+ * system in the centred sums.
  */
-export function kasaCircle(x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined, from: number, to: number, out: Circle): boolean {
-  const m = moments(x, y, sx, sy, from, to);
-  const det = m.xx * m.yy - m.xy * m.xy;
-  if (!(det > 1e-30 * (m.xx + m.yy) ** 2)) return false;
-  // [xx xy; xy yy][D; E] = −[xz; yz]; centre = (−D/2, −E/2).
-  const D = -(m.xz * m.yy - m.yz * m.xy) / det;
-  const E = -(m.yz * m.xx - m.xz * m.xy) / det;
+export function kasaCircle(x: Float64Array, y: Float64Array, w: Float64Array | undefined, from: number, to: number, out: Circle): boolean {
+  const x0 = x[from], y0 = y[from];
+  let sw = 0, su = 0, sv = 0, suu = 0, svv = 0, suv = 0, suz = 0, svz = 0, sz = 0, swept = 0;
+  let pu = 0, pv = 0;
+  // Unit weights read from a shared array of ones, so one loop body serves both cases.
+  const ww = w ?? ones(to);
+  for (let i = from; i < to; i++) {
+    const wi = ww[i];
+    const u = x[i] - x0, v = y[i] - y0;
+    const z = u * u + v * v;
+    const wu = wi * u, wv = wi * v;
+    sw += wi; su += wu; sv += wv;
+    suu += wu * u; svv += wv * v; suv += wu * v;
+    suz += wu * z; svz += wv * z; sz += wi * z;
+    swept += pu * v - pv * u;
+    pu = u; pv = v;
+  }
+  const mu = su / sw, mv = sv / sw, mz = sz / sw;
+  const xx = suu / sw - mu * mu, yy = svv / sw - mv * mv, xy = suv / sw - mu * mv;
+  const xz = suz / sw - mu * mz, yz = svz / sw - mv * mz;
+  const det = xx * yy - xy * xy;
+  if (!(det > 1e-30 * (xx + yy) ** 2)) return false;
+  // [xx xy; xy yy][D; E] = −[xz; yz]; F = −(mean z + D·mean u + E·mean v); centre = (−D/2, −E/2).
+  const D = -(xz * yy - yz * xy) / det;
+  const E = -(yz * xx - xz * xy) / det;
+  const F = -(mz + D * mu + E * mv);
   const a = -D / 2, b = -E / 2;
-  out.xc = a + m.mx;
-  out.yc = b + m.my;
-  out.radius = Math.sqrt(a * a + b * b + m.mz);
+  out.xc = a + x0;
+  out.yc = b + y0;
+  out.radius = Math.sqrt(a * a + b * b - F);
+  // Σ (p_i − c) × (p_{i+1} − c) = Σ p_i × p_{i+1} + (p_last − p_first) × c, here with p_first = 0.
+  out.sense = swept + (pu * b - pv * a) >= 0 ? 1 : -1;
   return Number.isFinite(out.radius);
 }
 
@@ -90,8 +135,8 @@ export function kasaCircle(x: Float64Array, y: Float64Array, sx: Float64Array | 
  * Chernov, "Circular and Linear Regression" (CRC 2010), §5.10. Essentially unbiased in the
  * radius to first order, where Kåsa is biased on short arcs.
  */
-export function taubinCircle(x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined, from: number, to: number, out: Circle): boolean {
-  const m = moments(x, y, sx, sy, from, to);
+export function taubinCircle(x: Float64Array, y: Float64Array, w: Float64Array | undefined, from: number, to: number, out: Circle): boolean {
+  const m = moments(x, y, w, from, to);
   const mz = m.mz;
   const covXY = m.xx * m.yy - m.xy * m.xy;
   const varZ = m.zz - mz * mz;
@@ -117,6 +162,7 @@ export function taubinCircle(x: Float64Array, y: Float64Array, sx: Float64Array 
   out.xc = a + m.mx;
   out.yc = b + m.my;
   out.radius = Math.sqrt(a * a + b * b + mz);
+  out.sense = senseAbout(out.xc, out.yc);
   return Number.isFinite(out.radius) && Number.isFinite(out.xc) && Number.isFinite(out.yc);
 }
 
@@ -132,12 +178,12 @@ const P: TrackParams = { kappa: 0, phi: 0, d: 0 };
  * and the covariance are NaN (the lean mode the speed benchmark measures separately).
  */
 export function storeCircle(
-  circle: Circle, x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined,
+  circle: Circle, x: Float64Array, y: Float64Array, w: Float64Array | undefined,
+  sx: Float64Array | undefined, sy: Float64Array | undefined,
   from: number, to: number, out: CircleFitColumns, k: number, covariance: boolean,
 ): void {
   const xr = x[from], yr = y[from];
-  const sense = turningSense(x, y, from, to, circle.xc, circle.yc);
-  paramsFromCentre(circle.xc, circle.yc, circle.radius, sense, xr, yr, P);
+  paramsFromCentre(circle.xc, circle.yc, circle.radius, circle.sense, xr, yr, P);
   out.kappa[k] = P.kappa;
   out.phi0[k] = P.phi;
   out.d0[k] = P.d;
@@ -146,15 +192,10 @@ export function storeCircle(
   out.ndf[k] = to - from - 3;
   out.iterations[k] = 0;
   out.status[k] = STATUS_CODE.ok;
-  const c = 6 * k;
-  if (!covariance) {
-    out.chi2[k] = NaN;
-    const cov = out.cov;
-    cov[c] = NaN; cov[c + 1] = NaN; cov[c + 2] = NaN; cov[c + 3] = NaN; cov[c + 4] = NaN; cov[c + 5] = NaN;
-    return;
-  }
-  out.chi2[k] = normalEquations(x, y, sx, sy, from, to, xr, yr, P, A, G);
-  finishCovariance(out, k, sx === undefined);
+  // Lean mode: χ² and covariance stay NaN as allocated.
+  if (!covariance) return;
+  out.chi2[k] = normalEquations(x, y, w, sx, sy, from, to, xr, yr, P, A, G);
+  finishCovariance(out, k, w === undefined);
 }
 
 /**

@@ -68,8 +68,9 @@ export function allocateCircleFits(count: number): CircleFitColumns {
     d0: new Float64Array(count),
     xRef: new Float64Array(count),
     yRef: new Float64Array(count),
-    cov: new Float64Array(6 * count),
-    chi2: new Float64Array(count),
+    // NaN until a fit writes them: a lean algebraic fit leaves them so.
+    cov: new Float64Array(6 * count).fill(NaN),
+    chi2: new Float64Array(count).fill(NaN),
     ndf: new Int32Array(count),
     iterations: new Int32Array(count),
     status: new Uint8Array(count),

@@ -12,24 +12,6 @@
  *     ∂r/∂Q = (κa·t + (κB − 1)·n)/S   (a unit vector: the direction of the residual)
  */
 
-/**
- * Turning sense of hits around a centre: +1 when the hits, in order, go counter-clockwise, −1
- * clockwise. Sums the cross products of consecutive centre-to-hit vectors (twice the signed
- * area swept), so it is right for arcs and for spirals of several turns alike, and needs no
- * trigonometry (this runs once per track in the algebraic fits' hot loop).
- */
-export function turningSense(x: Float64Array, y: Float64Array, from: number, to: number, xc: number, yc: number): number {
-  let swept = 0;
-  let px = x[from] - xc, py = y[from] - yc;
-  for (let i = from + 1; i < to; i++) {
-    const qx = x[i] - xc, qy = y[i] - yc;
-    swept += px * qy - py * qx;
-    px = qx;
-    py = qy;
-  }
-  return swept >= 0 ? 1 : -1;
-}
-
 /** Output slot for (κ, φ, d). */
 export interface TrackParams {
   kappa: number;
@@ -74,18 +56,18 @@ export function extent(x: Float64Array, y: Float64Array, from: number, to: numbe
 /**
  * Normal equations of the geometric fit at (κ, φ, d): fills `A` (6 numbers, upper triangle of
  * JᵀWJ: κκ, κφ, κd, φφ, φd, dd) and `g` (JᵀWr, 3 numbers) and returns χ² = Σ w r².
- * `sx`/`sy` are per-hit errors (the same array for isotropic errors) or undefined for unit
- * weights. With σx ≠ σy the weight uses the error along the residual direction ∂r/∂Q.
+ * Weights: `w` per hit (1/σ² for isotropic errors, precomputed by the caller) or, when the
+ * errors differ in x and y, `sx`/`sy` — then the weight uses the error along the residual
+ * direction ∂r/∂Q. Neither: unit weights.
  */
 export function normalEquations(
-  x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined,
+  x: Float64Array, y: Float64Array, w: Float64Array | undefined, sx: Float64Array | undefined, sy: Float64Array | undefined,
   from: number, to: number, xr: number, yr: number, p: TrackParams, A: Float64Array, g: Float64Array,
 ): number {
   const { kappa, phi, d } = p;
   const c = Math.cos(phi), s = Math.sin(phi);
   const oneMinusKd = 1 - kappa * d;
   let a00 = 0, a01 = 0, a02 = 0, a11 = 0, a12 = 0, a22 = 0, g0 = 0, g1 = 0, g2 = 0, chi2 = 0;
-  const isotropic = sx === sy;
   for (let i = from; i < to; i++) {
     const dx = x[i] - xr, dy = y[i] - yr;
     const a = dx * c + dy * s;
@@ -98,23 +80,20 @@ export function normalEquations(
     const jp = a * oneMinusKd * iS;
     const kB1 = kappa * B - 1;
     const jd = kB1 * iS;
-    let w = 1;
+    let wi = 1;
     if (sx !== undefined) {
-      if (isotropic) {
-        const e = sx[i];
-        w = 1 / (e * e);
-      } else {
-        // Residual direction ∂r/∂Q in x, y components.
-        const gx = (kappa * a * c - kB1 * s) * iS, gy = (kappa * a * s + kB1 * c) * iS;
-        const ex = sx[i], ey = sy![i];
-        w = 1 / (ex * ex * gx * gx + ey * ey * gy * gy);
-      }
+      // Residual direction ∂r/∂Q in x, y components.
+      const gx = (kappa * a * c - kB1 * s) * iS, gy = (kappa * a * s + kB1 * c) * iS;
+      const ex = sx[i], ey = sy![i];
+      wi = 1 / (ex * ex * gx * gx + ey * ey * gy * gy);
+    } else if (w !== undefined) {
+      wi = w[i];
     }
-    const wjk = w * jk, wjp = w * jp, wjd = w * jd;
+    const wjk = wi * jk, wjp = wi * jp, wjd = wi * jd;
     a00 += wjk * jk; a01 += wjk * jp; a02 += wjk * jd;
     a11 += wjp * jp; a12 += wjp * jd; a22 += wjd * jd;
     g0 += wjk * r; g1 += wjp * r; g2 += wjd * r;
-    chi2 += w * r * r;
+    chi2 += wi * r * r;
   }
   A[0] = a00; A[1] = a01; A[2] = a02; A[3] = a11; A[4] = a12; A[5] = a22;
   g[0] = g0; g[1] = g1; g[2] = g2;

@@ -2,17 +2,12 @@ import { msg } from '../errors';
 import { allocateCircleFits, circleFitAt, STATUS_CODE, type CircleFit, type CircleFitColumns } from './circleFit';
 import { kasaCircle, storeCircle, taubinCircle, type Circle } from './algebraicCircle';
 import { geometricCircleInto, GEOMETRIC_FIT_DEFAULTS } from './geometricCircle';
+import { preparePlaneHits, type PlaneHits } from './preparePlaneHits';
 
 export type CircleMethod = 'kasa' | 'taubin' | 'geometric';
 export const CIRCLE_METHODS: readonly CircleMethod[] = ['kasa', 'taubin', 'geometric'];
 
-/** Hit coordinates [m] and optional per-hit errors [m] as typed-array columns. */
-export interface PlaneHits {
-  readonly x: Float64Array;
-  readonly y: Float64Array;
-  readonly sigmaX?: Float64Array;
-  readonly sigmaY?: Float64Array;
-}
+export type { PlaneHits } from './preparePlaneHits';
 
 export interface CircleFitOptions {
   /** Default 'geometric'. */
@@ -26,12 +21,14 @@ export interface CircleFitOptions {
 
 export const CIRCLE_FIT_DEFAULTS = Object.freeze({ method: 'geometric' as CircleMethod, covariance: true, ...GEOMETRIC_FIT_DEFAULTS });
 
-const CIRCLE: Circle = { xc: 0, yc: 0, radius: 0 };
+const CIRCLE: Circle = { xc: 0, yc: 0, radius: 0, sense: 1 };
 
 /**
  * Fits a circle to every track of a hit table: track k is rows [offsets[k], offsets[k+1]).
  * Never throws on bad numbers: a track with fewer than 3 hits, non-finite coordinates or
  * errors, or all hits on one point gets a status and NaN parameters (STYLE.md §6).
+ * Plain hits are prepared first (weights, one screen of all numbers); pass hits from
+ * `preparePlaneHits` to fit the same hits repeatedly without redoing that.
  * @example fitCircles(hits, index.offsets, { method: 'taubin' }).kappa
  */
 export function fitCircles(hits: PlaneHits, offsets: Int32Array, options: CircleFitOptions = {}): CircleFitColumns {
@@ -41,23 +38,23 @@ export function fitCircles(hits: PlaneHits, offsets: Int32Array, options: Circle
   const maxIterations = options.maxIterations ?? CIRCLE_FIT_DEFAULTS.maxIterations;
   const tolerance = options.tolerance ?? CIRCLE_FIT_DEFAULTS.tolerance;
   const chi2Tolerance = options.chi2Tolerance ?? CIRCLE_FIT_DEFAULTS.chi2Tolerance;
-  const { x, y } = hits;
-  const sx = hits.sigmaX;
-  const sy = hits.sigmaY ?? sx;
+  const prepared = preparePlaneHits(hits);
+  const { x, y, sigmaX: sx, sigmaY: sy, weights: w, anisotropic, allUsable: clean } = prepared;
   const count = offsets.length - 1;
   const out = allocateCircleFits(count);
+  const asx = anisotropic ? sx : undefined, asy = anisotropic ? sy : undefined;
   for (let k = 0; k < count; k++) {
     const from = offsets[k], to = offsets[k + 1];
-    const problem = checkTrack(x, y, sx, sy, from, to);
+    const problem = to - from < 3 ? STATUS_CODE['too-few-hits'] : clean ? STATUS_CODE.ok : checkTrack(x, y, sx, sy, from, to);
     if (problem !== STATUS_CODE.ok) {
       markFailed(out, k, problem, to - from);
       continue;
     }
     if (method === 'geometric') {
-      geometricCircleInto(x, y, sx, sy, from, to, out, k, maxIterations, tolerance, chi2Tolerance);
+      geometricCircleInto(x, y, w, asx, asy, from, to, out, k, maxIterations, tolerance, chi2Tolerance);
     } else {
-      const ok = method === 'kasa' ? kasaCircle(x, y, sx, sy, from, to, CIRCLE) : taubinCircle(x, y, sx, sy, from, to, CIRCLE);
-      if (ok) storeCircle(CIRCLE, x, y, sx, sy, from, to, out, k, covariance);
+      const ok = method === 'kasa' ? kasaCircle(x, y, w, from, to, CIRCLE) : taubinCircle(x, y, w, from, to, CIRCLE);
+      if (ok) storeCircle(CIRCLE, x, y, w, asx, asy, from, to, out, k, covariance);
       else markFailed(out, k, STATUS_CODE.degenerate, to - from);
     }
   }
@@ -65,8 +62,9 @@ export function fitCircles(hits: PlaneHits, offsets: Int32Array, options: Circle
 }
 
 /**
- * Cheap screen before a fit: enough hits, finite coordinates, positive finite errors.
- * (Hits all on one point are caught by the fits themselves, which find no circle.)
+ * Screen of one track (used only when the table-wide screen found a bad number): enough hits,
+ * finite coordinates, positive finite errors. (Hits all on one point are caught by the fits
+ * themselves, which find no circle.)
  */
 function checkTrack(x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined, from: number, to: number): number {
   if (to - from < 3) return STATUS_CODE['too-few-hits'];

@@ -61,6 +61,47 @@ export function arcLengths(x: Float64Array, y: Float64Array, from: number, to: n
   }
 }
 
+/**
+ * Arc lengths as `arcLengths`, plus their derivatives with respect to the circle parameters,
+ * in the same single pass (one atan2 per hit). With N = κa, D = 1 − κB, Q = N² + D², ψ = atan2(N, D):
+ *     ∂s/∂φ = (D·b − N·a)/Q,   ∂s/∂d = N/Q,   ∂s/∂κ = ((D·a + N·B)/Q − s)/κ
+ * (b = B − d). For a nearly straight piece (|κa|, |κB| < 1e-4) ∂s/∂κ uses the series
+ * s ≈ a + κaB + κ²(aB² − a³/3), whose derivative avoids the cancellation.
+ */
+export function arcLengthsAndSlopes(
+  x: Float64Array, y: Float64Array, from: number, to: number, kappa: number, phi: number, d: number, xr: number, yr: number,
+  s: Float64Array, dsK: Float64Array, dsP: Float64Array, dsD: Float64Array,
+): void {
+  const c = Math.cos(phi), sn = Math.sin(phi);
+  let prev = 0;
+  let turns = 0;
+  for (let i = from; i < to; i++) {
+    const j = i - from;
+    const dx = x[i] - xr, dy = y[i] - yr;
+    const a = dx * c + dy * sn;
+    const b = -dx * sn + dy * c;
+    const B = b + d;
+    const N = kappa * a, D = 1 - kappa * B;
+    const Q = N * N + D * D;
+    dsP[j] = (D * b - N * a) / Q;
+    dsD[j] = N / Q;
+    if (kappa === 0) {
+      s[j] = a;
+      dsK[j] = a * B;
+      continue;
+    }
+    let psi = Math.atan2(N, D) + turns;
+    while (psi - prev > Math.PI) { psi -= 2 * Math.PI; turns -= 2 * Math.PI; }
+    while (psi - prev < -Math.PI) { psi += 2 * Math.PI; turns += 2 * Math.PI; }
+    prev = psi;
+    const sj = psi / kappa;
+    s[j] = sj;
+    dsK[j] = turns === 0 && Math.abs(N) + Math.abs(kappa * B) < 1e-4
+      ? a * B + 2 * kappa * (a * B * B - (a * a * a) / 3)
+      : ((D * a + N * B) / Q - sj) / kappa;
+  }
+}
+
 const SYM5 = [0, 1, 2, 3, 4, 1, 5, 6, 7, 8, 2, 6, 9, 10, 11, 3, 7, 10, 12, 13, 4, 8, 11, 13, 14];
 
 /**
@@ -81,7 +122,8 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
   const chi2Z = new Float64Array(count).fill(NaN);
   const ndfZ = new Int32Array(count);
   // Scratch, grown as needed; nothing is allocated per track.
-  let s = new Float64Array(64), sp = new Float64Array(64), w = new Float64Array(64);
+  let s = new Float64Array(64), w = new Float64Array(64);
+  let dsK = new Float64Array(64), dsP = new Float64Array(64), dsD = new Float64Array(64);
   const line = newLineScratch();
   const G = new Float64Array(6);
   const GC = new Float64Array(6);
@@ -93,10 +135,13 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
     ndfZ[k] = Math.max(0, n - 2);
     const st = FIT_STATUS[circle.status[k]];
     if (st !== 'ok' && st !== 'not-converged') continue;
-    if (s.length < n) { s = new Float64Array(2 * n); sp = new Float64Array(2 * n); w = new Float64Array(2 * n); }
+    if (s.length < n) {
+      s = new Float64Array(2 * n); w = new Float64Array(2 * n);
+      dsK = new Float64Array(2 * n); dsP = new Float64Array(2 * n); dsD = new Float64Array(2 * n);
+    }
     const kap = circle.kappa[k], phi = circle.phi0[k], d = circle.d0[k], xr = circle.xRef[k], yr = circle.yRef[k];
     const zs = z.subarray(from, to);
-    arcLengths(x, y, from, to, kap, phi, d, xr, yr, s);
+    arcLengthsAndSlopes(x, y, from, to, kap, phi, d, xr, yr, s, dsK, dsP, dsD);
     let weights: Float64Array | undefined;
     if (hits.sigmaZ) {
       for (let i = 0; i < n; i++) { const e = hits.sigmaZ[from + i]; w[i] = 1 / (e * e); }
@@ -122,25 +167,19 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
     ndfZ[k] = n - 2;
     // G = ∂(z0, tanλ)/∂(κ, φ0, d0) by the chain rule: analytic ∂(z0, t)/∂s_i of the linear fit
     //   ∂t/∂s_i = w_i (r_i − t (s_i − s̄)) / S_uu,   ∂z0/∂s_i = −s̄ ∂t/∂s_i − t w_i / S_w
-    // times ∂s_i/∂p from one-sided differences of the arc lengths.
-    let len = 0;
-    for (let i = 0; i < n; i++) len = Math.max(len, Math.abs(s[i]));
+    // times the analytic ∂s_i/∂p of arcLengthsAndSlopes.
     const sbar = line.meanU, suu = line.suu, sw = line.sumW;
-    for (let j = 0; j < 3; j++) {
-      const h = j === 0 ? 1e-7 * Math.max(Math.abs(kap), 1 / Math.max(len, 1e-9)) : j === 1 ? 1e-7 : 1e-7 * Math.max(len, 1e-9);
-      arcLengths(x, y, from, to, kap + (j === 0 ? h : 0), phi + (j === 1 ? h : 0), d + (j === 2 ? h : 0), xr, yr, sp);
-      let gz = 0, gt = 0;
-      for (let i = 0; i < n; i++) {
-        const wi = weights ? weights[i] : 1;
-        const ds = (sp[i] - s[i]) / h;
-        const r = zs[i] - zz0 - t * s[i];
-        const dt = (wi * (r - t * (s[i] - sbar))) / suu;
-        gt += dt * ds;
-        gz += (-sbar * dt - (t * wi) / sw) * ds;
-      }
-      G[j] = gz;
-      G[3 + j] = gt;
+    let gzK = 0, gzP = 0, gzD = 0, gtK = 0, gtP = 0, gtD = 0;
+    for (let i = 0; i < n; i++) {
+      const wi = weights ? weights[i] : 1;
+      const r = zs[i] - zz0 - t * s[i];
+      const dt = (wi * (r - t * (s[i] - sbar))) / suu;
+      const dz = -sbar * dt - (t * wi) / sw;
+      gtK += dt * dsK[i]; gtP += dt * dsP[i]; gtD += dt * dsD[i];
+      gzK += dz * dsK[i]; gzP += dz * dsP[i]; gzD += dz * dsD[i];
     }
+    G[0] = gzK; G[1] = gzP; G[2] = gzD;
+    G[3] = gtK; G[4] = gtP; G[5] = gtD;
     const c6 = circle.cov.subarray(6 * k, 6 * k + 6);
     // Cc as a full 3×3 (row-major) from its upper triangle.
     const c00 = c6[0], c01 = c6[1], c02 = c6[2], c11 = c6[3], c12 = c6[4], c22 = c6[5];

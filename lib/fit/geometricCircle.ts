@@ -1,6 +1,6 @@
 import { STATUS_CODE, type CircleFitColumns } from './circleFit';
 import { taubinCircle, finishCovariance, type Circle } from './algebraicCircle';
-import { extent, invertSym3, normalEquations, paramsFromCentre, paramsFromLine, turningSense, type TrackParams } from './curvatureResidual';
+import { extent, invertSym3, normalEquations, paramsFromCentre, paramsFromLine, type TrackParams } from './curvatureResidual';
 
 /** Options of the geometric fit. */
 export interface GeometricFitOptions {
@@ -24,7 +24,7 @@ const INV = new Float64Array(6);
 const DAMPED = new Float64Array(6);
 const P: TrackParams = { kappa: 0, phi: 0, d: 0 };
 const PREV: TrackParams = { kappa: 0, phi: 0, d: 0 };
-const START: Circle = { xc: 0, yc: 0, radius: 0 };
+const START: Circle = { xc: 0, yc: 0, radius: 0, sense: 1 };
 
 /**
  * Geometric (orthogonal-distance) least-squares circle fit in the (κ, φ, d) parametrisation,
@@ -36,12 +36,13 @@ const START: Circle = { xc: 0, yc: 0, radius: 0 };
  * Works for straight tracks (κ → 0) and for spirals of several turns.
  */
 export function geometricCircleInto(
-  x: Float64Array, y: Float64Array, sx: Float64Array | undefined, sy: Float64Array | undefined,
+  x: Float64Array, y: Float64Array, w: Float64Array | undefined, sx: Float64Array | undefined, sy: Float64Array | undefined,
   from: number, to: number, out: CircleFitColumns, k: number,
   maxIterations: number = GEOMETRIC_FIT_DEFAULTS.maxIterations, tolerance: number = GEOMETRIC_FIT_DEFAULTS.tolerance,
   chi2Tolerance: number = GEOMETRIC_FIT_DEFAULTS.chi2Tolerance,
 ): void {
   const xr = x[from], yr = y[from];
+  const errorsUnknown = w === undefined && sx === undefined;
   const scale = extent(x, y, from, to, xr, yr);
   if (!(scale > 0)) {
     // Every hit on one point: no circle to fit.
@@ -53,12 +54,12 @@ export function geometricCircleInto(
     out.cov.fill(NaN, 6 * k, 6 * k + 6);
     return;
   }
-  if (taubinCircle(x, y, sx, sy, from, to, START) && START.radius < 1e6 * scale) {
-    paramsFromCentre(START.xc, START.yc, START.radius, turningSense(x, y, from, to, START.xc, START.yc), xr, yr, P);
+  if (taubinCircle(x, y, w, from, to, START) && START.radius < 1e6 * scale) {
+    paramsFromCentre(START.xc, START.yc, START.radius, START.sense, xr, yr, P);
   } else {
     paramsFromLine(x, y, from, to, P);
   }
-  let chi2 = normalEquations(x, y, sx, sy, from, to, xr, yr, P, A, G);
+  let chi2 = normalEquations(x, y, w, sx, sy, from, to, xr, yr, P, A, G);
   let lambda = 0;
   let iterations = 0;
   let converged = false;
@@ -79,7 +80,7 @@ export function geometricCircleInto(
     // Measured in units of the scatter actually seen (χ²/ndf when that exceeds 1): a track the
     // circle does not describe well — a spiral that tightens as it loses energy — must still stop.
     const perDof = chi2 / Math.max(1, to - from - 3);
-    const gain = -(dk * G[0] + dp * G[1] + dd * G[2]) / (sx === undefined ? Math.max(perDof, 1e-300) : Math.max(perDof, 1));
+    const gain = -(dk * G[0] + dp * G[1] + dd * G[2]) / (errorsUnknown ? Math.max(perDof, 1e-300) : Math.max(perDof, 1));
     PREV.kappa = P.kappa; PREV.phi = P.phi; PREV.d = P.d;
     Aprev.set(A);
     Gprev.set(G);
@@ -89,12 +90,12 @@ export function geometricCircleInto(
     if (lambda === 0 && gain < chi2Tolerance) {
       // Converged: the full Gauss–Newton step changes χ² by less than the tolerance. Take it and
       // evaluate the normal matrix there for the covariance.
-      chi2 = normalEquations(x, y, sx, sy, from, to, xr, yr, P, A, G);
+      chi2 = normalEquations(x, y, w, sx, sy, from, to, xr, yr, P, A, G);
       converged = true;
       iterations++;
       break;
     }
-    const trial = normalEquations(x, y, sx, sy, from, to, xr, yr, P, A, G);
+    const trial = normalEquations(x, y, w, sx, sy, from, to, xr, yr, P, A, G);
     const movement = Math.abs(dk) * scale * scale * 0.5 + Math.abs(dp) * scale + Math.abs(dd);
     if (trial <= chi2 || !(chi2 > 0)) {
       chi2 = trial;
@@ -128,5 +129,5 @@ export function geometricCircleInto(
   out.ndf[k] = to - from - 3;
   out.iterations[k] = iterations;
   out.status[k] = converged && Number.isFinite(chi2) ? STATUS_CODE.ok : STATUS_CODE['not-converged'];
-  finishCovariance(out, k, sx === undefined, A);
+  finishCovariance(out, k, errorsUnknown, A);
 }

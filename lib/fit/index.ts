@@ -6,3 +6,4 @@ export {
 export { fitHelices, fitHelix, helixFitAt, arcLengths, type HelixFit, type HelixFitColumns, type SpaceHits } from './fitHelices';
 export { fitLine, type LineFit } from './fitLine';
 export { GEOMETRIC_FIT_DEFAULTS, type GeometricFitOptions } from './geometricCircle';
+export { preparePlaneHits, isPreparedPlaneHits, type PreparedPlaneHits } from './preparePlaneHits';

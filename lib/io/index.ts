@@ -5,4 +5,4 @@ export { parseHitsJsonl } from './parseHitsJsonl';
 export { readHits, HIT_FILE_FORMATS } from './readHits';
 export { indexTracks, gatherRows } from './indexTracks';
 export { hitsToDataFrame, loadDanfo } from './hitsToDataFrame';
-export { formatCsv, rowObjects, columnTableToDataFrame, writeFileAtomic, type Column, type ColumnTable } from './columnTable';
+export { formatCsv, formatCsvBytes, rowObjects, columnTableToDataFrame, writeFileAtomic, type Column, type ColumnTable } from './columnTable';

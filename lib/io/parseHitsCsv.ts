@@ -12,6 +12,8 @@ export interface ReadHitsOptions {
 export const READ_HITS_DEFAULTS = Object.freeze({ lengthUnit: 'mm' });
 
 const COMMA = 44, SEMICOLON = 59, TAB = 9, CR = 13, LF = 10, QUOTE = 34, SPACE = 32;
+const MINUS = 45, DOT = 46, ZERO = 48, NINE = 57;
+const POW10 = Float64Array.from({ length: 16 }, (_, k) => 10 ** k);
 
 /**
  * Parses a CSV hit file held in memory (bytes, UTF-8) into a HitTable.
@@ -82,10 +84,28 @@ export function parseHitsCsv(bytes: Uint8Array, file: string, options: ReadHitsO
         }
         i = end;
       } else if (column !== null) {
-        const v = scanNumber(bytes, i, n, delimiter);
-        if (v !== v) throw rowError(bytes, file, line, fields[f].raw, i, scanEnd, headerText);
-        column[row] = v * scale[f];
-        i = scanEnd;
+        // Inline fast path for the usual cell, [-]digits[.digits] with at most 15 digits: the
+        // significand is exact and one division by an exact power of ten rounds correctly
+        // (Clinger's fast path). Anything else goes to scanNumber.
+        let j = i;
+        let negative = false;
+        if (bytes[j] === MINUS) { negative = true; j++; }
+        let mantissa = 0, digits = 0, fraction = 0;
+        while (j < n && (c = bytes[j]) >= ZERO && c <= NINE) { mantissa = mantissa * 10 + (c - ZERO); j++; digits++; }
+        if (j < n && bytes[j] === DOT) {
+          j++;
+          while (j < n && (c = bytes[j]) >= ZERO && c <= NINE) { mantissa = mantissa * 10 + (c - ZERO); j++; digits++; fraction++; }
+        }
+        if (digits > 0 && digits <= 15 && (j >= n || (c = bytes[j]) === delimiter || c === LF || c === CR)) {
+          const v = mantissa / POW10[fraction];
+          column[row] = (negative ? -v : v) * scale[f];
+          i = j;
+        } else {
+          const v = scanNumber(bytes, i, n, delimiter);
+          if (v !== v) throw rowError(bytes, file, line, fields[f].raw, i, scanEnd, headerText);
+          column[row] = v * scale[f];
+          i = scanEnd;
+        }
       } else {
         while (i < n && (c = bytes[i]) !== delimiter && c !== LF && c !== CR) i++;
       }

@@ -156,7 +156,7 @@ describe('fitCircle covariance is honest (derived check by simulation)', () => {
     for (let i = 0; i < 8; i++) x[i] += 1e-3 * Math.sin(7 * i);
     const base = { kappa: 1.1, phi: 2.0, d: 0.01 };
     const A = new Float64Array(6), G = new Float64Array(3);
-    const chi2 = (p: typeof base) => normalEquations(x, y, undefined, undefined, 0, 8, x[0], y[0], p, A, G);
+    const chi2 = (p: typeof base) => normalEquations(x, y, undefined, undefined, undefined, 0, 8, x[0], y[0], p, A, G);
     chi2(base);
     const grad = Array.from(G).map((v) => 2 * v); // ∂χ²/∂p = 2 Jᵀr
     const h = 1e-7;

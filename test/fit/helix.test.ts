@@ -74,3 +74,39 @@ describe('fitLine (textbook weighted least squares)', () => {
     expect(f.cov[0]).toBeCloseTo(0.25 * (1 / 5 + 4 / 10), 12);
   });
 });
+
+describe('arcLengthsAndSlopes (analytic ∂s/∂(κ, φ, d) used by the helix covariance)', () => {
+  it('matches central finite differences of arcLengths, for curved, nearly straight and spiralling tracks', async () => {
+    const { arcLengthsAndSlopes } = await import('../../lib/fit/fitHelices');
+    const cases: [number, number, number][] = [[1.7, 0.3, 0.002], [1e-6, -0.4, 0.001], [-25, 1.0, -0.0005], [40, 2.0, 0.0003]];
+    for (const [kappa, phi, d] of cases) {
+      const n = 40, R = 1 / Math.abs(kappa);
+      const span = Math.min(5 * Math.PI, 1.2 / Math.abs(kappa) > 10 ? 0.5 : 5 * Math.PI);
+      const x = new Float64Array(n), y = new Float64Array(n);
+      for (let i = 0; i < n; i++) {
+        // Points near the circle defined by (κ, φ, d) at the origin: P0 = −d n, centre P0 + n/κ.
+        const t = (span * i) / (n - 1);
+        const nx = -Math.sin(phi), ny = Math.cos(phi);
+        const cx = -d * nx + nx / kappa, cy = -d * ny + ny / kappa;
+        const a0 = Math.atan2(-d * ny - cy, -d * nx - cx);
+        const ang = a0 + Math.sign(kappa) * (Math.abs(kappa) > 1e-3 ? t : t * 1e-3);
+        x[i] = cx + R * Math.cos(ang) + 1e-4 * Math.sin(3 * i);
+        y[i] = cy + R * Math.sin(ang) + 1e-4 * Math.cos(5 * i);
+      }
+      const s = new Float64Array(n), dK = new Float64Array(n), dP = new Float64Array(n), dD = new Float64Array(n);
+      arcLengthsAndSlopes(x, y, 0, n, kappa, phi, d, 0, 0, s, dK, dP, dD);
+      const up = new Float64Array(n), dn = new Float64Array(n);
+      const steps = [1e-6 * Math.max(Math.abs(kappa), 1), 1e-7, 1e-8];
+      const analytic = [dK, dP, dD];
+      for (let j = 0; j < 3; j++) {
+        const h = steps[j];
+        arcLengths(x, y, 0, n, kappa + (j === 0 ? h : 0), phi + (j === 1 ? h : 0), d + (j === 2 ? h : 0), 0, 0, up);
+        arcLengths(x, y, 0, n, kappa - (j === 0 ? h : 0), phi - (j === 1 ? h : 0), d - (j === 2 ? h : 0), 0, 0, dn);
+        for (let i = 0; i < n; i++) {
+          const numeric = (up[i] - dn[i]) / (2 * h);
+          expect(Math.abs(analytic[j][i] - numeric)).toBeLessThan(1e-5 * Math.max(1, Math.abs(numeric)));
+        }
+      }
+    }
+  });
+});

@@ -2,7 +2,7 @@ import { Command, Option } from 'commander';
 import { performance } from 'node:perf_hooks';
 import { readHits } from '../../../lib/io/readHits';
 import { READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv';
-import { formatCsv, rowObjects, writeFileAtomic } from '../../../lib/io/columnTable';
+import { formatCsvBytes, rowObjects, writeFileAtomic } from '../../../lib/io/columnTable';
 import { CIRCLE_METHODS, type CircleMethod } from '../../../lib/fit/fitCircles';
 import { measureTracks, type TrackTable } from '../../../lib/track/measureTracks';
 import { trackTableColumns } from '../../../lib/track/trackTableColumns';
@@ -86,9 +86,9 @@ export function runFit(hitsPath: string, options: FitCommandOptions): string {
   const budget = medium ? resolutionBudget(hits, tracks, { material: medium, particle: lookupParticle(options.particle ?? 'pi+'), hitErrorM }) : undefined;
   const baseTable = trackTableColumns(tracks);
   const table: ColumnTable = budget ? { rows: baseTable.rows, columns: [...baseTable.columns, ...resolutionBudgetColumns(budget)] } : baseTable;
-  if (options.out === undefined) process.stdout.write(formatCsv(table));
+  if (options.out === undefined) process.stdout.write(formatCsvBytes(table));
   else if (/\.json$/i.test(options.out)) writeFileAtomic(options.out, formatJson(table, tracks, hitsPath, hits.source.units, options));
-  else writeFileAtomic(options.out, formatCsv(table));
+  else writeFileAtomic(options.out, formatCsvBytes(table));
   const tEnd = performance.now();
 
   const failed = tracks.count - tracks.statusCounts.ok;
