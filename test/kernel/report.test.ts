@@ -1,10 +1,11 @@
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { chromiumAvailable } from './chromiumAvailable';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { inflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromiumPath, collapseCarriageReturns, highlightTypeScript, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
+import { collapseCarriageReturns, highlightTypeScript, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
 import { executedFixture, XSS } from './reportFixture';
 import { plotlySource } from '../../kernel/report/assets';
 
@@ -86,7 +87,7 @@ describe('renderReport (static checks)', () => {
   });
 });
 
-describe.skipIf(!existsSync(chromiumPath()))('report in headless Chromium', () => {
+describe.skipIf(!chromiumAvailable())('report in headless Chromium', () => {
   let browser: HeadlessChromium;
   const file = join(OUT, 'report.html');
   beforeAll(async () => {

@@ -1,10 +1,11 @@
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { chromiumAvailable } from './chromiumAvailable';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { runCommand } from '../../kernel/cli/commands/run';
-import { chromiumPath, openChromium } from '../../kernel/report/index';
+import { openChromium } from '../../kernel/report/index';
 
 /**
  * End to end: hostile labels in a CSV file and hostile raw HTML in a markdown cell travel
@@ -48,7 +49,7 @@ describe('XSS payloads through a real run', () => {
     const body = page.slice(page.indexOf('<body'), page.indexOf('<script type="application/json"'));
     expect(body.match(/<script|<iframe|<svg|<img[^>]*onerror|<[^>]*\b(href|src|action)\s*=\s*["']?\s*javascript:/gi)).toBeNull();
     expect(body).not.toMatch(/<[^>]*\son[a-z]+\s*=/i);
-    if (!existsSync(chromiumPath())) return;
+    if (!chromiumAvailable()) return;
     const browser = await openChromium();
     try {
       const tab = await browser.context.newPage();

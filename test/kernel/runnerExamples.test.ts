@@ -1,12 +1,13 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import { chromiumAvailable } from './chromiumAvailable';
+import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { runCommand } from '../../kernel/cli/commands/run';
 import type { Notebook } from '../../kernel/notebook/types';
-import { chromiumPath, openChromium } from '../../kernel/report/index';
+import { openChromium } from '../../kernel/report/index';
 import { nbformatValidator } from './nbSchema';
 
 const NOTEBOOKS = resolve(import.meta.dirname, '..', '..', 'notebooks');
@@ -33,7 +34,7 @@ describe.each(examples)('example notebook %s', (name) => {
     const page = readFileSync(html, 'utf8');
     // Provenance: the data files the notebook read are listed with their SHA-256.
     expect(page).toMatch(/brindlemoor-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td class="sg-hash">[0-9a-f]{64}/);
-    if (!existsSync(chromiumPath())) return;
+    if (!chromiumAvailable()) return;
     const browser = await openChromium();
     try {
       const tab = await browser.context.newPage();
