@@ -30,6 +30,7 @@ import { mimeBundleOf, setDisplaySink } from '../../lib/plot/display';
 import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError';
 import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot';
 import { codePointToUtf16, utf16ToCodePoint } from './positions';
+import { expandShorthandProperties } from './expandShorthand';
 import type { CellHooks, CellOutcome, Completeness, CompletionReply, MimeBundle, Session, SessionOptions } from './types';
 
 type ConverterModule = typeof import('tslab/dist/converter');
@@ -90,7 +91,7 @@ export function createSession(options: SessionOptions): Session {
     running = true;
     let ok: boolean;
     try {
-      ok = await executor.execute(code);
+      ok = await executor.execute(expandShorthandProperties(code));
     } catch (err) {
       capture.thrown = { value: err };
       ok = false;

@@ -60,6 +60,14 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
     expect(out.result).toEqual({ 'text/plain': '6' });
   });
 
+  it('a shorthand property may name a variable of an earlier cell', async () => {
+    const r = recorder();
+    expect((await session.execute('const fieldT = 1.5;\nconst chamber = "LH2";', r.hooks)).status).toBe('ok');
+    const out = await session.execute('const run = { fieldT, chamber };\nconst { fieldT: f } = run;\n[run.fieldT, run.chamber, f]', r.hooks);
+    expect(out.status).toBe('ok');
+    expect(out.result?.['text/plain']).toBe("[ 1.5, 'LH2', 1.5 ]");
+  });
+
   it('sends console and process.stdout/stderr writes to the running cell\'s stream hook', async () => {
     const r = recorder();
     await session.execute('console.log("a", 1);\nprocess.stdout.write("b\\n");\nconsole.error("c");', r.hooks);
