@@ -11,14 +11,6 @@ import type { FromChild, ToChild } from './messages';
 
 const t0 = performance.now();
 
-// A headless run compiles each cell against the sources as they are when it runs; it needs none
-// of the compiler's file and folder watchers. Left on, a watcher that fires between two cells (any
-// process touching a watched file or folder) leaves tslab's converter with a pending rebuild that
-// it then refuses for every later cell ("Unexpected pending rebuildTimer"). The interactive
-// kernel keeps them; this child process does not.
-const noWatcher = () => ({ close() {} });
-tslabTs.sys.watchFile = noWatcher;
-tslabTs.sys.watchDirectory = noWatcher;
 let session: Session | undefined;
 let current = -1;
 

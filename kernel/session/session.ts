@@ -71,6 +71,14 @@ export function createSession(options: SessionOptions): Session {
     },
   };
 
+  // No file or folder watchers for tslab's compiler. A watcher that fires between two cells (any
+  // process touching a watched file: an edited module next to the notebook, a library file) leaves
+  // the converter with a pending rebuild that it then refuses for every later cell ("Unexpected
+  // pending rebuildTimer") — a kernel that no cell can run in any more. Without watchers a cell is
+  // compiled against the sources as first read, as imported modules stay loaded until a restart.
+  const noWatcher = () => ({ close() {} });
+  tslabTs.sys.watchFile = noWatcher;
+  tslabTs.sys.watchDirectory = noWatcher;
   // The compiler reads the working directory when it is created; it was just set to workDir.
   const converter = createConverter();
   const executor = createExecutor(workDir, { node: converter, browser: converter, close: () => converter.close() }, executorConsole);
