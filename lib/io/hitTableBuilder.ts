@@ -71,8 +71,10 @@ export class HitTableBuilder {
   finish(file: string, units: Record<string, string>, ignoredColumns: readonly string[]): HitTable {
     const n = this.size;
     if (n === 0) throw msg.emptyFile(file, 'at least one data row after the header');
+    // A view when the spare room is small (no copy), a trimmed copy when it is not.
+    const trim = this.capacity <= 1.25 * n;
     const take = (c: HitColumn): Float64Array | undefined =>
-      this.present.has(c) ? (this.capacity === n ? this.cols[c] : this.cols[c].slice(0, n)) : undefined;
+      this.present.has(c) ? (trim ? this.cols[c].subarray(0, n) : this.cols[c].slice(0, n)) : undefined;
     const sigma = take('sigma');
     return {
       length: n,
@@ -84,7 +86,7 @@ export class HitTableBuilder {
       sigmaX: sigma ?? take('sigma_x'),
       sigmaY: sigma ?? take('sigma_y'),
       sigmaZ: take('sigma_z'),
-      source: { file, units, line: this.lines.slice(0, n), ignoredColumns },
+      source: { file, units, line: trim ? this.lines.subarray(0, n) : this.lines.slice(0, n), ignoredColumns },
     };
   }
 }
