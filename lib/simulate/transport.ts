@@ -38,16 +38,24 @@ export const TRANSPORT_DEFAULTS: TransportOptions = Object.freeze({
   sampling: Object.freeze({ kind: 'spacing', spacingM: 0.01 }) as Sampling,
 });
 
-/** A particle entering transport. Position [m], unit direction, momentum [GeV/c]. */
-export interface TrackStart {
-  readonly species: Particle;
+/** A place and a direction of flight: position [m], unit direction. */
+export interface PositionAndDirection {
   readonly xM: number;
   readonly yM: number;
   readonly zM: number;
   readonly ux: number;
   readonly uy: number;
   readonly uz: number;
+}
+
+/** A particle of a species in flight: position [m], unit direction, momentum [GeV/c]. */
+export interface ParticleInFlight extends PositionAndDirection {
+  readonly species: Particle;
   readonly momentumGeV: number;
+}
+
+/** A particle entering transport. */
+export interface TrackStart extends ParticleInFlight {
   /**
    * Proper decay length [m] this particle will live (drawn by the caller from an exponential of
    * mean cτ); the track ends with reason 'decayed' after that much proper path. Absent: stable.
@@ -63,14 +71,8 @@ export type DeltaSink = (xM: number, yM: number, zM: number, ux: number, uy: num
 export type EndReason = 'stopped' | 'exited' | 'max-path' | 'decayed';
 
 /** How and where a track ended. */
-export interface TrackEnd {
+export interface TrackEnd extends PositionAndDirection {
   readonly reason: EndReason;
-  readonly xM: number;
-  readonly yM: number;
-  readonly zM: number;
-  readonly ux: number;
-  readonly uy: number;
-  readonly uz: number;
   /** Momentum at the end [GeV/c]; 0 when stopped; at the decay point when decayed. */
   readonly momentumGeV: number;
   /** Path length travelled inside the chamber [m]. */

@@ -1,15 +1,7 @@
-import type { Particle } from '../../particles';
+import type { ParticleInFlight } from '../transport';
 
 /** A particle made by a source at the start of an event. Position [m], unit direction, |p| [GeV/c]. */
-export interface Primary {
-  readonly species: Particle;
-  readonly xM: number;
-  readonly yM: number;
-  readonly zM: number;
-  readonly ux: number;
-  readonly uy: number;
-  readonly uz: number;
-  readonly momentumGeV: number;
+export interface Primary extends ParticleInFlight {
   /** Label in the truth table: 'beam', 'cosmic', 'stopping', … */
   readonly process: string;
 }
