@@ -25,13 +25,14 @@ interface Moments {
   xz: number; yz: number; zz: number;
   /** Mean of z = x'² + y'² (centred). */
   mz: number;
-  /** Σ p_i × p_{i+1} over consecutive hits (centred), for the turning sense. */
+  /** Σ p_i × p_{i+1} over consecutive hits, about the origin (ox, oy) = the first hit. */
   swept: number;
-  /** Last minus first hit (centred = raw differences). */
+  ox: number; oy: number;
+  /** Last minus first hit. */
   dx: number; dy: number;
 }
 
-const M: Moments = { n: 0, mx: 0, my: 0, xx: 0, yy: 0, xy: 0, xz: 0, yz: 0, zz: 0, mz: 0, swept: 0, dx: 0, dy: 0 };
+const M: Moments = { n: 0, mx: 0, my: 0, xx: 0, yy: 0, xy: 0, xz: 0, yz: 0, zz: 0, mz: 0, swept: 0, ox: 0, oy: 0, dx: 0, dy: 0 };
 
 let ONES = new Float64Array(0);
 /** A shared array of at least n ones (unit weights), grown on demand. */
@@ -41,48 +42,54 @@ function ones(n: number): Float64Array {
 }
 
 /**
- * Weighted centred moments, two passes (mean, then moments about it) for accuracy when the
- * track sits far from the origin. The second pass also sums the cross products of consecutive
- * hits, from which `senseAbout` gets the turning sense without another pass.
+ * Weighted centred moments in one pass. The sums are taken on coordinates relative to the first
+ * hit, so they are of the order of the track's size wherever it sits, and turned into moments
+ * about the weighted mean afterwards (z' = (u−ū)² + (v−v̄)², expanded in raw sums up to fourth
+ * order). The same pass sums the cross products of consecutive hits, from which `senseAbout`
+ * gets the turning sense.
  */
 function moments(x: Float64Array, y: Float64Array, w: Float64Array | undefined, from: number, to: number): Moments {
-  let sw = 0, sxw = 0, syw = 0;
+  const x0 = x[from], y0 = y[from];
   const ww = w ?? ones(to);
+  let sw = 0, su = 0, sv = 0, suu = 0, svv = 0, suv = 0, suz = 0, svz = 0, sz = 0, szz = 0, swept = 0;
+  let pu = 0, pv = 0;
   for (let i = from; i < to; i++) {
     const wi = ww[i];
-    sw += wi; sxw += wi * x[i]; syw += wi * y[i];
-  }
-  const mx = sxw / sw, my = syw / sw;
-  let xx = 0, yy = 0, xy = 0, xz = 0, yz = 0, zz = 0, swept = 0;
-  let pu = x[from] - mx, pv = y[from] - my;
-  for (let i = from; i < to; i++) {
-    const wi = ww[i];
-    const u = x[i] - mx, v = y[i] - my;
+    const u = x[i] - x0, v = y[i] - y0;
     const z = u * u + v * v;
     const wu = wi * u, wv = wi * v, wz = wi * z;
-    xx += wu * u; yy += wv * v; xy += wu * v;
-    xz += wu * z; yz += wv * z; zz += wz * z;
+    sw += wi; su += wu; sv += wv;
+    suu += wu * u; svv += wv * v; suv += wu * v;
+    suz += wu * z; svz += wv * z; sz += wz; szz += wz * z;
     swept += pu * v - pv * u;
     pu = u; pv = v;
   }
   const iw = 1 / sw;
-  M.n = to - from; M.mx = mx; M.my = my;
-  M.xx = xx * iw; M.yy = yy * iw; M.xy = xy * iw;
-  M.xz = xz * iw; M.yz = yz * iw; M.zz = zz * iw;
+  const mu = su * iw, mv = sv * iw;
+  const Euu = suu * iw, Evv = svv * iw, Euv = suv * iw, Euz = suz * iw, Evz = svz * iw, Ez = sz * iw, Ezz = szz * iw;
+  const c = mu * mu + mv * mv;
+  M.n = to - from;
+  M.mx = x0 + mu; M.my = y0 + mv;
+  M.xx = Euu - mu * mu; M.yy = Evv - mv * mv; M.xy = Euv - mu * mv;
   M.mz = M.xx + M.yy;
+  // E[(u−ū) z'] with z' = z − 2ūu − 2v̄v + c.
+  M.xz = Euz - 2 * mu * Euu - 2 * mv * Euv + c * mu - mu * M.mz;
+  M.yz = Evz - 2 * mu * Euv - 2 * mv * Evv + c * mv - mv * M.mz;
+  M.zz = Ezz + 4 * mu * mu * Euu + 4 * mv * mv * Evv + 8 * mu * mv * Euv - 4 * mu * Euz - 4 * mv * Evz + 2 * c * Ez - 3 * c * c;
   M.swept = swept;
-  M.dx = x[to - 1] - x[from];
-  M.dy = y[to - 1] - y[from];
+  M.ox = x0; M.oy = y0;
+  M.dx = pu; M.dy = pv;
   return M;
 }
 
 /**
  * Turning sense (+1 counter-clockwise, −1 clockwise) of the hits of the last `moments` call
  * about the centre (xc, yc): Σ (p_i − c) × (p_{i+1} − c) = Σ p_i × p_{i+1} + (p_last − p_first) × c,
- * twice the signed area swept — right for arcs and for spirals of several turns.
+ * twice the signed area swept (here with the first hit as origin, so p_first = 0) — right for
+ * arcs and for spirals of several turns.
  */
 function senseAbout(xc: number, yc: number): number {
-  const cu = xc - M.mx, cv = yc - M.my;
+  const cu = xc - M.ox, cv = yc - M.oy;
   return M.swept + (M.dx * cv - M.dy * cu) >= 0 ? 1 : -1;
 }
 

@@ -16,6 +16,7 @@ describe('fitCircle on exact points (derived check: the points are constructed o
     ['5 cm radius, two and a half turns (spiral-like)', 0.01, 0.02, 0.05, 1, 5 * Math.PI, 60],
     ['50 m radius, 1 m chord (short, stiff track)', -3, 40, 50, -1.2, 0.02, 12],
     ['3 points only', 1, 1, 0.7, 0, 1.5, 3],
+    ['far from the origin: centre (800 m, −350 m), 1.5 m radius, 0.4 rad', 800, -350, 1.5, 2.2, 0.4, 15],
   ];
   for (const method of METHODS) {
     for (const [label, xc, yc, R, a0, span, n] of cases) {
