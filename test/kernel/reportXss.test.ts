@@ -1,11 +1,9 @@
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { chromiumAvailable } from './chromiumAvailable';
+import { chromiumAvailable, openReport } from './reportBrowser';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { runCommand } from '../../kernel/cli/commands/run';
-import { openChromium } from '../../kernel/report/index';
 
 /**
  * End to end: hostile labels in a CSV file and hostile raw HTML in a markdown cell travel
@@ -50,15 +48,9 @@ describe('XSS payloads through a real run', () => {
     expect(body.match(/<script|<iframe|<svg|<img[^>]*onerror|<[^>]*\b(href|src|action)\s*=\s*["']?\s*javascript:/gi)).toBeNull();
     expect(body).not.toMatch(/<[^>]*\son[a-z]+\s*=/i);
     if (!chromiumAvailable()) return;
-    const browser = await openChromium();
+    const report = await openReport(html);
     try {
-      const tab = await browser.context.newPage();
-      const problems: string[] = [];
-      tab.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') problems.push(m.text()); });
-      tab.on('pageerror', (e) => problems.push(e.message));
-      tab.on('dialog', (d) => { problems.push(`dialog: ${d.message()}`); void d.dismiss(); });
-      await tab.goto(pathToFileURL(html).href);
-      await tab.waitForSelector('body[data-figures="drawn"]', { state: 'attached', timeout: 60_000 });
+      const { tab, problems } = report;
       // Hover and click everything that carries a label, in case a handler survived somewhere.
       for (const sel of ['.sg-html td', '.sg-html p', '.sg-prose a', '.sg-prose div', '.sg-figure .gtitle', '.sg-figure .gtitle a', '.sg-figure .legendtext']) {
         for (const el of await tab.locator(sel).all()) {
@@ -80,7 +72,7 @@ describe('XSS payloads through a real run', () => {
       await tab.screenshot({ path: join(dir, 'report.png'), fullPage: true });
       process.stdout.write(`XSS drill report: ${html}, screenshot ${join(dir, 'report.png')}\n`);
     } finally {
-      await browser.close();
+      await report.close();
     }
   }, 300_000);
 });

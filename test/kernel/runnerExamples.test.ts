@@ -1,13 +1,11 @@
 import { spawnSync } from 'node:child_process';
-import { chromiumAvailable } from './chromiumAvailable';
+import { chromiumAvailable, openReport } from './reportBrowser';
 import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { runCommand } from '../../kernel/cli/commands/run';
 import type { Notebook } from '../../kernel/notebook/types';
-import { openChromium } from '../../kernel/report/index';
 import { nbformatValidator } from './nbSchema';
 
 const NOTEBOOKS = resolve(import.meta.dirname, '..', '..', 'notebooks');
@@ -35,14 +33,9 @@ describe.each(examples)('example notebook %s', (name) => {
     // Provenance: the data files the notebook read are listed with their SHA-256.
     expect(page).toMatch(/brindlemoor-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td class="sg-hash">[0-9a-f]{64}/);
     if (!chromiumAvailable()) return;
-    const browser = await openChromium();
+    const report = await openReport(html);
     try {
-      const tab = await browser.context.newPage();
-      const problems: string[] = [];
-      tab.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') problems.push(m.text()); });
-      tab.on('pageerror', (e) => problems.push(e.message));
-      await tab.goto(pathToFileURL(html).href);
-      await tab.waitForSelector('body[data-figures="drawn"]', { state: 'attached', timeout: 60_000 });
+      const { tab, problems } = report;
       const counts = await tab.evaluate(() => ({
         figures: document.querySelectorAll('[data-sg-figure]').length,
         drawn: Array.from(document.querySelectorAll('[data-sg-figure]')).filter((n) => n.querySelector('svg.main-svg .cartesianlayer .trace') && n.getBoundingClientRect().height > 100).length,
@@ -57,7 +50,7 @@ describe.each(examples)('example notebook %s', (name) => {
       await tab.screenshot({ path: shot, fullPage: true });
       process.stdout.write(`${name}: report ${html}, screenshot ${shot}\n`);
     } finally {
-      await browser.close();
+      await report.close();
     }
   }, 300_000);
 });
