@@ -22,3 +22,4 @@ export { SCENARIO_SCHEMA } from './scenarioSchema';
 export { readScenario, parseScenario, resolveScenario, SCENARIO_DEFAULTS } from './scenario';
 export { formatHitsCsv, formatTruthCsv, formatRunRecord, TRUTH_CSV_COLUMNS } from './simulationCsv';
 export { truthToDataFrame } from './truthFrame';
+export { readTruth } from './readTruth';
