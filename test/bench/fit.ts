@@ -41,8 +41,8 @@ function median(xs: number[]): number {
   return s[s.length >> 1];
 }
 
-function rate(label: string, target: number | undefined, body: () => void, reps = 7): void {
-  for (let w = 0; w < 3; w++) body(); // warm-up: let the JIT settle
+function rate(label: string, target: number | undefined, body: () => void, reps = 11): void {
+  for (let w = 0; w < 5; w++) body(); // warm-up: let the JIT settle
   const times: number[] = [];
   for (let r = 0; r < reps; r++) {
     const t0 = performance.now();
