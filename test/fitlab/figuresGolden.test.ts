@@ -1,6 +1,6 @@
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { describe, it } from 'vitest';
+import { expectGolden } from '../expectGolden';
 import { BUILTIN_FITTERS, compareFitters, fitLabSample, meritFigure, pullFigure, pValueFigure } from '../../lib/fitlab/index';
 
 /**
@@ -15,21 +15,14 @@ function round(value: unknown): unknown {
   return value;
 }
 
-function expectGolden(name: string, figure: unknown): void {
-  const text = JSON.stringify(round(figure), null, 1) + '\n';
-  const file = join(import.meta.dirname, 'golden', name);
-  if (process.env.SAGITTA_UPDATE_GOLDEN === '1' || !existsSync(file)) {
-    writeFileSync(file, text);
-    if (process.env.SAGITTA_UPDATE_GOLDEN !== '1') throw new Error(`golden file ${name} was missing and has been written; review and commit it`);
-    return;
-  }
-  expect(text).toBe(readFileSync(file, 'utf8'));
+function expectFigure(name: string, figure: unknown): void {
+  expectGolden(join(import.meta.dirname, 'golden', name), JSON.stringify(round(figure), null, 1) + '\n');
 }
 
 describe('fit-lab figures match their golden files', () => {
   const sample = fitLabSample({ tracks: 400, momentumGeV: [0.3, 5], lengthsM: [0.5, 1], hitsPerTrack: 25, sigmaM: 3e-4, fieldT: 1.5, seed: 2026 });
   const report = compareFitters(BUILTIN_FITTERS, sample, { momentumEdgesGeV: [0.3, 1, 2, 5] });
-  it('pullFigure', () => expectGolden('pull-figure.json', pullFigure(report, 20, 5)));
-  it('pValueFigure', () => expectGolden('p-value-figure.json', pValueFigure(report, 10)));
-  it('meritFigure (σ(p)/p vs momentum)', () => expectGolden('resolution-vs-momentum.json', meritFigure(report, 'momentum', 'momentumResolution')));
+  it('pullFigure', () => expectFigure('pull-figure.json', pullFigure(report, 20, 5)));
+  it('pValueFigure', () => expectFigure('p-value-figure.json', pValueFigure(report, 10)));
+  it('meritFigure (σ(p)/p vs momentum)', () => expectFigure('resolution-vs-momentum.json', meritFigure(report, 'momentum', 'momentumResolution')));
 });

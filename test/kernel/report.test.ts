@@ -1,5 +1,6 @@
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { chromiumAvailable } from './reportBrowser';
+import { expectGolden } from '../expectGolden';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -46,9 +47,7 @@ describe('renderReport (static checks)', () => {
     expect(at).toBeGreaterThan(0);
     const golden = (html.slice(0, at) + '/* plotly.min.js inlined here */' + html.slice(at + plotly.length))
       .replace(/'sha256-[A-Za-z0-9+/=]+'/, "'sha256-(plotly)'");
-    const file = join(import.meta.dirname, 'report-golden', 'fixture.html');
-    if (process.env.SAGITTA_UPDATE_GOLDEN === '1' || !existsSync(file)) writeFileSync(file, golden);
-    expect(golden).toBe(readFileSync(file, 'utf8'));
+    expectGolden(join(import.meta.dirname, 'report-golden', 'fixture.html'), golden);
   });
 
   it('renderMarkdown embeds attachment: images and image files in the notebook folder as data URLs; names the rest', () => {

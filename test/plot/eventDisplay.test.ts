@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { asMime, eventDisplay } from '../../lib/plot/index';
-import { expectGolden } from './golden';
+import { join } from 'node:path';
+import { expectGolden } from '../expectGolden';
 
 /** Hits on a circle of radius R about (cx, cy) at the given angles (radians). */
 function arcHits(cx: number, cy: number, r: number, angles: number[]): { x: number[]; y: number[] } {
@@ -44,6 +45,6 @@ describe('eventDisplay', () => {
   });
 
   it('matches its golden SVG (fixed input, rounded coordinates)', () => {
-    expectGolden('event-display.svg', eventDisplay(hits, tracks, { fieldT: -0.5 }).svg);
+    expectGolden(join(import.meta.dirname, 'golden', 'event-display.svg'), eventDisplay(hits, tracks, { fieldT: -0.5 }).svg);
   });
 });
