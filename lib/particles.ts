@@ -1,5 +1,5 @@
-import { ELECTRON_MASS_MEV } from './constants';
-import { msg } from './errors';
+import { ELECTRON_MASS_MEV } from './constants.js';
+import { msg } from './errors.js';
 
 /**
  * Particle species: mass [MeV/c²], charge in units of e, mean lifetime cτ [m] where finite.

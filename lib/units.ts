@@ -1,6 +1,6 @@
 import { createRequire } from 'node:module';
 import type { MathJsInstance, Unit } from 'mathjs';
-import { msg, type SourceLocation } from './errors';
+import { msg, type SourceLocation } from './errors.js';
 
 /**
  * Quantities at the boundary (STYLE.md §4). Text like "1.5 T", "15 kG", "300 um", "100 MeV" or

@@ -2,7 +2,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { provenanceSnapshot, recordInput, recordSeed, resetProvenance } from '../lib/provenance';
+import { provenanceSnapshot, recordInput, recordSeed, resetProvenance } from '../lib/provenance.js';
 
 describe('provenance registry', () => {
   beforeEach(() => resetProvenance());

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { fieldTesla, lengthMetres, energyMeV, momentumGeV, metresPerUnit, quantity } from '../lib/units';
-import { SagittaError } from '../lib/errors';
+import { fieldTesla, lengthMetres, energyMeV, momentumGeV, metresPerUnit, quantity } from '../lib/units.js';
+import { SagittaError } from '../lib/errors.js';
 
 describe('units at the boundary', () => {
   it('fieldTesla reads T, mT, G and kG (1 G = 1e-4 T exactly, SI definition of the gauss)', () => {
@@ -35,7 +35,7 @@ describe('units at the boundary', () => {
 
 describe('units read without mathjs agree with mathjs', () => {
   it('every unit of the direct table converts exactly as mathjs converts it', async () => {
-    const { DIRECT_UNITS } = await import('../lib/units');
+    const { DIRECT_UNITS } = await import('../lib/units.js');
     for (const [dimension, table] of Object.entries(DIRECT_UNITS)) {
       for (const unit of Object.keys(table)) {
         const suffix = dimension === 'momentum' ? '/c' : '';

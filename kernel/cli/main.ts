@@ -1,7 +1,7 @@
 import { Command, CommanderError } from 'commander';
-import { SagittaError } from '../../lib/errors';
-import { sagittaVersion } from './version';
-import { registerCommands } from './commands/index';
+import { SagittaError } from '../../lib/errors.js';
+import { sagittaVersion } from './version.js';
+import { registerCommands } from './commands/index.js';
 
 /**
  * Builds the `sagitta` command tree. Each sub-command lives in its own file under

@@ -5,10 +5,10 @@
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { msg } from '../../lib/errors';
-import { sagittaVersion } from '../cli/version';
-import { logoPng, logoSvg } from './logo';
-import { currentPlatformEnv, kernelsDirFor, kernelSearchPath, type PlatformEnv } from './paths';
+import { msg } from '../../lib/errors.js';
+import { sagittaVersion } from '../cli/version.js';
+import { logoPng, logoSvg } from './logo.js';
+import { currentPlatformEnv, kernelsDirFor, kernelSearchPath, type PlatformEnv } from './paths.js';
 
 export const DEFAULT_KERNEL_ID = 'sagitta';
 export const DEFAULT_DISPLAY_NAME = 'Sagitta (TypeScript)';

@@ -3,7 +3,7 @@
  * through five hits, the chord under it, and the sagitta — the arc's height over the chord — in
  * amber. Kernelspec logos are the files `logo-32x32.png`, `logo-64x64.png` and `logo-svg.svg`.
  */
-import { encodePng } from './png';
+import { encodePng } from './png.js';
 
 const COLORS = Object.freeze({
   ground: [0x14, 0x32, 0x4a] as const,

@@ -1,8 +1,8 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { msg } from '../../lib/errors';
-import type { Notebook } from './types';
-import { validateNotebook } from './validate';
+import { msg } from '../../lib/errors.js';
+import type { Notebook } from './types.js';
+import { validateNotebook } from './validate.js';
 
 /** A notebook as read from disk, with the bytes' hash for the report's provenance block. */
 export interface LoadedNotebook {

@@ -1,4 +1,4 @@
-import type { MultilineString } from './types';
+import type { MultilineString } from './types.js';
 
 /** Joins a multiline string field (a string or a list of lines with their newlines) into one string. */
 export function joinSource(text: MultilineString): string {

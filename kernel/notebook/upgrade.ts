@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import type { Cell, CodeCell, Notebook, Output } from './types';
+import type { Cell, CodeCell, Notebook, Output } from './types.js';
 
 /** The minor version Sagitta writes. */
 export const WRITTEN_MINOR = 5;

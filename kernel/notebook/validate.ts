@@ -1,5 +1,5 @@
-import { msg } from '../../lib/errors';
-import type { Cell, Notebook, Output } from './types';
+import { msg } from '../../lib/errors.js';
+import type { Cell, Notebook, Output } from './types.js';
 
 /**
  * Structural check of a parsed notebook against nbformat 4 (any minor version). It enforces what

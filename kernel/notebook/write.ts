@@ -1,6 +1,6 @@
 import { closeSync, fsyncSync, openSync, renameSync, rmSync, writeSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import type { Notebook } from './types';
+import type { Notebook } from './types.js';
 
 /** Notebook JSON as notebook editors write it: one-space indent, keys in insertion order, final newline. */
 export function serializeNotebook(nb: Notebook): string {

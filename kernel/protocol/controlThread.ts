@@ -13,8 +13,8 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import * as zmq from 'zeromq';
-import { endpoint, type ConnectionInfo } from './connection';
-import { decode, SignatureHistory } from './wire';
+import { endpoint, type ConnectionInfo } from './connection.js';
+import { decode, SignatureHistory } from './wire.js';
 
 export type ToControlThread = { kind: 'send'; frames: Array<Uint8Array | string> } | { kind: 'interrupt-handled' } | { kind: 'close' };
 

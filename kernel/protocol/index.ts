@@ -1,5 +1,5 @@
-export * from './connection';
-export * from './wire';
-export { KernelServer, kernelIdFromFile, type KernelServerOptions } from './server';
-export { kernelInfoContent, cellCompilerVersion } from './kernelInfo';
-export { runKernel } from './main';
+export * from './connection.js';
+export * from './wire.js';
+export { KernelServer, kernelIdFromFile, type KernelServerOptions } from './server.js';
+export { kernelInfoContent, cellCompilerVersion } from './kernelInfo.js';
+export { runKernel } from './main.js';

@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { fileURLToPath } from 'node:url';
-import { sagittaVersion } from '../cli/version';
-import { PROTOCOL_VERSION } from './wire';
+import { sagittaVersion } from '../cli/version.js';
+import { PROTOCOL_VERSION } from './wire.js';
 
 /**
  * The TypeScript compiler that checks and compiles cells (tslab's bundled one), read from its

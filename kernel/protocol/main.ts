@@ -1,5 +1,5 @@
-import { readConnectionFile } from './connection';
-import { KernelServer, kernelIdFromFile } from './server';
+import { readConnectionFile } from './connection.js';
+import { KernelServer, kernelIdFromFile } from './server.js';
 
 /** How often the kernel checks that the front end that started it is still there. */
 const PARENT_CHECK_MS = 3000;
@@ -17,7 +17,7 @@ export async function runKernel(connectionFile: string): Promise<number> {
   const server = new KernelServer({
     connection,
     kernelId: kernelIdFromFile(connectionFile),
-    createSession: async () => (await import('../session/session')).createSession({ workDir }),
+    createSession: async () => (await import('../session/session.js')).createSession({ workDir }),
   });
   await server.start();
   const parent = process.ppid;

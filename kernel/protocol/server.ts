@@ -13,11 +13,11 @@ import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import * as zmq from 'zeromq';
-import type { CellHooks, MimeBundle, Session } from '../session/types';
-import { endpoint, type ConnectionInfo } from './connection';
-import type { FromControlThread, ToControlThread } from './controlThread';
-import { kernelInfoContent } from './kernelInfo';
-import { decode, encode, makeHeader, SignatureHistory, type Header, type Message } from './wire';
+import type { CellHooks, MimeBundle, Session } from '../session/types.js';
+import { endpoint, type ConnectionInfo } from './connection.js';
+import type { FromControlThread, ToControlThread } from './controlThread.js';
+import { kernelInfoContent } from './kernelInfo.js';
+import { decode, encode, makeHeader, SignatureHistory, type Header, type Message } from './wire.js';
 
 export interface KernelServerOptions {
   connection: ConnectionInfo;

@@ -1,14 +1,14 @@
 import { createHash } from 'node:crypto';
 import { basename, dirname, resolve } from 'node:path';
-import type { Cell, SagittaCellMeta } from '../notebook/types';
-import { joinSource } from '../notebook/source';
-import { plotlySource } from './assets';
-import { escapeHtml, jsonForScript } from './escape';
-import { highlightTypeScript } from './highlight';
-import { renderMarkdown } from './markdown';
-import { FigureStore, renderOutput } from './outputs';
-import { REPORT_CSS } from './style';
-import type { ReportInput, ReportRun } from './types';
+import type { Cell, SagittaCellMeta } from '../notebook/types.js';
+import { joinSource } from '../notebook/source.js';
+import { plotlySource } from './assets.js';
+import { escapeHtml, jsonForScript } from './escape.js';
+import { highlightTypeScript } from './highlight.js';
+import { renderMarkdown } from './markdown.js';
+import { FigureStore, renderOutput } from './outputs.js';
+import { REPORT_CSS } from './style.js';
+import type { ReportInput, ReportRun } from './types.js';
 
 /**
  * The page's own script: draws each figure from its JSON block, marks the body

@@ -2,8 +2,8 @@ import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
 import { extname, resolve, sep } from 'node:path';
 import katex from 'katex';
 import MarkdownIt, { type StateBlock, type StateInline } from 'markdown-it';
-import { escapeHtml } from './escape';
-import { sanitize } from './sanitize';
+import { escapeHtml } from './escape.js';
+import { sanitize } from './sanitize.js';
 
 /**
  * Markdown cells to HTML: CommonMark (markdown-it) with tables and strikethrough, TeX math
@@ -11,8 +11,8 @@ import { sanitize } from './sanitize';
 import { extname, resolve, sep } from 'node:path';
 import katex from 'katex';
 import MarkdownIt, { type StateBlock, type StateInline } from 'markdown-it';
-import { escapeHtml } from './escape';
-import { sanitize } from './sanitize';
+import { escapeHtml } from './escape.js';
+import { sanitize } from './sanitize.js';
 
 /**
  * Markdown cells to HTML: CommonMark (markdown-it) with tables and strikethrough, TeX math

@@ -1,8 +1,8 @@
-import type { Output } from '../notebook/types';
-import { joinSource } from '../notebook/source';
-import { escapeHtml, stripAnsi } from './escape';
-import { renderMarkdown, renderTex } from './markdown';
-import { sanitize } from './sanitize';
+import type { Output } from '../notebook/types.js';
+import { joinSource } from '../notebook/source.js';
+import { escapeHtml, stripAnsi } from './escape.js';
+import { renderMarkdown, renderTex } from './markdown.js';
+import { sanitize } from './sanitize.js';
 
 const PLOTLY_MIME = 'application/vnd.plotly.v1+json';
 

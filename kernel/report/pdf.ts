@@ -1,6 +1,6 @@
 import { pathToFileURL } from 'node:url';
-import { writeFileAtomic } from '../notebook/write';
-import { openChromium } from './chromium';
+import { writeFileAtomic } from '../notebook/write.js';
+import { openChromium } from './chromium.js';
 
 /**
  * Prints a report HTML file to PDF with headless Chromium: the page is loaded at a print-like

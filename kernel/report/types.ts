@@ -1,5 +1,5 @@
-import type { ProvenanceSnapshot } from '../../lib/provenance';
-import type { Notebook } from '../notebook/types';
+import type { ProvenanceSnapshot } from '../../lib/provenance.js';
+import type { Notebook } from '../notebook/types.js';
 
 /** Everything a report shows besides the cells themselves. */
 export interface ReportRun {

@@ -3,11 +3,11 @@
  * its own process is what lets the runner stop a cell that never ends (SIGKILL) or survive a cell
  * that ends the process, without losing what earlier cells produced.
  */
-import { provenanceSnapshot } from '../../lib/provenance';
-import { createSession } from '../session/index';
-import { tslabTs } from '../session/moduleRoot';
-import type { Session } from '../session/types';
-import type { FromChild, ToChild } from './messages';
+import { provenanceSnapshot } from '../../lib/provenance.js';
+import { createSession } from '../session/index.js';
+import { tslabTs } from '../session/moduleRoot.js';
+import type { Session } from '../session/types.js';
+import type { FromChild, ToChild } from './messages.js';
 
 const t0 = performance.now();
 

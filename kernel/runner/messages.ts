@@ -1,5 +1,5 @@
-import type { ProvenanceSnapshot } from '../../lib/provenance';
-import type { CellOutcome, MimeBundle } from '../session/types';
+import type { ProvenanceSnapshot } from '../../lib/provenance.js';
+import type { CellOutcome, MimeBundle } from '../session/types.js';
 
 /** Messages from the runner to its child process (over Node's IPC channel, JSON). */
 export type ToChild =

@@ -1,7 +1,7 @@
-import { msg } from '../../lib/errors';
-import type { Cell, CodeCell, Notebook } from '../notebook/types';
-import { DEFAULTS_TAG, INJECTED_TAG } from '../notebook/types';
-import { joinSource, splitLines } from '../notebook/source';
+import { msg } from '../../lib/errors.js';
+import type { Cell, CodeCell, Notebook } from '../notebook/types.js';
+import { DEFAULTS_TAG, INJECTED_TAG } from '../notebook/types.js';
+import { joinSource, splitLines } from '../notebook/source.js';
 
 const IDENTIFIER = /^[A-Za-z_$][A-Za-z0-9_$]*$/;
 

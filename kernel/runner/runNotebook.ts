@@ -1,16 +1,16 @@
 import { fork, type ChildProcess } from 'node:child_process';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { msg } from '../../lib/errors';
-import type { ProvenanceSnapshot } from '../../lib/provenance';
-import { sagittaVersion } from '../cli/version';
-import { readNotebook } from '../notebook/read';
-import { joinSource } from '../notebook/source';
-import type { CodeCell, DisplayDataOutput, Notebook, Output, SagittaCellMeta } from '../notebook/types';
-import { upgradeNotebook } from '../notebook/upgrade';
-import type { ReportRun } from '../report/types';
-import type { FromChild, ToChild } from './messages';
-import { injectParameters } from './parameters';
+import { msg } from '../../lib/errors.js';
+import type { ProvenanceSnapshot } from '../../lib/provenance.js';
+import { sagittaVersion } from '../cli/version.js';
+import { readNotebook } from '../notebook/read.js';
+import { joinSource } from '../notebook/source.js';
+import type { CodeCell, DisplayDataOutput, Notebook, Output, SagittaCellMeta } from '../notebook/types.js';
+import { upgradeNotebook } from '../notebook/upgrade.js';
+import type { ReportRun } from '../report/types.js';
+import type { FromChild, ToChild } from './messages.js';
+import { injectParameters } from './parameters.js';
 
 export interface RunNotebookOptions {
   /** Longest a single cell may run, ms (Infinity: no limit). Default 120 s. */

@@ -1,5 +1,5 @@
 import { inspect } from 'node:util';
-import type { CellError } from './types';
+import type { CellError } from './types.js';
 
 /** Stack frames from the machinery that runs a cell; they tell the reader nothing about their code. */
 const MACHINERY = [/node_modules[\\/]tslab[\\/]/, /kernel[\\/]session[\\/]/, /node:internal/, /node_modules[\\/]tsx[\\/]/];

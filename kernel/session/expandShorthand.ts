@@ -1,4 +1,4 @@
-import { tslabTs } from './moduleRoot';
+import { tslabTs } from './moduleRoot.js';
 
 /**
  * Rewrites shorthand properties `{ a }` as `{ a: a }` before a cell is compiled.

@@ -1,3 +1,3 @@
-export * from './types';
-export { createSession } from './session';
-export { codePointToUtf16, utf16ToCodePoint } from './positions';
+export * from './types.js';
+export { createSession } from './session.js';
+export { codePointToUtf16, utf16ToCodePoint } from './positions.js';

@@ -26,19 +26,19 @@ import { Writable } from 'node:stream';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { format } from 'node:util';
-import { mimeBundleOf, setDisplaySink } from '../../lib/plot/display';
-import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError';
-import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot';
-import { codePointToUtf16, utf16ToCodePoint } from './positions';
-import { expandShorthandProperties } from './expandShorthand';
-import type { CellHooks, CellOutcome, Completeness, CompletionReply, MimeBundle, Session, SessionOptions } from './types';
+import { mimeBundleOf, setDisplaySink } from '../../lib/plot/display.js';
+import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError.js';
+import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot.js';
+import { codePointToUtf16, utf16ToCodePoint } from './positions.js';
+import { expandShorthandProperties } from './expandShorthand.js';
+import type { CellHooks, CellOutcome, Completeness, CompletionReply, MimeBundle, Session, SessionOptions } from './types.js';
 
-type ConverterModule = typeof import('tslab/dist/converter');
-type ExecutorModule = typeof import('tslab/dist/executor');
+type ConverterModule = typeof import('tslab/dist/converter.js');
+type ExecutorModule = typeof import('tslab/dist/executor.js');
 
 const requireHere = createRequire(path.join(packageRoot, 'package.json'));
-const { createConverter, isCompleteCode } = requireHere('tslab/dist/converter') as ConverterModule;
-const { createExecutor } = requireHere('tslab/dist/executor') as ExecutorModule;
+const { createConverter, isCompleteCode } = requireHere('tslab/dist/converter.js') as ConverterModule;
+const { createExecutor } = requireHere('tslab/dist/executor.js') as ExecutorModule;
 
 /** What the executor reports through its console while running one cell. */
 interface Capture {

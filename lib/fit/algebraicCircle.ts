@@ -1,5 +1,5 @@
-import { STATUS_CODE, type CircleFitColumns } from './circleFit';
-import { invertSym3, normalEquations, paramsFromCentre, type TrackParams } from './curvatureResidual';
+import { STATUS_CODE, type CircleFitColumns } from './circleFit.js';
+import { invertSym3, normalEquations, paramsFromCentre, type TrackParams } from './curvatureResidual.js';
 
 /**
  * The two algebraic circle fits (internal kernels; the public entry is fitCircles.ts).

@@ -1,13 +1,13 @@
-import { msg } from '../errors';
-import { allocateCircleFits, circleFitAt, STATUS_CODE, type CircleFit, type CircleFitColumns } from './circleFit';
-import { kasaCircle, storeCircle, taubinCircle, type Circle } from './algebraicCircle';
-import { geometricCircleInto, GEOMETRIC_FIT_DEFAULTS } from './geometricCircle';
-import { preparePlaneHits, type PlaneHits } from './preparePlaneHits';
+import { msg } from '../errors.js';
+import { allocateCircleFits, circleFitAt, STATUS_CODE, type CircleFit, type CircleFitColumns } from './circleFit.js';
+import { kasaCircle, storeCircle, taubinCircle, type Circle } from './algebraicCircle.js';
+import { geometricCircleInto, GEOMETRIC_FIT_DEFAULTS } from './geometricCircle.js';
+import { preparePlaneHits, type PlaneHits } from './preparePlaneHits.js';
 
 export type CircleMethod = 'kasa' | 'taubin' | 'geometric';
 export const CIRCLE_METHODS: readonly CircleMethod[] = ['kasa', 'taubin', 'geometric'];
 
-export type { PlaneHits } from './preparePlaneHits';
+export type { PlaneHits } from './preparePlaneHits.js';
 
 export interface CircleFitOptions {
   /** Default 'geometric'. */

@@ -1,7 +1,7 @@
-import { circleFitAt, FIT_STATUS, type CircleFit, type CircleFitColumns } from './circleFit';
-import { fitCircles, type CircleFitOptions, type PlaneHits } from './fitCircles';
-import { lineFitInto, newLineScratch } from './fitLine';
-import { msg } from '../errors';
+import { circleFitAt, FIT_STATUS, type CircleFit, type CircleFitColumns } from './circleFit.js';
+import { fitCircles, type CircleFitOptions, type PlaneHits } from './fitCircles.js';
+import { lineFitInto, newLineScratch } from './fitLine.js';
+import { msg } from '../errors.js';
 
 /** Hits with the coordinate along the field. */
 export interface SpaceHits extends PlaneHits {

@@ -1,6 +1,6 @@
-import { STATUS_CODE, type CircleFitColumns } from './circleFit';
-import { taubinCircle, finishCovariance, type Circle } from './algebraicCircle';
-import { extent, invertSym3, normalEquations, paramsFromCentre, paramsFromLine, type TrackParams } from './curvatureResidual';
+import { STATUS_CODE, type CircleFitColumns } from './circleFit.js';
+import { taubinCircle, finishCovariance, type Circle } from './algebraicCircle.js';
+import { extent, invertSym3, normalEquations, paramsFromCentre, paramsFromLine, type TrackParams } from './curvatureResidual.js';
 
 /** Options of the geometric fit. */
 export interface GeometricFitOptions {

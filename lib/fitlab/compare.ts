@@ -1,8 +1,8 @@
-import { GEV_PER_TESLA_METRE } from '../constants';
-import { msg } from '../errors';
-import { chi2Survival } from './chi2Survival';
-import type { Fitter } from './fitter';
-import type { FitLabSample } from './sample';
+import { GEV_PER_TESLA_METRE } from '../constants.js';
+import { msg } from '../errors.js';
+import { chi2Survival } from './chi2Survival.js';
+import type { Fitter } from './fitter.js';
+import type { FitLabSample } from './sample.js';
 
 /** One fitter's answer for every track of the sample (NaN where it failed or gave nothing). */
 export interface FitterTrackColumns {

@@ -1,6 +1,6 @@
-import { baseLayout, type PlotSpec, type PlotTrace } from '../plot/figure';
-import { PALETTE, SERIES_COLOURS } from '../plot/palette';
-import type { BinnedMerit, FitLabReport } from './compare';
+import { baseLayout, type PlotSpec, type PlotTrace } from '../plot/figure.js';
+import { PALETTE, SERIES_COLOURS } from '../plot/palette.js';
+import type { BinnedMerit, FitLabReport } from './compare.js';
 
 /**
  * Plotly figure specs (plain `{ data, layout }` JSON) of a fit-lab report. Show them in a notebook

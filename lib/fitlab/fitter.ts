@@ -1,6 +1,6 @@
-import { fitCircleGeometric, fitCircleKasa, fitCircleTaubin } from '../fit/fitCircles';
-import { fitHelix } from '../fit/fitHelices';
-import type { CircleFit } from '../fit/circleFit';
+import { fitCircleGeometric, fitCircleKasa, fitCircleTaubin } from '../fit/fitCircles.js';
+import { fitHelix } from '../fit/fitHelices.js';
+import type { CircleFit } from '../fit/circleFit.js';
 
 /**
  * What a fit method gives back to the lab. Only `kappa` is required, so a method written in a

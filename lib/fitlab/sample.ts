@@ -1,10 +1,10 @@
-import { GEV_PER_TESLA_METRE } from '../constants';
-import { msg } from '../errors';
-import { MUON_MINUS, MUON_PLUS, type Particle } from '../particles';
-import { chamber } from '../simulate/chamber';
-import { VACUUM, type Medium } from '../simulate/medium';
-import { seededRandom } from '../simulate/rng';
-import { transportTrack, TRANSPORT_DEFAULTS } from '../simulate/transport';
+import { GEV_PER_TESLA_METRE } from '../constants.js';
+import { msg } from '../errors.js';
+import { MUON_MINUS, MUON_PLUS, type Particle } from '../particles.js';
+import { chamber } from '../simulate/chamber.js';
+import { VACUUM, type Medium } from '../simulate/medium.js';
+import { seededRandom } from '../simulate/rng.js';
+import { transportTrack, TRANSPORT_DEFAULTS } from '../simulate/transport.js';
 
 export interface FitLabSampleOptions {
   /** Number of tracks. */

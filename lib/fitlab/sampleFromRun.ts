@@ -1,8 +1,8 @@
-import { GEV_PER_TESLA_METRE } from '../constants';
-import { msg } from '../errors';
-import { particle } from '../particles';
-import type { SimulationResult } from '../simulate/simulate';
-import type { FitLabSample } from './sample';
+import { GEV_PER_TESLA_METRE } from '../constants.js';
+import { msg } from '../errors.js';
+import { particle } from '../particles.js';
+import type { SimulationResult } from '../simulate/simulate.js';
+import type { FitLabSample } from './sample.js';
 
 export interface SampleFromRunOptions {
   /** Field along +z of the run [T] (the chamber's uniform field). */

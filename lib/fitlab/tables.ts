@@ -1,6 +1,6 @@
 import type { DataFrame } from 'danfojs-node';
-import { loadDanfo } from '../io/hitsToDataFrame';
-import type { FitLabReport } from './compare';
+import { loadDanfo } from '../io/hitsToDataFrame.js';
+import type { FitLabReport } from './compare.js';
 
 /**
  * The report's tables as danfojs DataFrames for notebooks (danfojs is loaded on first use):

@@ -1,6 +1,6 @@
 import { writeFileSync, renameSync } from 'node:fs';
 import type { DataFrame } from 'danfojs-node';
-import { loadDanfo } from './hitsToDataFrame';
+import { loadDanfo } from './hitsToDataFrame.js';
 
 /**
  * A named, ordered set of equally long columns — the shape every result table takes on its way

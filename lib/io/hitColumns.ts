@@ -1,5 +1,5 @@
-import { msg } from '../errors';
-import { metresPerUnit } from '../units';
+import { msg } from '../errors.js';
+import { metresPerUnit } from '../units.js';
 
 /**
  * The columns a hit file may carry, shared by the CSV and JSON Lines readers.

@@ -1,6 +1,6 @@
-import type { HitColumn, HeaderField } from './hitColumns';
-import type { HitTable } from './hitTable';
-import { msg } from '../errors';
+import type { HitColumn, HeaderField } from './hitColumns.js';
+import type { HitTable } from './hitTable.js';
+import { msg } from '../errors.js';
 
 /**
  * Growable typed-array columns that the readers fill row by row, then freeze into a HitTable.

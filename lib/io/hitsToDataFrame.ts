@@ -1,6 +1,6 @@
 import { createRequire } from 'node:module';
 import type { DataFrame } from 'danfojs-node';
-import type { HitTable } from './hitTable';
+import type { HitTable } from './hitTable.js';
 
 type Danfo = typeof import('danfojs-node');
 let danfo: Danfo | undefined;

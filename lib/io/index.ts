@@ -1,8 +1,8 @@
-export type { HitTable, HitTableSource, TrackIndex } from './hitTable';
-export { HIT_COLUMNS, REQUIRED_HIT_COLUMNS } from './hitColumns';
-export { parseHitsCsv, READ_HITS_DEFAULTS, type ReadHitsOptions } from './parseHitsCsv';
-export { parseHitsJsonl } from './parseHitsJsonl';
-export { readHits, HIT_FILE_FORMATS } from './readHits';
-export { indexTracks, gatherRows } from './indexTracks';
-export { hitsToDataFrame, loadDanfo } from './hitsToDataFrame';
-export { formatCsv, formatCsvBytes, rowObjects, columnTableToDataFrame, writeFileAtomic, type Column, type ColumnTable } from './columnTable';
+export type { HitTable, HitTableSource, TrackIndex } from './hitTable.js';
+export { HIT_COLUMNS, REQUIRED_HIT_COLUMNS } from './hitColumns.js';
+export { parseHitsCsv, READ_HITS_DEFAULTS, type ReadHitsOptions } from './parseHitsCsv.js';
+export { parseHitsJsonl } from './parseHitsJsonl.js';
+export { readHits, HIT_FILE_FORMATS } from './readHits.js';
+export { indexTracks, gatherRows } from './indexTracks.js';
+export { hitsToDataFrame, loadDanfo } from './hitsToDataFrame.js';
+export { formatCsv, formatCsvBytes, rowObjects, columnTableToDataFrame, writeFileAtomic, type Column, type ColumnTable } from './columnTable.js';

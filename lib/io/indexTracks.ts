@@ -1,4 +1,4 @@
-import type { HitTable, TrackIndex } from './hitTable';
+import type { HitTable, TrackIndex } from './hitTable.js';
 
 /**
  * Groups the rows of a hit table into tracks by (event, track).

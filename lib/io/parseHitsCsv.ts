@@ -1,8 +1,8 @@
-import { msg } from '../errors';
-import { parseHeader, unitsOf } from './hitColumns';
-import { HitTableBuilder } from './hitTableBuilder';
-import type { HitTable } from './hitTable';
-import { scanNumber, scanEnd } from './scanNumber';
+import { msg } from '../errors.js';
+import { parseHeader, unitsOf } from './hitColumns.js';
+import { HitTableBuilder } from './hitTableBuilder.js';
+import type { HitTable } from './hitTable.js';
+import { scanNumber, scanEnd } from './scanNumber.js';
 
 export interface ReadHitsOptions {
   /** Unit of length columns whose header carries none. Default 'mm'. */

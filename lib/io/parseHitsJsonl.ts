@@ -1,8 +1,8 @@
-import { msg } from '../errors';
-import { parseHeader, unitsOf, type HeaderField } from './hitColumns';
-import { HitTableBuilder } from './hitTableBuilder';
-import type { HitTable } from './hitTable';
-import { READ_HITS_DEFAULTS, type ReadHitsOptions } from './parseHitsCsv';
+import { msg } from '../errors.js';
+import { parseHeader, unitsOf, type HeaderField } from './hitColumns.js';
+import { HitTableBuilder } from './hitTableBuilder.js';
+import type { HitTable } from './hitTable.js';
+import { READ_HITS_DEFAULTS, type ReadHitsOptions } from './parseHitsCsv.js';
 
 /**
  * Parses JSON Lines hits: one JSON object per line, keys as in the CSV header (`event`,

@@ -1,9 +1,9 @@
 import { existsSync, readFileSync } from 'node:fs';
-import { msg } from '../errors';
-import { recordInput } from '../provenance';
-import type { HitTable } from './hitTable';
-import { parseHitsCsv, type ReadHitsOptions } from './parseHitsCsv';
-import { parseHitsJsonl } from './parseHitsJsonl';
+import { msg } from '../errors.js';
+import { recordInput } from '../provenance.js';
+import type { HitTable } from './hitTable.js';
+import { parseHitsCsv, type ReadHitsOptions } from './parseHitsCsv.js';
+import { parseHitsJsonl } from './parseHitsJsonl.js';
 
 export const HIT_FILE_FORMATS = ['.csv', '.tsv', '.txt', '.jsonl', '.ndjson'] as const;
 

@@ -1,8 +1,8 @@
-import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants';
-import type { Particle } from '../particles';
-import { warn } from '../warnings';
-import { densityEffectDelta } from './densityEffect';
-import type { Material } from './materials';
+import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants.js';
+import type { Particle } from '../particles.js';
+import { warn } from '../warnings.js';
+import { densityEffectDelta } from './densityEffect.js';
+import type { Material } from './materials.js';
 
 /** Lower validity limit of the plain Bethe formula in βγ (proton T ≈ 0.95 MeV). */
 export const BETHE_MIN_BETA_GAMMA = 0.045;

@@ -1,8 +1,8 @@
-import { AVOGADRO_PER_MOL, BETHE_K_MEV_CM2_PER_MOL, CLASSICAL_ELECTRON_RADIUS_CM, ELECTRON_MASS_MEV, FINE_STRUCTURE } from '../constants';
-import type { Particle } from '../particles';
-import { densityEffectDelta } from './densityEffect';
-import { type Material, zz1OverA } from './materials';
-import { warnOutside } from './bethe';
+import { AVOGADRO_PER_MOL, BETHE_K_MEV_CM2_PER_MOL, CLASSICAL_ELECTRON_RADIUS_CM, ELECTRON_MASS_MEV, FINE_STRUCTURE } from '../constants.js';
+import type { Particle } from '../particles.js';
+import { densityEffectDelta } from './densityEffect.js';
+import { type Material, zz1OverA } from './materials.js';
+import { warnOutside } from './bethe.js';
 
 /** Validity of the electron/positron formulas [MeV] (ICRU 37 collision formula: ≥ 10 keV). */
 export const ELECTRON_MIN_MEV = 0.01;

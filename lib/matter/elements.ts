@@ -1,5 +1,5 @@
-import { msg } from '../errors';
-import { radiationLengthTsai } from './radiationLength';
+import { msg } from '../errors.js';
+import { radiationLengthTsai } from './radiationLength.js';
 
 /**
  * Elements used to build compounds and mixtures.

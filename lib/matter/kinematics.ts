@@ -1,4 +1,4 @@
-import type { Particle } from '../particles';
+import type { Particle } from '../particles.js';
 
 /**
  * Relativistic kinematics of a free particle of rest energy M = `particle.massMeV`, in MeV and

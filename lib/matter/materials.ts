@@ -1,8 +1,8 @@
-import { msg } from '../errors';
-import { type DensityEffect, sternheimerPeierls } from './densityEffect';
-import { ELEMENTS, element } from './elements';
+import { msg } from '../errors.js';
+import { type DensityEffect, sternheimerPeierls } from './densityEffect.js';
+import { ELEMENTS, element } from './elements.js';
 
-export type { DensityEffect } from './densityEffect';
+export type { DensityEffect } from './densityEffect.js';
 
 /** One atomic species in a material, by mass fraction. */
 export interface Constituent {

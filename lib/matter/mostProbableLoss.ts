@@ -1,10 +1,10 @@
-import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants';
-import { msg } from '../errors';
-import type { Particle } from '../particles';
-import { warn } from '../warnings';
-import { maxEnergyTransferMeV } from './bethe';
-import { densityEffectDelta } from './densityEffect';
-import type { Material } from './materials';
+import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants.js';
+import { msg } from '../errors.js';
+import type { Particle } from '../particles.js';
+import { warn } from '../warnings.js';
+import { maxEnergyTransferMeV } from './bethe.js';
+import { densityEffectDelta } from './densityEffect.js';
+import type { Material } from './materials.js';
 
 /** Landau–Vavilov validity: κ = ξ / T_max below this (Landau regime, common practice κ ≲ 0.01–0.05). */
 export const LANDAU_MAX_KAPPA = 0.05;

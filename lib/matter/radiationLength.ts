@@ -1,4 +1,4 @@
-import { AVOGADRO_PER_MOL, CLASSICAL_ELECTRON_RADIUS_CM, FINE_STRUCTURE } from '../constants';
+import { AVOGADRO_PER_MOL, CLASSICAL_ELECTRON_RADIUS_CM, FINE_STRUCTURE } from '../constants.js';
 
 /**
  * Radiation length of an element [g/cm²] from Tsai's formula as given in the PDG Review of

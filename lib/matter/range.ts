@@ -1,11 +1,11 @@
-import { msg } from '../errors';
-import type { Particle } from '../particles';
-import { warn } from '../warnings';
-import { BETHE_MAX_BETA_GAMMA, BETHE_MIN_BETA_GAMMA } from './bethe';
-import { ELECTRON_MAX_MEV, ELECTRON_MIN_MEV } from './electronLoss';
-import { kineticFromBetaGamma, kineticFromMomentum, momentumFromKinetic } from './kinematics';
-import type { Material } from './materials';
-import { isElectronLike, massStoppingPower } from './stoppingPower';
+import { msg } from '../errors.js';
+import type { Particle } from '../particles.js';
+import { warn } from '../warnings.js';
+import { BETHE_MAX_BETA_GAMMA, BETHE_MIN_BETA_GAMMA } from './bethe.js';
+import { ELECTRON_MAX_MEV, ELECTRON_MIN_MEV } from './electronLoss.js';
+import { kineticFromBetaGamma, kineticFromMomentum, momentumFromKinetic } from './kinematics.js';
+import type { Material } from './materials.js';
+import { isElectronLike, massStoppingPower } from './stoppingPower.js';
 
 /**
  * CSDA range (continuous-slowing-down approximation): R(T) = ∫ dT'/S(T') from 0 to T [g/cm²],

@@ -1,8 +1,8 @@
 import { createRequire } from 'node:module';
 import type { DataFrame } from 'danfojs-node';
-import type { Particle } from '../particles';
-import type { Material } from './materials';
-import { rangeTable, type RangeTableOptions } from './range';
+import type { Particle } from '../particles.js';
+import type { Material } from './materials.js';
+import { rangeTable, type RangeTableOptions } from './range.js';
 
 type Danfo = typeof import('danfojs-node');
 let danfo: Danfo | undefined;

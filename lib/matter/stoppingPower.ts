@@ -1,9 +1,9 @@
-import { ELECTRON_MASS_MEV } from '../constants';
-import { msg } from '../errors';
-import type { Particle } from '../particles';
-import { betheStoppingPower } from './bethe';
-import { electronCollisionStoppingPower, electronRadiativeStoppingPower } from './electronLoss';
-import type { Material } from './materials';
+import { ELECTRON_MASS_MEV } from '../constants.js';
+import { msg } from '../errors.js';
+import type { Particle } from '../particles.js';
+import { betheStoppingPower } from './bethe.js';
+import { electronCollisionStoppingPower, electronRadiativeStoppingPower } from './electronLoss.js';
+import type { Material } from './materials.js';
 
 /** True for e⁻ and e⁺ (by mass), which take the ICRU 37 formulas instead of Bethe. */
 export function isElectronLike(particle: Particle): boolean {

@@ -1,5 +1,5 @@
-import { asMime, escapeHtml, type MimeBundle, type Presentable } from './display';
-import { PALETTE } from './palette';
+import { asMime, escapeHtml, type MimeBundle, type Presentable } from './display.js';
+import { PALETTE } from './palette.js';
 
 /** MIME type under which notebook front ends draw a plotly figure from its JSON. */
 export const PLOTLY_MIME = 'application/vnd.plotly.v1+json';

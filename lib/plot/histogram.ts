@@ -1,6 +1,6 @@
-import { msg } from '../errors';
-import { Figure, baseLayout } from './figure';
-import { SERIES_COLOURS } from './palette';
+import { msg } from '../errors.js';
+import { Figure, baseLayout } from './figure.js';
+import { SERIES_COLOURS } from './palette.js';
 
 /** Counts of values in equal-width bins. `edges` has one more entry than `counts`. */
 export interface BinnedCounts {

@@ -1,7 +1,7 @@
-import { msg } from '../errors';
-import type { HitTable } from '../io/hitTable';
-import type { TrackTable } from '../track/measureTracks';
-import { eventDisplay, type DisplayTrack, type EventDisplay, type EventDisplayOptions } from './eventDisplay';
+import { msg } from '../errors.js';
+import type { HitTable } from '../io/hitTable.js';
+import type { TrackTable } from '../track/measureTracks.js';
+import { eventDisplay, type DisplayTrack, type EventDisplay, type EventDisplayOptions } from './eventDisplay.js';
 
 /** One event's hits (row numbers in the hit table) and the circles of its fitted tracks. */
 export interface EventArcs {

@@ -1,5 +1,5 @@
-import { Figure, baseLayout, plainNumbers, type PlotTrace } from './figure';
-import { SERIES_COLOURS } from './palette';
+import { Figure, baseLayout, plainNumbers, type PlotTrace } from './figure.js';
+import { SERIES_COLOURS } from './palette.js';
 
 /** One series of an x–y figure; values in the units named by the axis titles. */
 export interface XYSeries {

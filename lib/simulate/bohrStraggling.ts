@@ -1,4 +1,4 @@
-import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants';
+import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants.js';
 
 /**
  * Variance of the energy loss [MeV²] over a path of `pathGPerCm2` [g/cm²] in the Gaussian (thick

@@ -1,10 +1,10 @@
-import { msg } from '../errors';
-import { material as findMaterial, type Material } from '../matter/materials';
-import { energyAtRange, rangeAt, rangeCutoffMeV, rangeMaxMeV, rangeTable, type RangeTable } from '../matter/range';
-import type { Particle } from '../particles';
-import { highlandTheta0, HIGHLAND_MAX_X_OVER_X0, HIGHLAND_MIN_X_OVER_X0, radiationLengthM } from '../track/highland';
-import { bohrVarianceMeV2 } from './bohrStraggling';
-import type { Medium, SpeciesLoss } from './medium';
+import { msg } from '../errors.js';
+import { material as findMaterial, type Material } from '../matter/materials.js';
+import { energyAtRange, rangeAt, rangeCutoffMeV, rangeMaxMeV, rangeTable, type RangeTable } from '../matter/range.js';
+import type { Particle } from '../particles.js';
+import { highlandTheta0, HIGHLAND_MAX_X_OVER_X0, HIGHLAND_MIN_X_OVER_X0, radiationLengthM } from '../track/highland.js';
+import { bohrVarianceMeV2 } from './bohrStraggling.js';
+import type { Medium, SpeciesLoss } from './medium.js';
 
 /** Points of the per-species range table (log-spaced from the cutoff to the top energy). */
 const TABLE_POINTS = 600;

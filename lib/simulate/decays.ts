@@ -1,7 +1,7 @@
 import {
   ELECTRON, KAON_SHORT, LAMBDA, MUON_MINUS, MUON_PLUS, PION_MINUS, PION_PLUS, POSITRON, PROTON,
   type Particle,
-} from '../particles';
+} from '../particles.js';
 
 /**
  * The decay modes the simulator follows. Only the mode with two charged daughters is made for

@@ -1,4 +1,4 @@
-import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants';
+import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants.js';
 
 /**
  * Knock-on electrons (δ rays). Source: PDG Review of Particle Physics, "Passage of particles

@@ -1,4 +1,4 @@
-import { GEV_PER_TESLA_METRE } from '../constants';
+import { GEV_PER_TESLA_METRE } from '../constants.js';
 
 /**
  * Exact step of a charged particle along a helix in a uniform field (no loss, no scattering).

@@ -1,25 +1,25 @@
 // lib/simulate: seeded chamber simulator with truth (re-exports only).
-export { seededRandom, type SeededRandom } from './rng';
-export { VACUUM, type Medium, type SpeciesLoss } from './medium';
-export { chamberMedium } from './chamberMedium';
-export { chamber, insideChamber, type Chamber, type ChamberField, type ChamberOptions } from './chamber';
-export { helixStep } from './helixStep';
+export { seededRandom, type SeededRandom } from './rng.js';
+export { VACUUM, type Medium, type SpeciesLoss } from './medium.js';
+export { chamberMedium } from './chamberMedium.js';
+export { chamber, insideChamber, type Chamber, type ChamberField, type ChamberOptions } from './chamber.js';
+export { helixStep } from './helixStep.js';
 export {
   transportTrack, rotateAbout, TRANSPORT_DEFAULTS,
   type Sampling, type EnergyLossMode, type TransportOptions, type TrackStart, type TrackEnd, type EndReason, type HitSink, type DeltaSink,
-} from './transport';
-export { twoBodyMomentumMeV, twoBodyDecay, invariantMassMeV, type TwoBodyProducts } from './twoBodyDecay';
-export { michelMaxEnergyMeV, sampleMichelFraction } from './michel';
-export { deltaRayRatePerM, sampleDeltaRayKineticMeV, deltaRayCosTheta } from './deltaRay';
-export { bohrVarianceMeV2 } from './bohrStraggling';
-export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays';
+} from './transport.js';
+export { twoBodyMomentumMeV, twoBodyDecay, invariantMassMeV, type TwoBodyProducts } from './twoBodyDecay.js';
+export { michelMaxEnergyMeV, sampleMichelFraction } from './michel.js';
+export { deltaRayRatePerM, sampleDeltaRayKineticMeV, deltaRayCosTheta } from './deltaRay.js';
+export { bohrVarianceMeV2 } from './bohrStraggling.js';
+export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays.js';
 export {
   simulateChamber,
   type SimulationConfig, type SimulationResult, type MeasurementModel, type TransportSettings, type Source,
   type BeamSource, type CosmicSource, type StoppingSource, type TruthTable, type HitTruth,
-} from './simulate';
-export { SCENARIO_SCHEMA } from './scenarioSchema';
-export { readScenario, parseScenario, resolveScenario, SCENARIO_DEFAULTS } from './scenario';
-export { formatHitsCsv, formatTruthCsv, formatRunRecord, TRUTH_CSV_COLUMNS } from './simulationCsv';
-export { truthToDataFrame } from './truthFrame';
-export { readTruth } from './readTruth';
+} from './simulate.js';
+export { SCENARIO_SCHEMA } from './scenarioSchema.js';
+export { readScenario, parseScenario, resolveScenario, SCENARIO_DEFAULTS } from './scenario.js';
+export { formatHitsCsv, formatTruthCsv, formatRunRecord, TRUTH_CSV_COLUMNS } from './simulationCsv.js';
+export { truthToDataFrame } from './truthFrame.js';
+export { readTruth } from './readTruth.js';

@@ -1,4 +1,4 @@
-import type { Particle } from '../particles';
+import type { Particle } from '../particles.js';
 
 /**
  * What the transport needs to know about the chamber medium for one species. The simulator does

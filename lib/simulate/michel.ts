@@ -1,5 +1,5 @@
-import { ELECTRON_MASS_MEV } from '../constants';
-import type { SeededRandom } from './rng';
+import { ELECTRON_MASS_MEV } from '../constants.js';
+import type { SeededRandom } from './rng.js';
 
 /**
  * Largest total energy [MeV] of the electron from muon decay at rest:

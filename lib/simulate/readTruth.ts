@@ -1,8 +1,8 @@
 import { existsSync, readFileSync } from 'node:fs';
-import { msg } from '../errors';
-import { recordInput } from '../provenance';
-import type { TruthTable } from './simulate';
-import { TRUTH_CSV_COLUMNS } from './simulationCsv';
+import { msg } from '../errors.js';
+import { recordInput } from '../provenance.js';
+import type { TruthTable } from './simulate.js';
+import { TRUTH_CSV_COLUMNS } from './simulationCsv.js';
 
 const TEXT_COLUMNS = new Set(['species', 'process', 'end']);
 /** Factor from the file's unit to the TruthTable's (mm → m, MeV/c → GeV/c). */

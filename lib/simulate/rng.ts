@@ -1,8 +1,8 @@
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import type { RandomGenerator } from 'pure-rand/types/RandomGenerator';
-import { msg } from '../errors';
-import { recordSeed } from '../provenance';
+import { msg } from '../errors.js';
+import { recordSeed } from '../provenance.js';
 
 /**
  * The one seeded random stream of a simulation run (ARCHITECTURE.md: no global RNG in lib/).

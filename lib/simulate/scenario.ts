@@ -1,17 +1,17 @@
 import { readFileSync } from 'node:fs';
-import Ajv, { type ErrorObject } from 'ajv';
+import { Ajv, type ErrorObject } from 'ajv';
 import { unit as mathUnit } from 'mathjs';
-import { msg, SagittaError } from '../errors';
-import { particle, type Particle } from '../particles';
-import { recordInput } from '../provenance';
-import { fieldTesla, energyMeV, lengthMetres, momentumGeV } from '../units';
-import { chamber, insideChamber, type Chamber } from './chamber';
-import { chamberMedium } from './chamberMedium';
-import { jsonPointerLines, withLines } from './jsonPointerLines';
-import { VACUUM } from './medium';
-import { SCENARIO_SCHEMA } from './scenarioSchema';
-import type { MeasurementModel, SimulationConfig, Source, TransportSettings } from './simulate';
-import type { Sampling } from './transport';
+import { msg, SagittaError } from '../errors.js';
+import { particle, type Particle } from '../particles.js';
+import { recordInput } from '../provenance.js';
+import { fieldTesla, energyMeV, lengthMetres, momentumGeV } from '../units.js';
+import { chamber, insideChamber, type Chamber } from './chamber.js';
+import { chamberMedium } from './chamberMedium.js';
+import { jsonPointerLines, withLines } from './jsonPointerLines.js';
+import { VACUUM } from './medium.js';
+import { SCENARIO_SCHEMA } from './scenarioSchema.js';
+import type { MeasurementModel, SimulationConfig, Source, TransportSettings } from './simulate.js';
+import type { Sampling } from './transport.js';
 
 /** Defaults of the optional scenario fields, in internal units. */
 export const SCENARIO_DEFAULTS = Object.freeze({

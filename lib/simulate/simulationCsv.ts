@@ -1,4 +1,4 @@
-import type { SimulationResult } from './simulate';
+import type { SimulationResult } from './simulate.js';
 
 /**
  * Text forms of a simulation result with stable number formatting (fixed decimals, no "-0"), so

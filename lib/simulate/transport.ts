@@ -1,9 +1,9 @@
-import type { Particle } from '../particles';
-import type { Chamber } from './chamber';
-import { helixStep } from './helixStep';
-import type { SeededRandom } from './rng';
-import { maxEnergyTransferMeV } from '../matter/bethe';
-import { deltaRayCosTheta, deltaRayRatePerM, sampleDeltaRayKineticMeV } from './deltaRay';
+import type { Particle } from '../particles.js';
+import type { Chamber } from './chamber.js';
+import { helixStep } from './helixStep.js';
+import type { SeededRandom } from './rng.js';
+import { maxEnergyTransferMeV } from '../matter/bethe.js';
+import { deltaRayCosTheta, deltaRayRatePerM, sampleDeltaRayKineticMeV } from './deltaRay.js';
 
 /** Where hits are taken: every `spacingM` of path length, or where the path crosses planes. */
 export type Sampling =

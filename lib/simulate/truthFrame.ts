@@ -1,6 +1,6 @@
 import type { DataFrame } from 'danfojs-node';
-import { loadDanfo } from '../io/hitsToDataFrame';
-import type { TruthTable } from './simulate';
+import { loadDanfo } from '../io/hitsToDataFrame.js';
+import type { TruthTable } from './simulate.js';
 
 /**
  * The truth table as a danfojs DataFrame for notebooks (danfojs is loaded on first use), with

@@ -1,5 +1,5 @@
-import { msg } from '../errors';
-import type { SeededRandom } from './rng';
+import { msg } from '../errors.js';
+import type { SeededRandom } from './rng.js';
 
 /**
  * Momentum [MeV/c] of either daughter in the rest frame of a parent of mass `parentMeV`

@@ -1,10 +1,10 @@
-import { msg } from '../errors';
-import { FIT_STATUS, type FitStatus } from '../fit/circleFit';
-import { fitCircles, CIRCLE_METHODS, type CircleMethod } from '../fit/fitCircles';
-import { fitHelices } from '../fit/fitHelices';
-import type { HitTable } from '../io/hitTable';
-import { gatherRows, indexTracks } from '../io/indexTracks';
-import { momenta, type MomentumColumns } from './momentum';
+import { msg } from '../errors.js';
+import { FIT_STATUS, type FitStatus } from '../fit/circleFit.js';
+import { fitCircles, CIRCLE_METHODS, type CircleMethod } from '../fit/fitCircles.js';
+import { fitHelices } from '../fit/fitHelices.js';
+import type { HitTable } from '../io/hitTable.js';
+import { gatherRows, indexTracks } from '../io/indexTracks.js';
+import { momenta, type MomentumColumns } from './momentum.js';
 
 export interface MeasureTracksOptions {
   /** B_z [T], signed. Required. */

@@ -1,7 +1,7 @@
-import { GEV_PER_TESLA_METRE } from '../constants';
-import { msg } from '../errors';
-import type { CircleFitColumns } from '../fit/circleFit';
-import type { HelixFitColumns } from '../fit/fitHelices';
+import { GEV_PER_TESLA_METRE } from '../constants.js';
+import { msg } from '../errors.js';
+import type { CircleFitColumns } from '../fit/circleFit.js';
+import type { HelixFitColumns } from '../fit/fitHelices.js';
 
 /**
  * Momentum and charge from curvature, with errors from the fit covariance.

@@ -1,8 +1,8 @@
-import { GEV_PER_TESLA_METRE } from '../constants';
-import { msg } from '../errors';
-import { warn } from '../warnings';
-import type { Material } from '../matter/materials';
-import { radiationLengthM } from './highland';
+import { GEV_PER_TESLA_METRE } from '../constants.js';
+import { msg } from '../errors.js';
+import { warn } from '../warnings.js';
+import type { Material } from '../matter/materials.js';
+import { radiationLengthM } from './highland.js';
 
 /**
  * Momentum-resolution terms of a curvature measurement in a uniform field.

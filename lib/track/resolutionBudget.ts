@@ -1,13 +1,13 @@
-import { GEV_PER_TESLA_METRE } from '../constants';
-import { msg } from '../errors';
-import type { Column } from '../io/columnTable';
-import type { HitTable } from '../io/hitTable';
-import { indexTracks } from '../io/indexTracks';
-import { PION_PLUS, type Particle } from '../particles';
-import type { Material } from '../matter/materials';
-import type { TrackTable } from './measureTracks';
-import { radiationLengthM } from './highland';
-import { curvatureSigmaLeastSquares, multipleScatteringCurvatureSigma } from './resolution';
+import { GEV_PER_TESLA_METRE } from '../constants.js';
+import { msg } from '../errors.js';
+import type { Column } from '../io/columnTable.js';
+import type { HitTable } from '../io/hitTable.js';
+import { indexTracks } from '../io/indexTracks.js';
+import { PION_PLUS, type Particle } from '../particles.js';
+import type { Material } from '../matter/materials.js';
+import type { TrackTable } from './measureTracks.js';
+import { radiationLengthM } from './highland.js';
+import { curvatureSigmaLeastSquares, multipleScatteringCurvatureSigma } from './resolution.js';
 
 export interface ResolutionBudgetOptions {
   /** Medium filling the tracking volume. */

@@ -1,5 +1,5 @@
-import type { ColumnTable } from '../io/columnTable';
-import type { TrackTable } from './measureTracks';
+import type { ColumnTable } from '../io/columnTable.js';
+import type { TrackTable } from './measureTracks.js';
 
 /**
  * The track table as output columns, in the order `sagitta fit` writes them. Units are in the

@@ -11,11 +11,11 @@ import { mkdtempSync, openSync, writeSync, closeSync, statSync, rmSync } from 'n
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { fitCircles, type CircleMethod } from '../../lib/fit/fitCircles';
-import { preparePlaneHits } from '../../lib/fit/preparePlaneHits';
-import { parseHitsCsv } from '../../lib/io/parseHitsCsv';
+import { fitCircles, type CircleMethod } from '../../lib/fit/fitCircles.js';
+import { preparePlaneHits } from '../../lib/fit/preparePlaneHits.js';
+import { parseHitsCsv } from '../../lib/io/parseHitsCsv.js';
 import { readFileSync } from 'node:fs';
-import { seededRandom } from '../../lib/simulate/rng';
+import { seededRandom } from '../../lib/simulate/rng.js';
 
 const TRACKS = 200_000;
 const HITS = 20;

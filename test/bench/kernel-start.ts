@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { fileURLToPath } from 'node:url';
-import { ProtocolClient, readKernelJson, withTimeout } from '../kernel/protocol-client';
+import { ProtocolClient, readKernelJson, withTimeout } from '../kernel/protocol-client.js';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const RUNS = 5;

@@ -6,10 +6,10 @@
  */
 import { performance } from 'node:perf_hooks';
 import { cpus } from 'node:os';
-import { PROTON, ELECTRON } from '../../lib/particles';
-import { material } from '../../lib/matter/materials';
-import { massStoppingPower } from '../../lib/matter/stoppingPower';
-import { csdaRange, rangeTable, energyAtRange } from '../../lib/matter/range';
+import { PROTON, ELECTRON } from '../../lib/particles.js';
+import { material } from '../../lib/matter/materials.js';
+import { massStoppingPower } from '../../lib/matter/stoppingPower.js';
+import { csdaRange, rangeTable, energyAtRange } from '../../lib/matter/range.js';
 
 export interface BenchResult { readonly name: string; readonly value: number; readonly unit: string; readonly target: string; readonly pass: boolean }
 

@@ -14,9 +14,9 @@ import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
-import { runCommand } from '../../kernel/cli/commands/run';
-import { runNotebook } from '../../kernel/runner/runNotebook';
-import { createSession } from '../../kernel/session/index';
+import { runCommand } from '../../kernel/cli/commands/run.js';
+import { runNotebook } from '../../kernel/runner/runNotebook.js';
+import { createSession } from '../../kernel/session/index.js';
 
 const CELLS = 30;
 const dir = mkdtempSync(join(tmpdir(), 'sagitta-bench-runner-'));

@@ -6,9 +6,9 @@
  */
 import { cpus, loadavg } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { PION_MINUS, PROTON } from '../../lib/particles';
-import { chamber, chamberMedium, seededRandom, simulateChamber, transportTrack, TRANSPORT_DEFAULTS, VACUUM, type SimulationConfig } from '../../lib/simulate/index';
-import { BUILTIN_FITTERS, compareFitters, fitLabSample } from '../../lib/fitlab/index';
+import { PION_MINUS, PROTON } from '../../lib/particles.js';
+import { chamber, chamberMedium, seededRandom, simulateChamber, transportTrack, TRANSPORT_DEFAULTS, VACUUM, type SimulationConfig } from '../../lib/simulate/index.js';
+import { BUILTIN_FITTERS, compareFitters, fitLabSample } from '../../lib/fitlab/index.js';
 
 export interface BenchResult { readonly name: string; readonly value: number; readonly unit: string; readonly target: string; readonly pass: boolean }
 

@@ -2,10 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runFit, type FitCommandOptions } from '../../kernel/cli/commands/fit';
-import { momentumResolution } from '../../lib/track/resolution';
-import { material } from '../../lib/matter/materials';
-import { PION_PLUS } from '../../lib/particles';
+import { runFit, type FitCommandOptions } from '../../kernel/cli/commands/fit.js';
+import { momentumResolution } from '../../lib/track/resolution.js';
+import { material } from '../../lib/matter/materials.js';
+import { PION_PLUS } from '../../lib/particles.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'sagitta-fit-material-'));
 

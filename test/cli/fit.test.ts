@@ -4,7 +4,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { arc } from '../fit/helpers';
+import { arc } from '../fit/helpers.js';
 
 const BIN = fileURLToPath(new URL('../../kernel/bin/sagitta.js', import.meta.url));
 const dir = mkdtempSync(join(tmpdir(), 'sagitta-cli-'));

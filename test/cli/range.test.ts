@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
 import { Command } from 'commander';
-import { RANGE_CAUTION, registerRange, runRange, type RangeCommandOptions } from '../../kernel/cli/commands/range';
-import { SagittaError } from '../../lib/errors';
+import { RANGE_CAUTION, registerRange, runRange, type RangeCommandOptions } from '../../kernel/cli/commands/range.js';
+import { SagittaError } from '../../lib/errors.js';
 
 const base: RangeCommandOptions = { particle: 'proton', material: 'water', points: '25' };
 const json = (o: Partial<RangeCommandOptions>) => JSON.parse(runRange({ ...base, ...o, json: true }).stdout);

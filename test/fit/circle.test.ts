@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import { fitCircle, fitCircles, CIRCLE_METHODS, type CircleMethod } from '../../lib/fit/fitCircles';
-import { circleFitAt } from '../../lib/fit/circleFit';
-import { normalEquations } from '../../lib/fit/curvatureResidual';
-import { arc, gaussian } from './helpers';
+import { fitCircle, fitCircles, CIRCLE_METHODS, type CircleMethod } from '../../lib/fit/fitCircles.js';
+import { circleFitAt } from '../../lib/fit/circleFit.js';
+import { normalEquations } from '../../lib/fit/curvatureResidual.js';
+import { arc, gaussian } from './helpers.js';
 
 const METHODS = CIRCLE_METHODS;
 

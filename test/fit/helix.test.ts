@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { fitHelix, fitHelices, arcLengths } from '../../lib/fit/fitHelices';
-import { fitLine } from '../../lib/fit/fitLine';
-import { gaussian } from './helpers';
+import { fitHelix, fitHelices, arcLengths } from '../../lib/fit/fitHelices.js';
+import { fitLine } from '../../lib/fit/fitLine.js';
+import { gaussian } from './helpers.js';
 
 /** Hits on a helix about +z: centre (xc, yc), radius R, turning sense, dz/ds = tanL, z at start z0. */
 function helix(xc: number, yc: number, R: number, a0: number, span: number, n: number, tanL: number, z0: number) {
@@ -77,7 +77,7 @@ describe('fitLine (textbook weighted least squares)', () => {
 
 describe('arcLengthsAndSlopes (analytic ∂s/∂(κ, φ, d) used by the helix covariance)', () => {
   it('matches central finite differences of arcLengths, for curved, nearly straight and spiralling tracks', async () => {
-    const { arcLengthsAndSlopes } = await import('../../lib/fit/fitHelices');
+    const { arcLengthsAndSlopes } = await import('../../lib/fit/fitHelices.js');
     const cases: [number, number, number][] = [[1.7, 0.3, 0.002], [1e-6, -0.4, 0.001], [-25, 1.0, -0.0005], [40, 2.0, 0.0003]];
     for (const [kappa, phi, d] of cases) {
       const n = 40, R = 1 / Math.abs(kappa);

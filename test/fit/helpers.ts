@@ -1,4 +1,4 @@
-import { seededRandom } from '../../lib/simulate/rng';
+import { seededRandom } from '../../lib/simulate/rng.js';
 
 /** Seeded standard-normal generator for tests (the library's seeded stream). */
 export function gaussian(seed: number): () => number {

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { fitCircleGeometric } from '../../lib/fit/index';
+import { fitCircleGeometric } from '../../lib/fit/index.js';
 import {
   BUILTIN_FITTERS, compareFitters, fitLabSample, GEOMETRIC_FITTER, HELIX_FITTER, meritFigure, pullFigure, pValueFigure, type Fitter,
-} from '../../lib/fitlab/index';
-import { chamberMedium } from '../../lib/simulate/index';
-import { glucksternCurvatureSigma } from '../../lib/track/resolution';
+} from '../../lib/fitlab/index.js';
+import { chamberMedium } from '../../lib/simulate/index.js';
+import { glucksternCurvatureSigma } from '../../lib/track/resolution.js';
 
 describe('the fit lab on simulated truth', () => {
   it('fitLabSample: the true curvature sign follows lib/fit (κ > 0 counter-clockwise; q > 0 turns clockwise in B along +z)', () => {
@@ -100,8 +100,8 @@ describe('the fit lab on simulated truth', () => {
 describe('the fit lab on a full chamber run', () => {
   it('fitLabSampleFromRun(brindlemoor run): truth at the first hit; pions and muons within a few per cent, stopping protons show the energy-loss bias', async () => {
     const { readFileSync } = await import('node:fs');
-    const { parseScenario, simulateChamber } = await import('../../lib/simulate/index');
-    const { fitLabSampleFromRun } = await import('../../lib/fitlab/index');
+    const { parseScenario, simulateChamber } = await import('../../lib/simulate/index.js');
+    const { fitLabSampleFromRun } = await import('../../lib/fitlab/index.js');
     const config = parseScenario(readFileSync(new URL('../../notebooks/data/brindlemoor.scenario.json', import.meta.url), 'utf8'));
     const run = simulateChamber(config, 11);
     const s = fitLabSampleFromRun(run, { fieldT: 1.5, minHits: 20, species: ['pi-', 'pi+', 'mu-', 'mu+'] });

@@ -1,7 +1,7 @@
 import { join } from 'node:path';
 import { describe, it } from 'vitest';
-import { expectGolden } from '../expectGolden';
-import { BUILTIN_FITTERS, compareFitters, fitLabSample, meritFigure, pullFigure, pValueFigure } from '../../lib/fitlab/index';
+import { expectGolden } from '../expectGolden.js';
+import { BUILTIN_FITTERS, compareFitters, fitLabSample, meritFigure, pullFigure, pValueFigure } from '../../lib/fitlab/index.js';
 
 /**
  * Golden files for the fit-lab figures (STYLE.md §10): plotly JSON with numbers rounded to 4

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { BUILTIN_FITTERS, compareFitters, fitLabSample, fitLabTables } from '../../lib/fitlab/index';
+import { BUILTIN_FITTERS, compareFitters, fitLabSample, fitLabTables } from '../../lib/fitlab/index.js';
 
 describe('fitLabTables(report)', () => {
   it('gives danfojs DataFrames: one summary row per fitter, one row per fitter and bin', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatCsv, formatCsvBytes, rowObjects } from '../../lib/io/columnTable';
+import { formatCsv, formatCsvBytes, rowObjects } from '../../lib/io/columnTable.js';
 
 const table = {
   rows: 3,

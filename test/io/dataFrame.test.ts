@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { parseHitsCsv } from '../../lib/io/parseHitsCsv';
-import { hitsToDataFrame } from '../../lib/io/hitsToDataFrame';
-import { columnTableToDataFrame } from '../../lib/io/columnTable';
-import { measureTracks } from '../../lib/track/measureTracks';
-import { trackTableColumns } from '../../lib/track/trackTableColumns';
+import { parseHitsCsv } from '../../lib/io/parseHitsCsv.js';
+import { hitsToDataFrame } from '../../lib/io/hitsToDataFrame.js';
+import { columnTableToDataFrame } from '../../lib/io/columnTable.js';
+import { measureTracks } from '../../lib/track/measureTracks.js';
+import { trackTableColumns } from '../../lib/track/trackTableColumns.js';
 
 const hits = parseHitsCsv(new TextEncoder().encode('event,track,x[cm],y[cm],z[cm]\n1,1,0,0,0\n1,1,10,1,1\n1,1,20,4,2\n1,1,30,9,3\n'), 'h.csv');
 

@@ -11,9 +11,9 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { inflateSync } from 'node:zlib';
 import { afterAll, describe, expect, it } from 'vitest';
-import { defaultInterruptMode, installKernelspec, kernelJson, listKernelspecs, removeKernelspec } from '../../kernel/kernelspec/kernelspec';
-import { kernelsDirFor, kernelSearchPath, userDataDir, type PlatformEnv } from '../../kernel/kernelspec/paths';
-import { SagittaError } from '../../lib/errors';
+import { defaultInterruptMode, installKernelspec, kernelJson, listKernelspecs, removeKernelspec } from '../../kernel/kernelspec/kernelspec.js';
+import { kernelsDirFor, kernelSearchPath, userDataDir, type PlatformEnv } from '../../kernel/kernelspec/paths.js';
+import { SagittaError } from '../../lib/errors.js';
 
 const root = path.resolve(__dirname, '../..');
 const scratch = mkdtempSync(path.join(tmpdir(), 'sagitta-kspec-'));

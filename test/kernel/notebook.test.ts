@@ -2,8 +2,8 @@ import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { joinSource, parseNotebook, readNotebook, serializeNotebook, splitLines, upgradeNotebook, writeNotebook } from '../../kernel/notebook/index';
-import { nbformatValidator } from './nbSchema';
+import { joinSource, parseNotebook, readNotebook, serializeNotebook, splitLines, upgradeNotebook, writeNotebook } from '../../kernel/notebook/index.js';
+import { nbformatValidator } from './nbSchema.js';
 
 const FIXTURE = join(import.meta.dirname, '..', 'fixtures', 'nbformat', 'minor2-no-ids.ipynb');
 

@@ -4,7 +4,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { ProtocolClient } from './protocol-client';
+import { ProtocolClient } from './protocol-client.js';
 
 const root = path.resolve(__dirname, '../..');
 const dir = mkdtempSync(path.join(tmpdir(), 'sagitta-orphan-'));

@@ -4,9 +4,9 @@
  * reply), and shutdown closes the sockets.
  */
 import { afterAll, describe, expect, it } from 'vitest';
-import { KernelServer } from '../../kernel/protocol/server';
-import type { ConnectionInfo } from '../../kernel/protocol/connection';
-import { ProtocolClient, withTimeout } from './protocol-client';
+import { KernelServer } from '../../kernel/protocol/server.js';
+import type { ConnectionInfo } from '../../kernel/protocol/connection.js';
+import { ProtocolClient, withTimeout } from './protocol-client.js';
 
 const client = new ProtocolClient();
 const logged: string[] = [];

@@ -11,7 +11,7 @@ import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ProtocolClient, readKernelJson, withTimeout, type WireMessage } from './protocol-client';
+import { ProtocolClient, readKernelJson, withTimeout, type WireMessage } from './protocol-client.js';
 
 const root = path.resolve(__dirname, '../..');
 const kernelsDir = mkdtempSync(path.join(tmpdir(), 'sagitta-kernels-'));

@@ -5,7 +5,7 @@
  */
 import { createHmac } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { decode, DELIMITER, encode, makeHeader, SignatureHistory } from '../../kernel/protocol/wire';
+import { decode, DELIMITER, encode, makeHeader, SignatureHistory } from '../../kernel/protocol/wire.js';
 
 const KEY = 'a0436f6c-1916-498b-8eb9-e81ab9368e84';
 

@@ -1,14 +1,14 @@
 import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { chromiumAvailable } from './reportBrowser';
-import { expectGolden } from '../expectGolden';
+import { chromiumAvailable } from './reportBrowser.js';
+import { expectGolden } from '../expectGolden.js';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { inflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { collapseCarriageReturns, highlightTypeScript, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index';
-import { executedFixture, XSS } from './reportFixture';
-import { plotlySource } from '../../kernel/report/assets';
+import { collapseCarriageReturns, highlightTypeScript, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index.js';
+import { executedFixture, XSS } from './reportFixture.js';
+import { plotlySource } from '../../kernel/report/assets.js';
 
 const OUT = mkdtempSync(join(tmpdir(), 'sagitta-report-'));
 

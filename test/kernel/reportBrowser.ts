@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import type { Page } from 'playwright-core';
-import { chromiumPath, openChromium } from '../../kernel/report/index';
+import { chromiumPath, openChromium } from '../../kernel/report/index.js';
 
 /**
  * Whether the browser tests can run. Outside CI a missing Chromium skips the browser part; in CI

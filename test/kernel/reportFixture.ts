@@ -1,6 +1,6 @@
-import { asMime, eventDisplay, histogramFigure } from '../../lib/plot/index';
-import type { Notebook } from '../../kernel/notebook/types';
-import type { ReportInput } from '../../kernel/report/types';
+import { asMime, eventDisplay, histogramFigure } from '../../lib/plot/index.js';
+import type { Notebook } from '../../kernel/notebook/types.js';
+import type { ReportInput } from '../../kernel/report/types.js';
 
 /** A hostile string as it could arrive in a CSV label or a markdown cell. */
 export const XSS = '<script>window.__sgXss = (window.__sgXss || 0) + 1</script><img src=x onerror="window.__sgXss = 99">';

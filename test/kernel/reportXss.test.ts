@@ -1,9 +1,9 @@
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { chromiumAvailable, openReport } from './reportBrowser';
+import { chromiumAvailable, openReport } from './reportBrowser.js';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runCommand } from '../../kernel/cli/commands/run';
+import { runCommand } from '../../kernel/cli/commands/run.js';
 
 /**
  * End to end: hostile labels in a CSV file and hostile raw HTML in a markdown cell travel

@@ -3,11 +3,11 @@ import { copyFileSync, existsSync, mkdtempSync, readFileSync, writeFileSync } fr
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import type { Notebook } from '../../kernel/notebook/types';
-import { joinSource } from '../../kernel/notebook/source';
-import { declaredNames, parseDuration, parseSetArguments, injectParameters } from '../../kernel/runner/index';
-import { runCommand } from '../../kernel/cli/commands/run';
-import { nbformatValidator } from './nbSchema';
+import type { Notebook } from '../../kernel/notebook/types.js';
+import { joinSource } from '../../kernel/notebook/source.js';
+import { declaredNames, parseDuration, parseSetArguments, injectParameters } from '../../kernel/runner/index.js';
+import { runCommand } from '../../kernel/cli/commands/run.js';
+import { nbformatValidator } from './nbSchema.js';
 
 const BIN = resolve(import.meta.dirname, '..', '..', 'kernel', 'bin', 'sagitta.js');
 const validate = nbformatValidator();

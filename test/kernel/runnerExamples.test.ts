@@ -1,12 +1,12 @@
 import { spawnSync } from 'node:child_process';
-import { chromiumAvailable, openReport } from './reportBrowser';
+import { chromiumAvailable, openReport } from './reportBrowser.js';
 import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runCommand } from '../../kernel/cli/commands/run';
-import type { Notebook } from '../../kernel/notebook/types';
-import { nbformatValidator } from './nbSchema';
+import { runCommand } from '../../kernel/cli/commands/run.js';
+import type { Notebook } from '../../kernel/notebook/types.js';
+import { nbformatValidator } from './nbSchema.js';
 
 const NOTEBOOKS = resolve(import.meta.dirname, '..', '..', 'notebooks');
 const examples = readdirSync(NOTEBOOKS).filter((f) => f.endsWith('.ipynb')).sort();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { codePointToUtf16, utf16ToCodePoint } from '../../kernel/session/positions';
+import { codePointToUtf16, utf16ToCodePoint } from '../../kernel/session/positions.js';
 
 // Messaging protocol 5.2+: cursor_pos counts Unicode code points; JavaScript strings are UTF-16.
 describe('code-point ↔ UTF-16 positions', () => {

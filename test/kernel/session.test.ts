@@ -8,8 +8,8 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createSession } from '../../kernel/session/session';
-import type { CellHooks, MimeBundle, Session } from '../../kernel/session/types';
+import { createSession } from '../../kernel/session/session.js';
+import type { CellHooks, MimeBundle, Session } from '../../kernel/session/types.js';
 
 const startDir = process.cwd();
 const notebookDir = mkdtempSync(path.join(tmpdir(), 'sagitta-session-'));

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { ELECTRON, PROTON } from '../../lib/particles';
-import { betaFromKinetic, betaGamma, kinematicsFromKinetic, kineticFromBetaGamma, kineticFromMomentum, momentumFromKinetic } from '../../lib/matter/kinematics';
+import { ELECTRON, PROTON } from '../../lib/particles.js';
+import { betaFromKinetic, betaGamma, kinematicsFromKinetic, kineticFromBetaGamma, kineticFromMomentum, momentumFromKinetic } from '../../lib/matter/kinematics.js';
 
 describe('kinematics (E² = p² + M², common practice)', () => {
   it('momentumFromKinetic(proton, 100 MeV) = 444.58 MeV/c', () => {

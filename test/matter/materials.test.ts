@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import x0s from '../fixtures/pdg-materials/radiation-lengths.json';
-import { SagittaError } from '../../lib/errors';
+import x0s from '../fixtures/pdg-materials/radiation-lengths.json' with { type: 'json' };
+import { SagittaError } from '../../lib/errors.js';
 import {
   ELEMENTS, MATERIALS, cBarFromPlasma, compound, densityEffectDelta, material, mixture, plasmaEnergyEV,
   radiationLengthTsai, sternheimerPeierls,
-} from '../../lib/matter/index';
+} from '../../lib/matter/index.js';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 

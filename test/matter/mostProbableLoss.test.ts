@@ -1,7 +1,7 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import { PION_PLUS, MUON_MINUS, PROTON } from '../../lib/particles';
-import { consumeWarnings } from '../../lib/warnings';
-import { kineticFromBetaGamma, massStoppingPower, material, mostProbableEnergyLoss } from '../../lib/matter/index';
+import { PION_PLUS, MUON_MINUS, PROTON } from '../../lib/particles.js';
+import { consumeWarnings } from '../../lib/warnings.js';
+import { kineticFromBetaGamma, massStoppingPower, material, mostProbableEnergyLoss } from '../../lib/matter/index.js';
 
 beforeEach(() => void consumeWarnings());
 const si = material('silicon');

@@ -1,12 +1,12 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import pstar from '../fixtures/pstar/water-protons.json';
-import estar from '../fixtures/estar/water-electrons.json';
-import { ELECTRON, MUON_PLUS, PION_MINUS, PROTON } from '../../lib/particles';
-import { consumeWarnings } from '../../lib/warnings';
+import pstar from '../fixtures/pstar/water-protons.json' with { type: 'json' };
+import estar from '../fixtures/estar/water-electrons.json' with { type: 'json' };
+import { ELECTRON, MUON_PLUS, PION_MINUS, PROTON } from '../../lib/particles.js';
+import { consumeWarnings } from '../../lib/warnings.js';
 import {
   csdaRange, energyAfterPath, energyAtRange, kineticEnergyFromRange, material, rangeAt, rangeCutoffMeV,
   rangeTable, residualRange,
-} from '../../lib/matter/index';
+} from '../../lib/matter/index.js';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 beforeEach(() => void consumeWarnings());
@@ -84,7 +84,7 @@ describe('rangeTable (typed arrays) and its interpolation', () => {
 
 describe('rangeTableFrame (DataFrame for notebooks)', () => {
   it('has the table’s rows and the JSON column names of `sagitta range`', async () => {
-    const { rangeTableFrame } = await import('../../lib/matter/rangeTableFrame');
+    const { rangeTableFrame } = await import('../../lib/matter/rangeTableFrame.js');
     const df = rangeTableFrame(PROTON, material('water'), { fromMeV: 10, toMeV: 100, points: 5 });
     expect(df.shape).toEqual([5, 5]);
     expect(df.columns).toEqual(['kinetic_energy_MeV', 'momentum_MeV', 'stopping_power_MeV_cm2_g', 'csda_range_g_cm2', 'csda_range_cm']);
@@ -95,7 +95,7 @@ describe('rangeTableFrame (DataFrame for notebooks)', () => {
 
 describe('momentum ↔ range', () => {
   it('csdaRangeFromMomentum and momentumFromRange are inverse for a 29.79 MeV/c μ⁺ in liquid hydrogen', async () => {
-    const { csdaRangeFromMomentum, momentumFromRange } = await import('../../lib/matter/range');
+    const { csdaRangeFromMomentum, momentumFromRange } = await import('../../lib/matter/range.js');
     // π⁺ → μ⁺ν at rest gives p_μ = 29.79 MeV/c (T_μ = 4.12 MeV), from PDG masses (common practice).
     const lh2 = material('liquid-hydrogen');
     const r = csdaRangeFromMomentum(MUON_PLUS, lh2, 29.79);

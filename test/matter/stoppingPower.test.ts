@@ -1,15 +1,15 @@
 import { describe, expect, it, beforeEach } from 'vitest';
-import pstar from '../fixtures/pstar/water-protons.json';
-import estar from '../fixtures/estar/water-electrons.json';
-import pdgMin from '../fixtures/pdg-materials/min-ionization.json';
-import { AVOGADRO_PER_MOL, BETHE_K_MEV_CM2_PER_MOL, CLASSICAL_ELECTRON_RADIUS_CM, ELECTRON_MASS_MEV } from '../../lib/constants';
-import { ALPHA, ELECTRON, KAON_SHORT, MUON_MINUS, POSITRON, PROTON } from '../../lib/particles';
-import { consumeWarnings } from '../../lib/warnings';
-import { SagittaError } from '../../lib/errors';
+import pstar from '../fixtures/pstar/water-protons.json' with { type: 'json' };
+import estar from '../fixtures/estar/water-electrons.json' with { type: 'json' };
+import pdgMin from '../fixtures/pdg-materials/min-ionization.json' with { type: 'json' };
+import { AVOGADRO_PER_MOL, BETHE_K_MEV_CM2_PER_MOL, CLASSICAL_ELECTRON_RADIUS_CM, ELECTRON_MASS_MEV } from '../../lib/constants.js';
+import { ALPHA, ELECTRON, KAON_SHORT, MUON_MINUS, POSITRON, PROTON } from '../../lib/particles.js';
+import { consumeWarnings } from '../../lib/warnings.js';
+import { SagittaError } from '../../lib/errors.js';
 import {
   betheStoppingPower, collisionStoppingPower, kineticFromBetaGamma, massStoppingPower, material,
   linearStoppingPower, maxEnergyTransferMeV, radiativeStoppingPower,
-} from '../../lib/matter/index';
+} from '../../lib/matter/index.js';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 beforeEach(() => void consumeWarnings());

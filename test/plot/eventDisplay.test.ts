@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { asMime, eventDisplay } from '../../lib/plot/index';
+import { asMime, eventDisplay } from '../../lib/plot/index.js';
 import { join } from 'node:path';
-import { expectGolden } from '../expectGolden';
+import { expectGolden } from '../expectGolden.js';
 
 /** Hits on a circle of radius R about (cx, cy) at the given angles (radians). */
 function arcHits(cx: number, cy: number, r: number, angles: number[]): { x: number[]; y: number[] } {

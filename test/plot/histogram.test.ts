@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { asMime, binCounts, histogramFigure, PLOTLY_MIME } from '../../lib/plot/index';
+import { asMime, binCounts, histogramFigure, PLOTLY_MIME } from '../../lib/plot/index.js';
 
 describe('binCounts', () => {
   it('binCounts([0, 1, 1, 2], 2, [0, 2]) puts the upper edge in the last bin', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import type { HitTable } from '../../lib/io/hitTable';
-import { measureTracks } from '../../lib/track/measureTracks';
-import { eventArcs, trackEventDisplay } from '../../lib/plot/index';
+import type { HitTable } from '../../lib/io/hitTable.js';
+import { measureTracks } from '../../lib/track/measureTracks.js';
+import { eventArcs, trackEventDisplay } from '../../lib/plot/index.js';
 
 /** Noise-free hits on a circle of radius R about (cx, cy), in travel order, plus one noise hit. */
 function circleEvent(cx: number, cy: number, r: number, from: number, to: number, n: number): HitTable {

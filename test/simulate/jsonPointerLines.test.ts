@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { parseScenario } from '../../lib/simulate/index';
-import { jsonPointerLines, withLines } from '../../lib/simulate/jsonPointerLines';
+import { parseScenario } from '../../lib/simulate/index.js';
+import { jsonPointerLines, withLines } from '../../lib/simulate/jsonPointerLines.js';
 import { readFileSync } from 'node:fs';
 
 describe('jsonPointerLines / withLines', () => {

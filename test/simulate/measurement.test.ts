@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { PION_MINUS } from '../../lib/particles';
-import { chamber, simulateChamber, VACUUM, type MeasurementModel, type SimulationConfig } from '../../lib/simulate/index';
+import { PION_MINUS } from '../../lib/particles.js';
+import { chamber, simulateChamber, VACUUM, type MeasurementModel, type SimulationConfig } from '../../lib/simulate/index.js';
 
 const box = chamber({ sizeM: [1.2, 0.8, 0.5], medium: VACUUM, fieldT: [0, 0, 1.5] });
 const transport = { energyLoss: 'off' as const, scattering: false, maxStepM: 0.01, maxPathM: 5, deltaRayMinMeV: 0 };
@@ -66,7 +66,7 @@ describe('measurement model', () => {
 
 describe('truthToDataFrame', () => {
   it('gives one row per particle with the CSV columns in mm and MeV/c', async () => {
-    const { truthToDataFrame } = await import('../../lib/simulate/index');
+    const { truthToDataFrame } = await import('../../lib/simulate/index.js');
     const r = run({}, 5);
     const df = truthToDataFrame(r.truth);
     expect(df.shape).toEqual([r.truth.length, 19]);

@@ -2,9 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { formatTruthCsv, parseScenario, simulateChamber } from '../../lib/simulate/index';
-import { readTruth } from '../../lib/simulate/readTruth';
-import { provenanceSnapshot } from '../../lib/provenance';
+import { formatTruthCsv, parseScenario, simulateChamber } from '../../lib/simulate/index.js';
+import { readTruth } from '../../lib/simulate/readTruth.js';
+import { provenanceSnapshot } from '../../lib/provenance.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'sagitta-truth-'));
 

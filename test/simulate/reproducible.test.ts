@@ -1,9 +1,9 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { parseHitsCsv } from '../../lib/io/index';
-import { formatHitsCsv, formatTruthCsv, parseScenario, simulateChamber } from '../../lib/simulate/index';
-import { DEMO_SEEDS, makeDemoFiles, schemaFile } from '../../notebooks/data/make-data';
+import { parseHitsCsv } from '../../lib/io/index.js';
+import { formatHitsCsv, formatTruthCsv, parseScenario, simulateChamber } from '../../lib/simulate/index.js';
+import { DEMO_SEEDS, makeDemoFiles, schemaFile } from '../../notebooks/data/make-data.js';
 
 const scenarioText = readFileSync(new URL('../../notebooks/data/brindlemoor.scenario.json', import.meta.url), 'utf8');
 

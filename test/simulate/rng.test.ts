@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { SagittaError } from '../../lib/errors';
-import { provenanceSnapshot } from '../../lib/provenance';
-import { seededRandom } from '../../lib/simulate/index';
+import { SagittaError } from '../../lib/errors.js';
+import { provenanceSnapshot } from '../../lib/provenance.js';
+import { seededRandom } from '../../lib/simulate/index.js';
 
 describe('seededRandom (pure-rand xoroshiro128+) and its samplers', () => {
   it('the same seed gives the same stream; the seed is recorded for the report', () => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { material } from '../../lib/matter/index';
-import { MUON_MINUS, PROTON } from '../../lib/particles';
-import { chamber, chamberMedium, seededRandom, transportTrack, TRANSPORT_DEFAULTS } from '../../lib/simulate/index';
-import { highlandTheta0, radiationLengthM } from '../../lib/track/highland';
+import { material } from '../../lib/matter/index.js';
+import { MUON_MINUS, PROTON } from '../../lib/particles.js';
+import { chamber, chamberMedium, seededRandom, transportTrack, TRANSPORT_DEFAULTS } from '../../lib/simulate/index.js';
+import { highlandTheta0, radiationLengthM } from '../../lib/track/highland.js';
 
 /**
  * Statistical checks with fixed seeds. The θ₀ fed to the transport is Highland–Lynch–Dahl

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { SagittaError } from '../../lib/errors';
-import { parseScenario, resolveScenario } from '../../lib/simulate/index';
+import { SagittaError } from '../../lib/errors.js';
+import { parseScenario, resolveScenario } from '../../lib/simulate/index.js';
 
 const demoText = readFileSync(new URL('../../notebooks/data/brindlemoor.scenario.json', import.meta.url), 'utf8');
 const demo = () => JSON.parse(demoText) as Record<string, any>;

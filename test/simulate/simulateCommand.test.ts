@@ -2,9 +2,9 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runSimulate, SIMULATE_CAUTION } from '../../kernel/cli/commands/simulate';
-import { buildProgram } from '../../kernel/cli/main';
-import { parseHitsCsv } from '../../lib/io/index';
+import { runSimulate, SIMULATE_CAUTION } from '../../kernel/cli/commands/simulate.js';
+import { buildProgram } from '../../kernel/cli/main.js';
+import { parseHitsCsv } from '../../lib/io/index.js';
 
 const scenario = JSON.parse(readFileSync(new URL('../../notebooks/data/brindlemoor.scenario.json', import.meta.url), 'utf8'));
 

@@ -1,8 +1,8 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import { consumeWarnings } from '../../lib/warnings';
-import { MUON_MINUS } from '../../lib/particles';
-import { material } from '../../lib/matter/materials';
-import { highlandTheta0, highlandTheta0InMaterial, radiationLengthM } from '../../lib/track/highland';
+import { consumeWarnings } from '../../lib/warnings.js';
+import { MUON_MINUS } from '../../lib/particles.js';
+import { material } from '../../lib/matter/materials.js';
+import { highlandTheta0, highlandTheta0InMaterial, radiationLengthM } from '../../lib/track/highland.js';
 
 beforeEach(() => void consumeWarnings());
 

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { fitCircles } from '../../lib/fit/fitCircles';
-import { fitHelices } from '../../lib/fit/fitHelices';
-import { momenta, momentumAt, transverseMomentumGeV, radiusOfCurvatureM } from '../../lib/track/momentum';
-import { GEV_PER_TESLA_METRE, SPEED_OF_LIGHT_M_S } from '../../lib/constants';
-import { arc } from '../fit/helpers';
+import { fitCircles } from '../../lib/fit/fitCircles.js';
+import { fitHelices } from '../../lib/fit/fitHelices.js';
+import { momenta, momentumAt, transverseMomentumGeV, radiusOfCurvatureM } from '../../lib/track/momentum.js';
+import { GEV_PER_TESLA_METRE, SPEED_OF_LIGHT_M_S } from '../../lib/constants.js';
+import { arc } from '../fit/helpers.js';
 
 describe('transverseMomentumGeV: p_T = 0.299792458·|z|·B·R (common practice; c exact, CODATA 2018)', () => {
   it('the constant is c/1e9 with c = 299 792 458 m/s exactly', () => {

@@ -1,11 +1,11 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import { consumeWarnings } from '../../lib/warnings';
-import { material } from '../../lib/matter/materials';
+import { consumeWarnings } from '../../lib/warnings.js';
+import { material } from '../../lib/matter/materials.js';
 import {
   curvatureSigmaEquallySpaced, curvatureSigmaLeastSquares, glucksternCurvatureSigma, momentumResolution,
   multipleScatteringCurvatureSigma,
-} from '../../lib/track/resolution';
-import { radiationLengthM } from '../../lib/track/highland';
+} from '../../lib/track/resolution.js';
+import { radiationLengthM } from '../../lib/track/highland.js';
 
 beforeEach(() => void consumeWarnings());
 const rel = (a: number, b: number) => Math.abs(a / b - 1);

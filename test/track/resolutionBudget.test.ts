@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import type { HitTable } from '../../lib/io/hitTable';
-import { measureTracks } from '../../lib/track/measureTracks';
-import { resolutionBudget } from '../../lib/track/resolutionBudget';
-import { curvatureSigmaLeastSquares, momentumResolution } from '../../lib/track/resolution';
-import { material } from '../../lib/matter/materials';
-import { PION_PLUS } from '../../lib/particles';
+import type { HitTable } from '../../lib/io/hitTable.js';
+import { measureTracks } from '../../lib/track/measureTracks.js';
+import { resolutionBudget } from '../../lib/track/resolutionBudget.js';
+import { curvatureSigmaLeastSquares, momentumResolution } from '../../lib/track/resolution.js';
+import { material } from '../../lib/matter/materials.js';
+import { PION_PLUS } from '../../lib/particles.js';
 
 /** Two exact arcs (R = 2 m, 20 hits over ≈ 1.2 m of arc) with 100 µm hit errors, plus a noise hit. */
 function hits(): HitTable {
@@ -51,7 +51,7 @@ describe('resolutionBudget (per-track error budget for sagitta fit --material)',
 
 describe('resolutionBudgetColumns', () => {
   it('names the columns sigma_p_meas, sigma_p_ms, sigma_p_total (issue 3)', async () => {
-    const { resolutionBudgetColumns } = await import('../../lib/track/resolutionBudget');
+    const { resolutionBudgetColumns } = await import('../../lib/track/resolutionBudget.js');
     const h = hits();
     const b = resolutionBudget(h, measureTracks(h, { fieldT: 1.5 }), { material: material('liquid-hydrogen') });
     expect(resolutionBudgetColumns(b).map((c) => c.name)).toEqual(['sigma_p_meas', 'sigma_p_ms', 'sigma_p_total']);

@@ -2,8 +2,8 @@ import { Command } from 'commander';
 import { readdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { msg } from '../../../lib/errors';
-import { runCommand } from './run';
+import { msg } from '../../../lib/errors.js';
+import { runCommand } from './run.js';
 
 /** The package's example notebooks folder (next to kernel/ and lib/). */
 const NOTEBOOKS = fileURLToPath(new URL('../../../notebooks/', import.meta.url));

@@ -1,18 +1,18 @@
 import { Command, Option } from 'commander';
 import { performance } from 'node:perf_hooks';
-import { readHits } from '../../../lib/io/readHits';
-import { READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv';
-import { formatCsvBytes, rowObjects, writeFileAtomic } from '../../../lib/io/columnTable';
-import { CIRCLE_METHODS, type CircleMethod } from '../../../lib/fit/fitCircles';
-import { measureTracks, type TrackTable } from '../../../lib/track/measureTracks';
-import { trackTableColumns } from '../../../lib/track/trackTableColumns';
-import { fieldTesla, lengthMetres, metresPerUnit } from '../../../lib/units';
-import { msg } from '../../../lib/errors';
-import { consumeWarnings } from '../../../lib/warnings';
-import type { ColumnTable } from '../../../lib/io/columnTable';
-import { material as lookupMaterial } from '../../../lib/matter/materials';
-import { particle as lookupParticle } from '../../../lib/particles';
-import { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns } from '../../../lib/track/resolutionBudget';
+import { readHits } from '../../../lib/io/readHits.js';
+import { READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv.js';
+import { formatCsvBytes, rowObjects, writeFileAtomic } from '../../../lib/io/columnTable.js';
+import { CIRCLE_METHODS, type CircleMethod } from '../../../lib/fit/fitCircles.js';
+import { measureTracks, type TrackTable } from '../../../lib/track/measureTracks.js';
+import { trackTableColumns } from '../../../lib/track/trackTableColumns.js';
+import { fieldTesla, lengthMetres, metresPerUnit } from '../../../lib/units.js';
+import { msg } from '../../../lib/errors.js';
+import { consumeWarnings } from '../../../lib/warnings.js';
+import type { ColumnTable } from '../../../lib/io/columnTable.js';
+import { material as lookupMaterial } from '../../../lib/matter/materials.js';
+import { particle as lookupParticle } from '../../../lib/particles.js';
+import { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns } from '../../../lib/track/resolutionBudget.js';
 
 export interface FitCommandOptions {
   field: string;

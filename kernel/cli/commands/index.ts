@@ -10,12 +10,12 @@ type Register = (program: Command) => void;
  * it here.
  */
 const COMMANDS: Readonly<Record<string, () => Promise<Register>>> = {
-  fit: async () => (await import('./fit')).registerFit,
-  range: async () => (await import('./range')).registerRange,
-  simulate: async () => (await import('./simulate')).registerSimulate,
-  run: async () => (await import('./run')).registerRun,
-  demo: async () => (await import('./demo')).registerDemo,
-  kernel: async () => (await import('./kernel')).registerKernel,
+  fit: async () => (await import('./fit.js')).registerFit,
+  range: async () => (await import('./range.js')).registerRange,
+  simulate: async () => (await import('./simulate.js')).registerSimulate,
+  run: async () => (await import('./run.js')).registerRun,
+  demo: async () => (await import('./demo.js')).registerDemo,
+  kernel: async () => (await import('./kernel.js')).registerKernel,
 };
 
 /** Registers the command named in argv (node, script, name, …), or all of them. */

@@ -1,12 +1,12 @@
 import type { Command } from 'commander';
-import { particle as lookupParticle, type Particle } from '../../../lib/particles';
-import { energyMeV, lengthMetres, momentumGeV } from '../../../lib/units';
-import { msg } from '../../../lib/errors';
-import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings';
-import { material as lookupMaterial, type Material } from '../../../lib/matter/materials';
-import { kinematicsFromKinetic, kineticFromMomentum } from '../../../lib/matter/kinematics';
-import { massStoppingPower } from '../../../lib/matter/stoppingPower';
-import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV, rangeTable } from '../../../lib/matter/range';
+import { particle as lookupParticle, type Particle } from '../../../lib/particles.js';
+import { energyMeV, lengthMetres, momentumGeV } from '../../../lib/units.js';
+import { msg } from '../../../lib/errors.js';
+import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings.js';
+import { material as lookupMaterial, type Material } from '../../../lib/matter/materials.js';
+import { kinematicsFromKinetic, kineticFromMomentum } from '../../../lib/matter/kinematics.js';
+import { massStoppingPower } from '../../../lib/matter/stoppingPower.js';
+import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV, rangeTable } from '../../../lib/matter/range.js';
 
 export interface RangeCommandOptions {
   particle: string;

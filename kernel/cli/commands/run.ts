@@ -73,25 +73,25 @@ export interface RunCommandResult {
 
 /** Runs the command (also used by `sagitta demo` and by tests). */
 export async function runCommand(notebook: string, options: RunCommandOptions): Promise<RunCommandResult> {
-  const { parseDuration, parseSetArguments, runNotebook } = await import('../../runner/index');
-  const { writeNotebook, writeFileAtomic } = await import('../../notebook/write');
+  const { parseDuration, parseSetArguments, runNotebook } = await import('../../runner/index.js');
+  const { writeNotebook, writeFileAtomic } = await import('../../notebook/write.js');
   const cellTimeoutMs = parseDuration(options.cellTimeout);
   const parameters = parseSetArguments(options.set ?? []);
   const executedPath = options.writeBack ? notebook : options.executed === false ? undefined : (options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`);
   if (!options.writeBack && executedPath !== undefined && resolve(executedPath) === resolve(notebook)) {
-    const { msg } = await import('../../../lib/errors');
+    const { msg } = await import('../../../lib/errors.js');
     throw msg.badArgument('--executed', executedPath, 'a path other than the source notebook (use --write-back to replace the source on purpose)');
   }
 
   // Refuse unwritable destinations before running anything (a long run should not end in ENOENT).
-  const { msg } = await import('../../../lib/errors');
+  const { msg } = await import('../../../lib/errors.js');
   for (const [flag, path] of [['--html', options.html], ['--pdf', options.pdf], ['--executed', executedPath]] as const) {
     if (path !== undefined && !existsSync(dirname(resolve(path)))) throw msg.badArgument(flag, path, 'a file in an existing folder');
   }
   // Start the notebook process first; the report modules load while it boots.
   const running = runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, parameters });
   const wantReport = options.html !== undefined || options.pdf !== undefined;
-  const report = wantReport ? import('../../report/index') : undefined;
+  const report = wantReport ? import('../../report/index.js') : undefined;
   report?.catch(() => undefined);
   const result = await running;
   const written: string[] = [];

@@ -1,12 +1,12 @@
 import { writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import type { Command } from 'commander';
-import { msg } from '../../../lib/errors';
-import { consumeWarnings } from '../../../lib/warnings';
-import { readScenario } from '../../../lib/simulate/scenario';
-import { SCENARIO_SCHEMA } from '../../../lib/simulate/scenarioSchema';
-import { simulateChamber } from '../../../lib/simulate/simulate';
-import { formatHitsCsv, formatRunRecord, formatTruthCsv } from '../../../lib/simulate/simulationCsv';
+import { msg } from '../../../lib/errors.js';
+import { consumeWarnings } from '../../../lib/warnings.js';
+import { readScenario } from '../../../lib/simulate/scenario.js';
+import { SCENARIO_SCHEMA } from '../../../lib/simulate/scenarioSchema.js';
+import { simulateChamber } from '../../../lib/simulate/simulate.js';
+import { formatHitsCsv, formatRunRecord, formatTruthCsv } from '../../../lib/simulate/simulationCsv.js';
 
 export interface SimulateCommandOptions {
   seed: string;

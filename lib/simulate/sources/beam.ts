@@ -1,7 +1,7 @@
-import type { Particle } from '../../particles';
-import type { SeededRandom } from '../rng';
-import type { Primary } from './primary';
-import { drawFromSpot, type BeamSpot } from './beamSpot';
+import type { Particle } from '../../particles.js';
+import type { SeededRandom } from '../rng.js';
+import type { Primary } from './primary.js';
+import { drawFromSpot, type BeamSpot } from './beamSpot.js';
 
 /**
  * A beam: one particle per event, species drawn by weight, Gaussian momentum spread, Gaussian

@@ -1,6 +1,6 @@
-import type { SeededRandom } from '../rng';
-import { rotateAbout, type PositionAndDirection } from '../transport';
-import { unit } from './primary';
+import type { SeededRandom } from '../rng.js';
+import { rotateAbout, type PositionAndDirection } from '../transport.js';
+import { unit } from './primary.js';
 
 /** Where a beam comes from and how it spreads: origin [m], mean direction, spot σ [m], divergence σ [rad]. */
 export interface BeamSpot {

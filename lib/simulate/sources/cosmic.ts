@@ -1,7 +1,7 @@
-import { MUON_MINUS, MUON_PLUS } from '../../particles';
-import type { Chamber } from '../chamber';
-import type { SeededRandom } from '../rng';
-import type { Primary } from './primary';
+import { MUON_MINUS, MUON_PLUS } from '../../particles.js';
+import type { Chamber } from '../chamber.js';
+import type { SeededRandom } from '../rng.js';
+import type { Primary } from './primary.js';
 
 /**
  * Cosmic-like muons entering through the top face of the chamber (+y is up).

@@ -1,8 +1,8 @@
-import type { Particle } from '../../particles';
-import type { Chamber } from '../chamber';
-import type { SeededRandom } from '../rng';
-import type { Primary } from './primary';
-import { drawFromSpot, type BeamSpot } from './beamSpot';
+import type { Particle } from '../../particles.js';
+import type { Chamber } from '../chamber.js';
+import type { SeededRandom } from '../rng.js';
+import type { Primary } from './primary.js';
+import { drawFromSpot, type BeamSpot } from './beamSpot.js';
 
 /**
  * Charged particles whose momentum is chosen so that they stop at a depth (path length) drawn
