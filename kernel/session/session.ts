@@ -26,7 +26,7 @@ import { Writable } from 'node:stream';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { format } from 'node:util';
-import { mimeBundleOf, setDisplaySink } from '../../lib/plot/display.js';
+import { mimeBundleOf, setDisplaySink } from '../../lib/display.js';
 import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError.js';
 import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot.js';
 import { codePointToUtf16, utf16ToCodePoint } from './positions.js';

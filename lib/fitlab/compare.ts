@@ -1,6 +1,6 @@
 import { GEV_PER_TESLA_METRE } from '../constants.js';
 import { msg } from '../errors.js';
-import { chi2Survival } from './chi2Survival.js';
+import { chi2Survival } from '../analysis/chi2Survival.js';
 import type { Fitter } from './fitter.js';
 import type { FitLabSample } from './sample.js';
 

@@ -6,6 +6,5 @@ export {
 export { fitLabSample, type FitLabSample, type FitLabSampleOptions } from './sample.js';
 export { fitLabSampleFromRun, type SampleFromRunOptions } from './sampleFromRun.js';
 export { compareFitters, type FitLabReport, type FitMerit, type BinnedMerit, type FitterTrackColumns, type CompareOptions } from './compare.js';
-export { chi2Survival, lnGamma } from './chi2Survival.js';
 export { pullFigure, pValueFigure, meritFigure } from './figures.js';
 export { fitLabTables } from './tables.js';

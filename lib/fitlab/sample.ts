@@ -2,7 +2,7 @@ import { GEV_PER_TESLA_METRE } from '../constants.js';
 import { msg } from '../errors.js';
 import { MUON_MINUS, MUON_PLUS, type Particle } from '../particles.js';
 import { chamber } from '../simulate/chamber.js';
-import { VACUUM, type Medium } from '../simulate/medium.js';
+import { VACUUM, type Medium } from '../matter/medium.js';
 import { seededRandom } from '../simulate/rng.js';
 import { transportTrack, TRANSPORT_DEFAULTS } from '../simulate/transport.js';
 

@@ -10,3 +10,7 @@ export * from './stoppingPower.js';
 export * from './range.js';
 export * from './mostProbableLoss.js';
 export * from './rangeTableFrame.js';
+export * from './highland.js';
+export * from './bohrStraggling.js';
+export * from './medium.js';
+export * from './chamberMedium.js';

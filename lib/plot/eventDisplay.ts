@@ -1,5 +1,5 @@
 import { msg } from '../errors.js';
-import { asMime, escapeHtml, type MimeBundle, type Presentable } from './display.js';
+import { asMime, escapeHtml, type MimeBundle, type Presentable } from '../display.js';
 import { PALETTE, chargeColour } from './palette.js';
 
 /** Hits in the bending plane, metres; `track[i]` is the index of the track hit i belongs to (−1: none). */

@@ -1,4 +1,4 @@
-import { asMime, escapeHtml, type MimeBundle, type Presentable } from './display.js';
+import { asMime, escapeHtml, type MimeBundle, type Presentable } from '../display.js';
 import { PALETTE } from './palette.js';
 
 /** MIME type under which notebook front ends draw a plotly figure from its JSON. */

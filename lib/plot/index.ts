@@ -1,4 +1,3 @@
-export * from './display.js';
 export * from './palette.js';
 export * from './figure.js';
 export * from './histogram.js';

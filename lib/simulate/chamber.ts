@@ -1,5 +1,5 @@
 import { msg } from '../errors.js';
-import type { Medium } from './medium.js';
+import type { Medium } from '../matter/medium.js';
 
 /**
  * Magnetic field of a chamber: uniform in any direction, or a map evaluated at a point.

@@ -1,7 +1,5 @@
 // lib/simulate: seeded chamber simulator with truth (re-exports only).
 export { seededRandom, type SeededRandom } from './rng.js';
-export { VACUUM, type Medium, type SpeciesLoss } from './medium.js';
-export { chamberMedium } from './chamberMedium.js';
 export { chamber, insideChamber, type Chamber, type ChamberField, type ChamberOptions } from './chamber.js';
 export { helixStep } from './helixStep.js';
 export {
@@ -11,7 +9,6 @@ export {
 export { twoBodyMomentumMeV, twoBodyDecay, invariantMassMeV, type TwoBodyProducts } from './twoBodyDecay.js';
 export { michelMaxEnergyMeV, sampleMichelFraction } from './michel.js';
 export { deltaRayRatePerM, sampleDeltaRayKineticMeV, deltaRayCosTheta } from './deltaRay.js';
-export { bohrVarianceMeV2 } from './bohrStraggling.js';
 export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays.js';
 export {
   simulateChamber,

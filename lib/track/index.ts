@@ -1,6 +1,5 @@
 export { momenta, momentumAt, transverseMomentumGeV, radiusOfCurvatureM, type MomentumColumns, type MomentumOptions, type TrackMomentum } from './momentum.js';
 export { measureTracks, type MeasureTracksOptions, type TrackTable } from './measureTracks.js';
 export { trackTableColumns } from './trackTableColumns.js';
-export * from './highland.js';
 export * from './resolution.js';
 export * from './resolutionBudget.js';

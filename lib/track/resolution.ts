@@ -2,7 +2,7 @@ import { GEV_PER_TESLA_METRE } from '../constants.js';
 import { msg } from '../errors.js';
 import { warn } from '../warnings.js';
 import type { Material } from '../matter/materials.js';
-import { radiationLengthM } from './highland.js';
+import { radiationLengthM } from '../matter/highland.js';
 
 /**
  * Momentum-resolution terms of a curvature measurement in a uniform field.

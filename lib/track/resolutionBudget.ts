@@ -6,7 +6,7 @@ import { indexTracks } from '../io/indexTracks.js';
 import { PION_PLUS, type Particle } from '../particles.js';
 import type { Material } from '../matter/materials.js';
 import type { TrackTable } from './measureTracks.js';
-import { radiationLengthM } from './highland.js';
+import { radiationLengthM } from '../matter/highland.js';
 import { curvatureSigmaLeastSquares, multipleScatteringCurvatureSigma } from './resolution.js';
 
 export interface ResolutionBudgetOptions {

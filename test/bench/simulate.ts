@@ -7,7 +7,8 @@
 import { cpus, loadavg } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { PION_MINUS, PROTON } from '../../lib/particles.js';
-import { chamber, chamberMedium, seededRandom, simulateChamber, transportTrack, TRANSPORT_DEFAULTS, VACUUM, type SimulationConfig } from '../../lib/simulate/index.js';
+import { chamber, seededRandom, simulateChamber, transportTrack, TRANSPORT_DEFAULTS, type SimulationConfig } from '../../lib/simulate/index.js';
+import { chamberMedium, VACUUM } from '../../lib/matter/index.js';
 import { BUILTIN_FITTERS, compareFitters, fitLabSample } from '../../lib/fitlab/index.js';
 
 export interface BenchResult { readonly name: string; readonly value: number; readonly unit: string; readonly target: string; readonly pass: boolean }

@@ -3,7 +3,7 @@ import { fitCircleGeometric } from '../../lib/fit/index.js';
 import {
   BUILTIN_FITTERS, compareFitters, fitLabSample, GEOMETRIC_FITTER, HELIX_FITTER, meritFigure, pullFigure, pValueFigure, type Fitter,
 } from '../../lib/fitlab/index.js';
-import { chamberMedium } from '../../lib/simulate/index.js';
+import { chamberMedium } from '../../lib/matter/index.js';
 import { glucksternCurvatureSigma } from '../../lib/track/resolution.js';
 
 describe('the fit lab on simulated truth', () => {

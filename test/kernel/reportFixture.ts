@@ -1,4 +1,5 @@
-import { asMime, eventDisplay, histogramFigure } from '../../lib/plot/index.js';
+import { asMime } from '../../lib/display.js';
+import { eventDisplay, histogramFigure } from '../../lib/plot/index.js';
 import type { Notebook } from '../../kernel/notebook/types.js';
 import type { ReportInput } from '../../kernel/report/types.js';
 

@@ -1,6 +1,6 @@
 /** The display channel (lib/plot/display.ts) the session installs its sink into. */
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { asMime, escapeHtml, mimeBundleOf, present, refresh, setDisplaySink, type MimeBundle } from '../../lib/plot/display.js';
+import { asMime, escapeHtml, mimeBundleOf, present, refresh, setDisplaySink, type MimeBundle } from '../../lib/display.js';
 
 afterEach(() => {
   setDisplaySink(undefined);

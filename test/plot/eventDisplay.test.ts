@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { asMime, eventDisplay } from '../../lib/plot/index.js';
+import { asMime } from '../../lib/display.js';
+import { eventDisplay } from '../../lib/plot/index.js';
 import { join } from 'node:path';
 import { expectGolden } from '../expectGolden.js';
 

@@ -2,9 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { BETHE_K_MEV_CM2_PER_MOL } from '../../lib/constants.js';
 import { maxEnergyTransferMeV } from '../../lib/matter/index.js';
 import { MUON_MINUS } from '../../lib/particles.js';
-import {
-  bohrVarianceMeV2, chamber, chamberMedium, deltaRayCosTheta, deltaRayRatePerM, seededRandom, transportTrack, TRANSPORT_DEFAULTS,
-} from '../../lib/simulate/index.js';
+import { chamber, deltaRayCosTheta, deltaRayRatePerM, seededRandom, transportTrack, TRANSPORT_DEFAULTS } from '../../lib/simulate/index.js';
+import { bohrVarianceMeV2, chamberMedium } from '../../lib/matter/index.js';
 
 describe('knock-on electrons and Bohr straggling', () => {
   it('deltaRayRatePerM uses K = 0.307075 MeV mol⁻¹ cm² (PDG RPP Table "Summary of variables"): ≈ 1.07 per metre above 1 MeV in liquid hydrogen at β = 1', () => {

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { GEV_PER_TESLA_METRE } from '../../lib/constants.js';
 import { PION_MINUS, PROTON } from '../../lib/particles.js';
-import { chamber, seededRandom, simulateChamber, transportTrack, TRANSPORT_DEFAULTS, VACUUM, type Sampling } from '../../lib/simulate/index.js';
+import { chamber, seededRandom, simulateChamber, transportTrack, TRANSPORT_DEFAULTS, type Sampling } from '../../lib/simulate/index.js';
+import { VACUUM } from '../../lib/matter/index.js';
 
 /**
  * Analytic helix in a field B along +z (Lorentz force with exact c; common practice): with

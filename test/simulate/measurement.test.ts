@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { PION_MINUS } from '../../lib/particles.js';
-import { chamber, simulateChamber, VACUUM, type MeasurementModel, type SimulationConfig } from '../../lib/simulate/index.js';
+import { chamber, simulateChamber, type MeasurementModel, type SimulationConfig } from '../../lib/simulate/index.js';
+import { VACUUM } from '../../lib/matter/index.js';
 
 const box = chamber({ sizeM: [1.2, 0.8, 0.5], medium: VACUUM, fieldT: [0, 0, 1.5] });
 const transport = { energyLoss: 'off' as const, scattering: false, maxStepM: 0.01, maxPathM: 5, deltaRayMinMeV: 0 };

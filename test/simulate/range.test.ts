@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { csdaRange, material } from '../../lib/matter/index.js';
 import { MUON_PLUS, PROTON, type Particle } from '../../lib/particles.js';
-import { chamber, chamberMedium, seededRandom, transportTrack, TRANSPORT_DEFAULTS, type EnergyLossMode } from '../../lib/simulate/index.js';
+import { chamber, seededRandom, transportTrack, TRANSPORT_DEFAULTS, type EnergyLossMode } from '../../lib/simulate/index.js';
+import { chamberMedium } from '../../lib/matter/index.js';
 
 /**
  * Stopping tracks: the path length the simulator travels before the particle stops must equal the

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { material } from '../../lib/matter/index.js';
 import { MUON_MINUS, PROTON } from '../../lib/particles.js';
-import { chamber, chamberMedium, seededRandom, transportTrack, TRANSPORT_DEFAULTS } from '../../lib/simulate/index.js';
-import { highlandTheta0, radiationLengthM } from '../../lib/track/highland.js';
+import { chamber, seededRandom, transportTrack, TRANSPORT_DEFAULTS } from '../../lib/simulate/index.js';
+import { chamberMedium } from '../../lib/matter/index.js';
+import { highlandTheta0, radiationLengthM } from '../../lib/matter/highland.js';
 
 /**
  * Statistical checks with fixed seeds. The θ₀ fed to the transport is Highland–Lynch–Dahl

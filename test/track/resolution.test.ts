@@ -5,7 +5,7 @@ import {
   curvatureSigmaEquallySpaced, curvatureSigmaLeastSquares, glucksternCurvatureSigma, momentumResolution,
   multipleScatteringCurvatureSigma,
 } from '../../lib/track/resolution.js';
-import { radiationLengthM } from '../../lib/track/highland.js';
+import { radiationLengthM } from '../../lib/matter/highland.js';
 
 beforeEach(() => void consumeWarnings());
 const rel = (a: number, b: number) => Math.abs(a / b - 1);

@@ -1,9 +1,10 @@
+import { lnGamma } from './lnGamma.js';
+
 /**
  * Upper tail of the χ² distribution, P(χ²_ndf ≥ x) = Q(ndf/2, x/2), with Q the regularised upper
  * incomplete gamma function: series for x < a + 1, Lentz continued fraction otherwise
  * (Abramowitz & Stegun 6.5.29 and 6.5.31; W. H. Press et al., Numerical Recipes, 3rd ed., §6.2).
- * ln Γ by the Lanczos approximation (g = 7, 9 terms; C. Lanczos, SIAM J. Numer. Anal. B1 (1964) 86)
- * with the reflection formula below ½. Relative accuracy ~1e-12 for ndf ≤ 1000.
+ * ln Γ from `lnGamma`. Relative accuracy ~1e-12 for ndf ≤ 1000.
  * NaN for ndf ≤ 0 or a non-finite χ²; 1 for χ² ≤ 0.
  * @example chi2Survival(3.841, 1) // ≈ 0.05 (χ² tables: 5 % critical value for 1 degree of freedom)
  */
@@ -12,21 +13,6 @@ export function chi2Survival(chi2: number, ndf: number): number {
   if (chi2 <= 0) return 1;
   const a = ndf / 2, x = chi2 / 2;
   return x < a + 1 ? 1 - lowerSeries(a, x) : upperFraction(a, x);
-}
-
-const LANCZOS = [
-  0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059,
-  12.507343278686905, -0.13857109526572012, 9.9843695780195716e-6, 1.5056327351493116e-7,
-];
-
-/** ln Γ(z) for z > 0 (Lanczos, g = 7). */
-export function lnGamma(z: number): number {
-  if (z < 0.5) return Math.log(Math.PI / Math.abs(Math.sin(Math.PI * z))) - lnGamma(1 - z);
-  const zz = z - 1;
-  let s = LANCZOS[0];
-  for (let i = 1; i < 9; i++) s += LANCZOS[i] / (zz + i);
-  const t = zz + 7.5;
-  return 0.5 * Math.log(2 * Math.PI) + (zz + 0.5) * Math.log(t) - t + Math.log(s);
 }
 
 /** Regularised lower gamma P(a, x) by its series. */

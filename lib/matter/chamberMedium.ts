@@ -1,8 +1,8 @@
 import { msg } from '../errors.js';
-import { material as findMaterial, type Material } from '../matter/materials.js';
-import { energyAtRange, rangeAt, rangeCutoffMeV, rangeMaxMeV, rangeTable, type RangeTable } from '../matter/range.js';
+import { material as findMaterial, type Material } from './materials.js';
+import { energyAtRange, rangeAt, rangeCutoffMeV, rangeMaxMeV, rangeTable, type RangeTable } from './range.js';
 import type { Particle } from '../particles.js';
-import { highlandTheta0, HIGHLAND_MAX_X_OVER_X0, HIGHLAND_MIN_X_OVER_X0, radiationLengthM } from '../track/highland.js';
+import { highlandTheta0, HIGHLAND_MAX_X_OVER_X0, HIGHLAND_MIN_X_OVER_X0, radiationLengthM } from './highland.js';
 import { bohrVarianceMeV2 } from './bohrStraggling.js';
 import type { Medium, SpeciesLoss } from './medium.js';
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { chi2Survival, lnGamma } from '../../lib/fitlab/index.js';
+import { chi2Survival, lnGamma } from '../../lib/analysis/index.js';
 
 /**
  * Critical values of the χ² distribution: NIST/SEMATECH e-Handbook of Statistical Methods,

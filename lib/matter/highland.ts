@@ -1,7 +1,7 @@
 import { msg } from '../errors.js';
 import type { Particle } from '../particles.js';
 import { warn } from '../warnings.js';
-import type { Material } from '../matter/materials.js';
+import type { Material } from './materials.js';
 
 /** Range of x/X₀ over which the Highland form is quoted to 11 % (PDG RPP). */
 export const HIGHLAND_MIN_X_OVER_X0 = 1e-3;

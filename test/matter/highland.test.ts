@@ -2,7 +2,7 @@ import { beforeEach, describe, expect, it } from 'vitest';
 import { consumeWarnings } from '../../lib/warnings.js';
 import { MUON_MINUS } from '../../lib/particles.js';
 import { material } from '../../lib/matter/materials.js';
-import { highlandTheta0, highlandTheta0InMaterial, radiationLengthM } from '../../lib/track/highland.js';
+import { highlandTheta0, highlandTheta0InMaterial, radiationLengthM } from '../../lib/matter/highland.js';
 
 beforeEach(() => void consumeWarnings());
 
