@@ -27,6 +27,7 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import { format } from 'node:util';
 import { mimeBundleOf, setDisplaySink } from '../../lib/display.js';
+import { consumeWarnings, formatWarning } from '../../lib/warnings.js';
 import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError.js';
 import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot.js';
 import { codePointToUtf16, utf16ToCodePoint } from './positions.js';
@@ -106,6 +107,9 @@ export function createSession(options: SessionOptions): Session {
     } finally {
       running = false;
     }
+    // Warnings belong to the cell that raised them: drained and shown under it, never carried on.
+    const warnings = consumeWarnings();
+    if (warnings.length > 0) hooks.stream('stderr', warnings.map((w) => formatWarning(w) + '\n').join(''));
     if (ok) {
       if (capture.value === undefined) return { status: 'ok' };
       try {

@@ -45,6 +45,16 @@ afterAll(() => {
 });
 
 describe('createSession({ workDir }) outside the repository', { timeout: 120_000 }, () => {
+  it('shows a cell\'s warnings under that cell and does not carry them into the next', async () => {
+    const first = recorder();
+    await session.execute('import { highlandTheta0 } from "sagitta";\nhighlandTheta0({ momentumGeV: 1, beta: 1, charge: 1, thicknessOverX0: 1e-6 })', first.hooks);
+    const shown = first.streams.filter((s) => s.name === 'stderr').map((s) => s.text).join('');
+    expect(shown).toMatch(/^warning \[OUTSIDE_VALIDITY\]: highlandTheta0: x\/X₀ = 0.000001 is outside/);
+    const second = recorder();
+    await session.execute('1 + 1', second.hooks);
+    expect(second.streams.filter((s) => s.name === 'stderr')).toEqual([]);
+  });
+
   it('imports "sagitta" and a local .ts module next to the notebook; returns the last value as text/plain', async () => {
     const r = recorder();
     const out = await session.execute('import { PROTON } from "sagitta";\nimport { BEAM_MOMENTUM_GEV } from "./beam";\n[PROTON.massMeV, BEAM_MOMENTUM_GEV]', r.hooks);
