@@ -13,7 +13,7 @@ import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import * as zmq from 'zeromq';
-import type { CellHooks, MimeBundle, Session } from '../session/types.js';
+import type { CellHooks, Session } from '../session/types.js';
 import { endpoint, type ConnectionInfo } from './connection.js';
 import type { FromControlThread, ToControlThread } from './controlThread.js';
 import { kernelInfoContent } from './kernelInfo.js';
@@ -364,7 +364,7 @@ export class KernelServer {
         flush();
         const transient = options.displayId === undefined ? {} : { display_id: options.displayId };
         const type = options.update && options.displayId !== undefined ? 'update_display_data' : 'display_data';
-        void this.publish(type, { data: jsonSafe(bundle), metadata: {}, transient }, parent);
+        void this.publish(type, { data: bundle, metadata: {}, transient }, parent);
       },
     };
 
@@ -373,7 +373,7 @@ export class KernelServer {
     flush();
     if (outcome.status === 'ok') {
       if (outcome.result && !silent) {
-        await this.publish('execute_result', { execution_count: count, data: jsonSafe(outcome.result), metadata: {} }, parent);
+        await this.publish('execute_result', { execution_count: count, data: outcome.result, metadata: {} }, parent);
       }
       const userExpressions = await this.evaluateUserExpressions(session, c.user_expressions);
       await this.reply('shell', msg, 'execute_reply', { status: 'ok', execution_count: count, user_expressions: userExpressions, payload: [] }, { started, status: 'ok' });
@@ -407,7 +407,7 @@ export class KernelServer {
       const r = await session.execute(String(expression), quiet);
       out[name] =
         r.status === 'ok'
-          ? { status: 'ok', data: jsonSafe(r.result ?? { 'text/plain': 'undefined' }), metadata: {} }
+          ? { status: 'ok', data: r.result ?? { 'text/plain': 'undefined' }, metadata: {} }
           : { status: 'error', ename: r.error?.ename ?? 'Error', evalue: r.error?.evalue ?? '', traceback: r.error?.traceback ?? [] };
     }
     return out;
@@ -473,19 +473,6 @@ export class KernelServer {
   }
 }
 
-/** Bundles go out as JSON; a value JSON cannot carry (a cycle, a BigInt) becomes its text form. */
-function jsonSafe(bundle: MimeBundle): MimeBundle {
-  const out: MimeBundle = {};
-  for (const [mime, value] of Object.entries(bundle)) {
-    try {
-      JSON.stringify(value);
-      out[mime] = value;
-    } catch {
-      out[mime] = String(value);
-    }
-  }
-  return out;
-}
 
 /** The kernel id a front end put in the connection file's name ("kernel-<id>.json"), if any. */
 export function kernelIdFromFile(file: string): string | undefined {

@@ -50,10 +50,9 @@ async function handle(m: ToChild): Promise<void> {
     const c0 = performance.now();
     const outcome = await session.execute(m.code, {
       stream: (name, text) => send({ kind: 'stream', index, name, text }),
-      display: (bundle, options) => send({ kind: 'display', index, bundle: toJson(bundle), displayId: options.displayId, update: options.update }),
+      display: (bundle, options) => send({ kind: 'display', index, bundle, displayId: options.displayId, update: options.update }),
     });
     const execMs = performance.now() - c0;
-    if (outcome.result) outcome.result = toJson(outcome.result);
     send({ kind: 'done', index, outcome, provenance: provenanceSnapshot(), execMs });
   } else {
     session?.close();
@@ -61,7 +60,3 @@ async function handle(m: ToChild): Promise<void> {
   }
 }
 
-/** Bundles cross the IPC channel and land in a JSON file: keep only what JSON can hold. */
-function toJson<T>(value: T): T {
-  return JSON.parse(JSON.stringify(value, (_k, v: unknown) => (typeof v === 'bigint' ? v.toString() : v))) as T;
-}

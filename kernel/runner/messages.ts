@@ -1,5 +1,6 @@
 import type { ProvenanceSnapshot } from '../../lib/provenance.js';
-import type { CellOutcome, MimeBundle } from '../session/types.js';
+import type { MimeBundle } from '../../lib/display.js';
+import type { CellOutcome } from '../session/types.js';
 
 /** Messages from the runner to its child process (over Node's IPC channel, JSON). */
 export type ToChild =

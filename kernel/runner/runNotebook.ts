@@ -3,7 +3,7 @@ import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { msg } from '../../lib/errors.js';
 import type { ProvenanceSnapshot } from '../../lib/provenance.js';
-import { sagittaVersion } from '../cli/version.js';
+import { sagittaVersion } from '../version.js';
 import { readNotebook } from '../notebook/read.js';
 import { joinSource } from '../notebook/source.js';
 import type { CodeCell, DisplayDataOutput, Notebook, Output, SagittaCellMeta } from '../notebook/types.js';

@@ -32,7 +32,9 @@ import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellE
 import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot.js';
 import { codePointToUtf16, utf16ToCodePoint } from './positions.js';
 import { expandShorthandProperties } from './expandShorthand.js';
-import type { CellHooks, CellOutcome, Completeness, CompletionReply, MimeBundle, Session, SessionOptions } from './types.js';
+import { jsonSafeBundle } from './jsonSafeBundle.js';
+import type { MimeBundle } from '../../lib/display.js';
+import type { CellHooks, CellOutcome, Completeness, CompletionReply, Session, SessionOptions } from './types.js';
 
 type ConverterModule = typeof import('tslab/dist/converter.js');
 type ExecutorModule = typeof import('tslab/dist/executor.js');
@@ -113,7 +115,7 @@ export function createSession(options: SessionOptions): Session {
     if (ok) {
       if (capture.value === undefined) return { status: 'ok' };
       try {
-        return { status: 'ok', result: mimeBundleOf(capture.value.value) };
+        return { status: 'ok', result: jsonSafeBundle(mimeBundleOf(capture.value.value)) };
       } catch (err) {
         return { status: 'error', error: errorFromThrown(err) };
       }
@@ -225,7 +227,7 @@ function redirectOutput(current: () => CellHooks | undefined): () => void {
       },
     });
   globalThis.console = new Console({ stdout: sink('stdout'), stderr: sink('stderr'), colorMode: false });
-  const savedSink = setDisplaySink((bundle, options) => current()?.display(bundle, options));
+  const savedSink = setDisplaySink((bundle, options) => current()?.display(jsonSafeBundle(bundle), options));
   return () => {
     out.write = savedOut;
     err.write = savedErr;

@@ -3,9 +3,7 @@
  * and the in-process execution session (kernel/session/session.ts). Plain data in, plain data out:
  * nothing here knows about sockets or child processes.
  */
-
-/** One output in several representations, keyed by MIME type (the notebook format's "data"). */
-export type MimeBundle = Record<string, unknown>;
+import type { MimeBundle } from '../../lib/display.js';
 
 /** Callbacks a running cell uses to emit output while it runs. */
 export interface CellHooks {

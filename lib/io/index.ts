@@ -5,4 +5,5 @@ export { parseHitsJsonl } from './parseHitsJsonl.js';
 export { readHits, HIT_FILE_FORMATS } from './readHits.js';
 export { indexTracks, gatherRows } from './indexTracks.js';
 export { hitsToDataFrame, loadDanfo } from './hitsToDataFrame.js';
-export { formatCsv, formatCsvBytes, rowObjects, columnTableToDataFrame, writeFileAtomic, type Column, type ColumnTable } from './columnTable.js';
+export { formatCsv, formatCsvBytes, rowObjects, columnTableToDataFrame, type Column, type ColumnTable } from './columnTable.js';
+export { writeFileAtomic } from './writeFileAtomic.js';

@@ -9,7 +9,8 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createSession } from '../../kernel/session/session.js';
-import type { CellHooks, MimeBundle, Session } from '../../kernel/session/types.js';
+import type { MimeBundle } from '../../lib/display.js';
+import type { CellHooks, Session } from '../../kernel/session/types.js';
 
 const startDir = process.cwd();
 const notebookDir = mkdtempSync(path.join(tmpdir(), 'sagitta-session-'));

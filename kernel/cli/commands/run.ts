@@ -74,7 +74,8 @@ export interface RunCommandResult {
 /** Runs the command (also used by `sagitta demo` and by tests). */
 export async function runCommand(notebook: string, options: RunCommandOptions): Promise<RunCommandResult> {
   const { parseDuration, parseSetArguments, runNotebook } = await import('../../runner/index.js');
-  const { writeNotebook, writeFileAtomic } = await import('../../notebook/write.js');
+  const { writeNotebook } = await import('../../notebook/write.js');
+  const { writeFileAtomic } = await import('../../../lib/io/writeFileAtomic.js');
   const cellTimeoutMs = parseDuration(options.cellTimeout);
   const parameters = parseSetArguments(options.set ?? []);
   const executedPath = options.writeBack ? notebook : options.executed === false ? undefined : (options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`);
