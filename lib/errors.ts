@@ -26,7 +26,11 @@ export type SagittaErrorCode =
   | 'BAD_SCENARIO'
   | 'BAD_NOTEBOOK'
   | 'OUTSIDE_VALIDITY'
-  | 'CANNOT_WRITE';
+  | 'CANNOT_WRITE'
+  | 'BAD_CONNECTION_FILE'
+  | 'KERNEL_STATE'
+  | 'INPUT_UNAVAILABLE'
+  | 'BAD_KNOB';
 
 /** Where in an input a problem sits; all fields optional so callers fill what they know. */
 export interface SourceLocation {
@@ -112,10 +116,24 @@ export const msg = {
   badNotebook: (file: string, detail: string) =>
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),
 
-  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
   cannotWrite: (path: string, reason: string, fix: string) =>
     new SagittaError('CANNOT_WRITE', `${path}: cannot write here (${reason}); ${fix}`, { file: path }),
 
+  badConnectionFile: (file: string, detail: string) =>
+    new SagittaError('BAD_CONNECTION_FILE', `${file}: ${detail}; the front end writes this file when it starts the kernel — start the kernel from the front end`, { file }),
+
+  /** A kernel or runner asked to do something its state does not allow (a closed session, a failed start). */
+  kernelState: (action: string, detail: string) =>
+    new SagittaError('KERNEL_STATE', `cannot ${action}: ${detail}`),
+
+  inputUnavailable: (where: string, fix: string) =>
+    new SagittaError('INPUT_UNAVAILABLE', `a cell asked for input, but ${where}; ${fix}`),
+
+  /** A notebook knob (lib/knob.ts) declared or given wrongly. */
+  badKnob: (name: string, detail: string) =>
+    new SagittaError('BAD_KNOB', `knob ${JSON.stringify(name)}: ${detail}`),
+
+  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
   outsideValidity: (what: string, value: string, valid: string) =>
     new SagittaError('OUTSIDE_VALIDITY', `${what} ${value} is outside the validity range ${valid}; choose a value inside it`),
 } as const;

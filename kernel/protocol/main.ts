@@ -17,7 +17,7 @@ export async function runKernel(connectionFile: string): Promise<number> {
   const server = new KernelServer({
     connection,
     kernelId: kernelIdFromFile(connectionFile),
-    createSession: async () => (await import('../session/session.js')).createSession({ workDir }),
+    createSession: async (phase) => (await import('../session/session.js')).createSession({ workDir, phase }),
   });
   await server.start();
   const parent = process.ppid;

@@ -1,5 +1,6 @@
 import { msg } from '../errors.js';
 import type { Particle } from '../particles.js';
+import { recordCaution } from '../provenance.js';
 import { warn } from '../warnings.js';
 import { BETHE_MAX_BETA_GAMMA, BETHE_MIN_BETA_GAMMA } from './bethe.js';
 import { ELECTRON_MAX_MEV, ELECTRON_MIN_MEV } from './electronLoss.js';
@@ -187,6 +188,8 @@ const RANGE_TABLE_DEFAULTS: RangeTableOptions = Object.freeze({ fromMeV: 1, toMe
  * Interpolate with `rangeAt` / `energyAtRange` (cubic Hermite using dR/dT = 1/S).
  */
 export function rangeTable(particle: Particle, material: Material, options: Partial<RangeTableOptions> = {}): RangeTable {
+  // A range table is what reaches dose planning: reports showing one carry the clinical caution.
+  recordCaution('stopping-power');
   const o = { ...RANGE_TABLE_DEFAULTS, ...options };
   if (!Number.isInteger(o.points) || o.points < 2) throw msg.badArgument('points', o.points, 'an integer ≥ 2');
   if (!(o.fromMeV > 0 && o.toMeV > o.fromMeV)) throw msg.badArgument('fromMeV/toMeV', [o.fromMeV, o.toMeV], '0 < fromMeV < toMeV');

@@ -51,7 +51,7 @@ writeFileSync(tenFile, notebook(ten));
 
 // 1. The cell's own work: the same cells in an in-process session.
 const session = createSession({ workDir: dir });
-const hooks = { stream() {}, display() {} };
+const hooks = { stream() {}, display() {}, clear() {}, ask: () => Promise.resolve('') };
 await session.execute('', hooks);
 const own: number[] = [];
 for (const code of small) {
