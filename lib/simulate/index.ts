@@ -6,7 +6,7 @@ export {
   transportTrack, rotateAbout, TRANSPORT_DEFAULTS,
   type Sampling, type EnergyLossMode, type TransportOptions, type TrackStart, type TrackEnd, type EndReason, type HitSink, type DeltaSink,
 } from './transport.js';
-export { twoBodyMomentumMeV, twoBodyDecay, invariantMassMeV, type TwoBodyProducts } from './twoBodyDecay.js';
+export { twoBodyDecay, type TwoBodyProducts } from './twoBodyDecay.js';
 export { michelMaxEnergyMeV, sampleMichelFraction } from './michel.js';
 export { deltaRayRatePerM, sampleDeltaRayKineticMeV, deltaRayCosTheta } from './deltaRay.js';
 export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays.js';

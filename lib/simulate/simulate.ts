@@ -13,7 +13,8 @@ import type { Primary } from './sources/primary.js';
 import { stoppingEvent, type StoppingSource } from './sources/stopping.js';
 import { transportTrack, TRANSPORT_DEFAULTS, type EnergyLossMode, type Sampling, type TransportOptions } from './transport.js';
 import { rotateAbout } from './transport.js';
-import { twoBodyDecay, twoBodyMomentumMeV } from './twoBodyDecay.js';
+import { twoBodyDecay } from './twoBodyDecay.js';
+import { twoBodyMomentumMeV } from '../vertex/twoBodyMomentum.js';
 
 export type { BeamSource, CosmicSource, StoppingSource };
 export type Source = BeamSource | CosmicSource | StoppingSource;
