@@ -96,7 +96,7 @@ export function circleCrossings(a: HelixParameters, b: HelixParameters, out: Flo
  */
 export function refineClosestApproach(
   a: HelixParameters, b: HelixParameters, s1: number, s2: number,
-  out: ClosestApproach, scratch: ClosestApproachScratch, maxIterations = CLOSEST_APPROACH_DEFAULTS.maxIterations,
+  out: ClosestApproach, scratch: ClosestApproachScratch, maxIterations: number = CLOSEST_APPROACH_DEFAULTS.maxIterations,
 ): ClosestApproach {
   const { p1, p2 } = scratch;
   const maxStep1 = Math.min(1, 0.25 * Math.PI / Math.max(Math.abs(a.kappa), 1e-9));

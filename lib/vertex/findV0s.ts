@@ -5,8 +5,8 @@ import { ANTIPROTON, ELECTRON, KAON_SHORT, LAMBDA, PION_MINUS, PION_PLUS, POSITR
 import { armenteros } from './armenteros.js';
 import { closestApproach, newClosestApproachScratch, type ClosestApproach } from './closestApproach.js';
 import { newHelixParameters } from './helixParameters.js';
-import { invariantMassWithError } from './invariantMassError.js';
 import { newTrackState, trackStateAt, type TrackState } from './trackState.js';
+import { newV0MassScratch, v0Masses } from './v0Masses.js';
 import { fitTwoTrackVertex, newTwoTrackVertex, newVertexScratch } from './twoTrackVertex.js';
 import { V0CandidateBuilder, type V0Candidates } from './v0Candidates.js';
 import { loadHelix, type VertexTracks } from './vertexTracks.js';
@@ -89,6 +89,8 @@ export function findV0s(tracks: VertexTracks, options: V0FinderOptions = {}): V0
   const ca: ClosestApproach = { s1: NaN, s2: NaN, distanceM: NaN, status: 'no-start' };
   const vertex = newTwoTrackVertex(), vScratch = newVertexScratch();
   const states: TrackState[] = [newTrackState(), newTrackState()];
+  const massScratch = newV0MassScratch(HYPOTHESES.length, newClosestApproachScratch());
+  const massRow = new Float64Array(HYPOTHESES.length), sigmaRow = new Float64Array(HYPOTHESES.length);
   const out = new V0CandidateBuilder();
   const rejected = { circles: 0, closestApproach: 0, flight: 0, pointing: 0, chi2: 0 };
   let pairsTried = 0;
@@ -141,30 +143,24 @@ export function findV0s(tracks: VertexTracks, options: V0FinderOptions = {}): V0
         c.flightM[row] = L;
         const ux = fx / L, uy = fy / L, uz = fz / L, v = vertex.cov;
         c.sigmaFlightM[row] = ok ? Math.sqrt(ux * ux * v[0] + uy * uy * v[3] + uz * uz * v[5] + 2 * (ux * uy * v[1] + ux * uz * v[2] + uy * uz * v[4])) : NaN;
-        const masses: [Float64Array, Float64Array][] = [[c.massPiPiMeV, c.sigmaMassPiPiMeV], [c.massPPiMeV, c.sigmaMassPPiMeV], [c.massPiPMeV, c.sigmaMassPiPMeV], [c.massEEMeV, c.sigmaMassEEMeV]];
-        HYPOTHESES.forEach(([sp, sn], h) => {
-          const a1 = trackStateAt(hPos, fieldT, sPos, sp, options.medium, states[0]);
-          const a2 = trackStateAt(hNeg, fieldT, sNeg, sn, options.medium, states[1]);
-          if (a1.status !== 'ok' || a2.status !== 'ok') status = 'ranged-out';
-          const m = invariantMassWithError([
-            { pMeV: a1.pMeV, covMeV2: a1.covMeV2, massMeV: sp.massMeV },
-            { pMeV: a2.pMeV, covMeV2: a2.covMeV2, massMeV: sn.massMeV },
-          ]);
-          masses[h][0][row] = m.massMeV;
-          masses[h][1][row] = m.sigmaMeV;
-          if (h === 0) {
-            const pp = a1.pMeV, pn = a2.pMeV;
-            const ap = armenteros(pp, pn);
-            c.armenterosAlpha[row] = ap.alpha;
-            c.armenterosQtMeV[row] = ap.qtMeV;
-            const sx = pp[0] + pn[0], sy = pp[1] + pn[1], sz = pp[2] + pn[2];
-            const p = Math.hypot(sx, sy, sz);
-            c.pMeV[row] = p;
-            c.pointingRad[row] = Math.acos(Math.min(1, cosine(fx, fy, fz, sx, sy, sz)));
-            c.properTimeK0sPs[row] = (L * KAON_SHORT.massMeV) / p / C_M_PER_PS;
-            c.properTimeLambdaPs[row] = (L * LAMBDA.massMeV) / p / C_M_PER_PS;
-          }
-        });
+        const ctx = { fieldT, medium: options.medium, momentumArcPosM: 0.5 * tracks.lastArcM[kp], momentumArcNegM: 0.5 * tracks.lastArcM[kn], hypotheses: HYPOTHESES };
+        if (v0Masses(hPos, hNeg, sPos, sNeg, ctx, massRow, sigmaRow, massScratch) !== 'ok') status = 'ranged-out';
+        c.massPiPiMeV[row] = massRow[0]; c.sigmaMassPiPiMeV[row] = sigmaRow[0];
+        c.massPPiMeV[row] = massRow[1]; c.sigmaMassPPiMeV[row] = sigmaRow[1];
+        c.massPiPMeV[row] = massRow[2]; c.sigmaMassPiPMeV[row] = sigmaRow[2];
+        c.massEEMeV[row] = massRow[3]; c.sigmaMassEEMeV[row] = sigmaRow[3];
+        // Armenteros variables, V⁰ momentum and proper times from the ππ momenta at the vertex.
+        const pp = trackStateAt(hPos, sPos, { fieldT, species: PION_PLUS, medium: options.medium, momentumArcM: ctx.momentumArcPosM }, states[0]).pMeV;
+        const pn = trackStateAt(hNeg, sNeg, { fieldT, species: PION_MINUS, medium: options.medium, momentumArcM: ctx.momentumArcNegM }, states[1]).pMeV;
+        const ap = armenteros(pp, pn);
+        c.armenterosAlpha[row] = ap.alpha;
+        c.armenterosQtMeV[row] = ap.qtMeV;
+        const sx = pp[0] + pn[0], sy = pp[1] + pn[1], sz = pp[2] + pn[2];
+        const p = Math.hypot(sx, sy, sz);
+        c.pMeV[row] = p;
+        c.pointingRad[row] = Math.acos(Math.min(1, cosine(fx, fy, fz, sx, sy, sz)));
+        c.properTimeK0sPs[row] = (L * KAON_SHORT.massMeV) / p / C_M_PER_PS;
+        c.properTimeLambdaPs[row] = (L * LAMBDA.massMeV) / p / C_M_PER_PS;
         out.status[row] = status;
       }
     }

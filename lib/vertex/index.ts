@@ -8,6 +8,7 @@ export { helixPoint, helixPointJacobian, helixCentre, arcLengthNear, newHelixPar
 export { closestApproach, refineClosestApproach, circleCrossings, newClosestApproachScratch, CLOSEST_APPROACH_DEFAULTS, type ClosestApproach, type ClosestApproachScratch } from './closestApproach.js';
 export { fitTwoTrackVertex, nearestArcLength, newTwoTrackVertex, newVertexScratch, type TwoTrackVertex, type VertexScratch } from './twoTrackVertex.js';
 export { vertexTracks, loadHelix, transverseMomentumMeV, type VertexTracks, type VertexTracksOptions } from './vertexTracks.js';
-export { trackStateAt, energyLossFactor, newTrackState, type TrackState } from './trackState.js';
+export { trackStateAt, energyLossFactor, newTrackState, type TrackState, type TrackStateOptions } from './trackState.js';
+export { v0Masses, newV0MassScratch, type V0MassContext, type DaughterHypotheses } from './v0Masses.js';
 export { findV0s, V0_FINDER_DEFAULTS, type V0FinderOptions, type V0FinderResult } from './findV0s.js';
 export type { V0Candidates } from './v0Candidates.js';

@@ -51,11 +51,26 @@ export function energyLossFactor(momentumMeV: number, pathM: number, species: Pa
  * track fit lands, its state at a point replaces the helix-plus-range-table model here.
  * Valid while the path between point and first hit is short compared with the particle's range
  * (the helix direction is not corrected for the change of curvature along that path).
- * @example trackStateAt(h, 1.5, -0.04, PION_MINUS, chamberMedium('liquid hydrogen')).pMeV
+ * @example trackStateAt(h, -0.04, { fieldT: 1.5, species: PION_MINUS, medium: chamberMedium('liquid-hydrogen') }).pMeV
  */
-export function trackStateAt(
-  h: HelixParameters, fieldT: number, sM: number, species: Particle, medium?: Medium, out: TrackState = newTrackState(),
-): TrackState {
+export interface TrackStateOptions {
+  /** B_z [T], signed. */
+  readonly fieldT: number;
+  /** Species hypothesis (mass, |z|). */
+  readonly species: Particle;
+  /** Medium between the point and the hits; omitted → no energy-loss correction. */
+  readonly medium?: Medium;
+  /**
+   * Arc length [m] at which the fitted curvature gives the momentum: 0 (the first hit) for a
+   * fit that follows the slowing track; for a plain helix fitted to a slowing track, whose
+   * curvature is a mean over the track, half the fitted length (the default of the finders).
+   */
+  readonly momentumArcM?: number;
+}
+
+export function trackStateAt(h: HelixParameters, sM: number, options: TrackStateOptions, out: TrackState = newTrackState()): TrackState {
+  const { fieldT, species, medium } = options;
+  const sRef = medium !== undefined ? options.momentumArcM ?? 0 : 0;
   helixPoint(h, sM, out.point);
   const pt = transverseMomentumMeV(h.kappa, fieldT, Math.abs(species.charge) || 1);
   const t = h.tanLambda;
@@ -63,7 +78,7 @@ export function trackStateAt(
   let f = 1;
   out.status = 'ok';
   if (medium !== undefined) {
-    f = energyLossFactor(pt * sec, sM * sec, species, medium);
+    f = energyLossFactor(pt * sec, (sM - sRef) * sec, species, medium);
     if (!Number.isFinite(f)) { out.status = 'ranged-out'; f = 0; }
   }
   out.lossFactor = f;
