@@ -66,7 +66,7 @@ const C_M_PER_PS = SPEED_OF_LIGHT_M_S * 1e-12;
  * the vertex (helix direction there; energy lost between vertex and first hit added back under
  * each hypothesis when `medium` is given), Armenteros α and q_T, and proper times under the
  * K⁰_S and Λ masses. Fields [T] and lengths [m] as in `VertexTracks`.
- * @example findV0s(vertexTracks(hits, { fieldT: 1.5 }), { primaryM: [0, 0, 0] }).candidates.massPiPiMeV
+ * @example findV0s(vertexTracks(measureTracks(hits, { fieldT: 1.5 })), { primaryM: [0, 0, 0] }).candidates.massPiPiMeV
  */
 export function findV0s(tracks: VertexTracks, options: V0FinderOptions = {}): V0FinderResult {
   const cut = { ...V0_FINDER_DEFAULTS, ...stripUndefined(options) };

@@ -1,10 +1,9 @@
 import { GEV_PER_TESLA_METRE } from '../constants.js';
-import { msg } from '../errors.js';
+import { arcLengthsAndSlopes, newArcLengthSlopes } from '../fit/arcLengths.js';
 import { FIT_STATUS } from '../fit/circleFit.js';
-import { fitCircles, type CircleMethod } from '../fit/fitCircles.js';
-import { arcLengths, fitHelices } from '../fit/fitHelices.js';
-import type { HitTable } from '../io/hitTable.js';
-import { gatherRows, indexTracks } from '../io/indexTracks.js';
+import { fitCircles } from '../fit/fitCircles.js';
+import { fitHelices } from '../fit/fitHelices.js';
+import type { TrackTable } from '../track/measureTracks.js';
 import type { HelixParameters } from './helixParameters.js';
 
 /**
@@ -38,71 +37,62 @@ export interface VertexTracks {
 }
 
 export interface VertexTracksOptions {
-  readonly fieldT: number;
-  readonly method?: CircleMethod;
-  /** Hit error [m] for hits without one; omitted → estimated from each track's residuals. */
+  /** Hit error [m] for hits without one (as given to measureTracks); omitted → estimated from the residuals. */
   readonly hitErrorM?: number;
 }
 
 /**
- * Fits every track of a hit table (helix when z is present) and keeps what vertexing needs.
- * Hits with a negative track id are set aside (counted in `unassignedHits`), as `measureTracks`
- * does; the grouping and fits are the same calls.
- * @example vertexTracks(readHits('v0.csv'), { fieldT: 1.5 }).count
+ * What vertexing needs of a measured track table: the helix parameters at each track's first
+ * hit (the table's reference point) with their 5×5 covariance, charges and the arc length of
+ * each track's last hit. The table keeps its hits grouped by track, so nothing is regrouped;
+ * the table does not keep the fit covariance, so the tracks are fitted once more here with the
+ * table's own method (the same numbers, plus the covariance).
+ * @example vertexTracks(measureTracks(readHits('v0.csv'), { fieldT: 1.5 })).count
  */
-export function vertexTracks(hits: HitTable, options: VertexTracksOptions): VertexTracks & { readonly unassignedHits: number } {
-  const { fieldT } = options;
-  if (!Number.isFinite(fieldT) || fieldT === 0) throw msg.badArgument('fieldT', fieldT, 'a non-zero magnetic field in tesla (signed along +z)');
-  let unassigned = 0;
-  for (let i = 0; i < hits.length; i++) if (hits.track[i] < 0) unassigned++;
-  let assigned = hits;
-  if (unassigned > 0) {
-    const keep = new Int32Array(hits.length - unassigned);
-    for (let i = 0, j = 0; i < hits.length; i++) if (hits.track[i] >= 0) keep[j++] = i;
-    assigned = gatherRows(hits, keep);
-  }
-  const { table, index } = indexTracks(assigned);
-  let sigmaX = table.sigmaX, sigmaY = table.sigmaY;
-  if (sigmaX === undefined && options.hitErrorM !== undefined) sigmaX = sigmaY = new Float64Array(table.length).fill(options.hitErrorM);
-  const planeHits = { x: table.x, y: table.y, sigmaX, sigmaY };
-  const method = options.method ?? 'geometric';
-  const hasZ = table.z !== undefined;
-  const helix = hasZ ? fitHelices({ ...planeHits, z: table.z!, sigmaZ: table.sigmaZ }, index.offsets, { method }) : undefined;
-  const circle = helix ? helix.circle : fitCircles(planeHits, index.offsets, { method });
-  const n = index.count;
+export function vertexTracks(table: TrackTable, options: VertexTracksOptions = {}): VertexTracks {
+  const { fieldT, hits, offsets } = table;
+  let sigmaX = hits.sigmaX, sigmaY = hits.sigmaY;
+  if (sigmaX === undefined && options.hitErrorM !== undefined) sigmaX = sigmaY = new Float64Array(hits.length).fill(options.hitErrorM);
+  const planeHits = { x: hits.x, y: hits.y, sigmaX, sigmaY };
+  const fitOptions = { method: table.method, fieldT };
+  const hasZ = hits.z !== undefined;
+  const helix = hasZ ? fitHelices({ ...planeHits, z: hits.z!, sigmaZ: hits.sigmaZ }, offsets, fitOptions) : undefined;
+  const circle = helix ? helix.circle : fitCircles(planeHits, offsets, fitOptions);
+  const n = table.count;
   const cov = new Float64Array(25 * n);
   const charge = new Float64Array(n), usable = new Uint8Array(n), lastArcM = new Float64Array(n);
   const z0 = new Float64Array(n), tanLambda = new Float64Array(n);
-  let scratch = new Float64Array(64);
+  let arcs = newArcLengthSlopes(64);
+  const rows = { x: hits.x, y: hits.y, from: 0, to: 0 };
+  const at = { kappa: 0, phi: 0, d: 0, xRef: 0, yRef: 0 };
   for (let k = 0; k < n; k++) {
     const c = 25 * k;
     if (helix) {
       z0[k] = helix.z0[k];
       tanLambda[k] = helix.tanLambda[k];
-      for (let r = 0, q = 0; r < 5; r++) for (let s = r; s < 5; s++, q++) cov[c + 5 * r + s] = cov[c + 5 * s + r] = helix.cov[15 * k + q];
+      for (let r = 0, q = 0; r < 5; r++) for (let u = r; u < 5; u++, q++) cov[c + 5 * r + u] = cov[c + 5 * u + r] = helix.cov[15 * k + q];
     } else {
       const c6 = circle.cov.subarray(6 * k, 6 * k + 6);
-      const up = [c6[0], c6[1], c6[2], c6[3], c6[4], c6[5]];
-      for (let r = 0, q = 0; r < 3; r++) for (let s = r; s < 3; s++, q++) cov[c + 5 * r + s] = cov[c + 5 * s + r] = up[q];
+      for (let r = 0, q = 0; r < 3; r++) for (let u = r; u < 3; u++, q++) cov[c + 5 * r + u] = cov[c + 5 * u + r] = c6[q];
       cov[c + 18] = 1;
       cov[c + 24] = 1;
     }
     const kap = circle.kappa[k];
     charge[k] = Number.isFinite(kap) ? (kap === 0 ? 0 : -Math.sign(kap) * Math.sign(fieldT)) : NaN;
     usable[k] = FIT_STATUS[circle.status[k]] === 'ok' && Number.isFinite(tanLambda[k]) && Number.isFinite(cov[c]) ? 1 : 0;
-    const from = index.offsets[k], to = index.offsets[k + 1];
+    lastArcM[k] = NaN;
     if (usable[k]) {
-      if (scratch.length < to - from) scratch = new Float64Array(2 * (to - from));
-      arcLengths(table.x, table.y, from, to, kap, circle.phi0[k], circle.d0[k], circle.xRef[k], circle.yRef[k], scratch);
-      lastArcM[k] = scratch[to - from - 1];
-    } else {
-      lastArcM[k] = NaN;
+      rows.from = offsets[k];
+      rows.to = offsets[k + 1];
+      if (arcs.s.length < rows.to - rows.from) arcs = newArcLengthSlopes(2 * (rows.to - rows.from));
+      at.kappa = kap; at.phi = circle.phi0[k]; at.d = circle.d0[k]; at.xRef = circle.xRef[k]; at.yRef = circle.yRef[k];
+      arcLengthsAndSlopes(rows, at, arcs);
+      lastArcM[k] = arcs.s[rows.to - rows.from - 1];
     }
   }
   return {
-    count: n, event: index.event, track: index.track, xRef: circle.xRef, yRef: circle.yRef,
-    kappa: circle.kappa, phi0: circle.phi0, d0: circle.d0, z0, tanLambda, cov, charge, usable, lastArcM,
-    fieldT, hasZ, unassignedHits: unassigned,
+    count: n, event: table.event, track: table.track, xRef: circle.xRef, yRef: circle.yRef,
+    kappa: circle.kappa, phi0: circle.phi0, d0: circle.d0, z0, tanLambda, cov, charge, usable, lastArcM, fieldT, hasZ,
   };
 }
 

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { chamberMedium, VACUUM, type Medium } from '../../lib/matter/index.js';
 import { KAON_SHORT, LAMBDA } from '../../lib/particles.js';
 import { chamber, simulateChamber, type SimulationConfig, type SimulationResult } from '../../lib/simulate/index.js';
+import { measureTracks } from '../../lib/track/index.js';
 import { findV0s, vertexTracks, type V0FinderResult } from '../../lib/vertex/index.js';
 
 const ORIGIN: [number, number, number] = [-0.55, 0, 0];
@@ -42,7 +43,7 @@ const stats = (a: number[]) => {
 
 describe('findV0s on simulated K⁰_S and Λ decays (truth from the simulator; PDG 2022 masses)', () => {
   const vacuum = run(VACUUM, 5);
-  const found = findV0s(vertexTracks(vacuum.hits, { fieldT: 1.5 }), { primaryM: ORIGIN });
+  const found = findV0s(vertexTracks(measureTracks(vacuum.hits, { fieldT: 1.5 })), { primaryM: ORIGIN });
   const rows = matched(vacuum, found);
 
   it('finds a candidate for most decays beyond the 2 cm flight cut, one per event, and counts the pairs it tried', () => {
@@ -89,7 +90,7 @@ describe('findV0s on simulated K⁰_S and Λ decays (truth from the simulator; P
 describe('findV0s in liquid hydrogen: the energy lost between vertex and first hits', () => {
   const lh2 = chamberMedium('liquid-hydrogen');
   const sim = run(lh2, 6);
-  const tracks = vertexTracks(sim.hits, { fieldT: 1.5 });
+  const tracks = vertexTracks(measureTracks(sim.hits, { fieldT: 1.5 }));
   const peak = (found: V0FinderResult) => {
     const rows = matched(sim, found);
     const c = found.candidates;
