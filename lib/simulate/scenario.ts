@@ -11,7 +11,7 @@ import { jsonPointerLines, withLines } from './jsonPointerLines.js';
 import { VACUUM } from '../matter/medium.js';
 import { SCENARIO_SCHEMA } from './scenarioSchema.js';
 import type { MeasurementModel, SimulationConfig, Source, TransportSettings } from './simulate.js';
-import { TRANSPORT_DEFAULTS, type Sampling } from './transport.js';
+import { TRANSPORT_DEFAULTS, type Sampling } from './transportOptions.js';
 
 /** Defaults of the optional scenario fields, in internal units (transport settings: the transport's own). */
 export const SCENARIO_DEFAULTS = Object.freeze({
