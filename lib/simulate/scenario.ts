@@ -76,7 +76,7 @@ function describeErrors(errors: readonly ErrorObject[]): string {
  * the bad field and its line (e.g. "run.json: /sources/1/momentum (line 23): …"); bad JSON names
  * line and column.
  * Records the file in the provenance registry.
- * @example readScenario('notebooks/data/ember-hollow.scenario.json').sources.length
+ * @example readScenario('notebooks/data/brindlemoor.scenario.json').sources.length
  */
 export function readScenario(path: string): SimulationConfig {
   let bytes: Buffer;
