@@ -112,10 +112,11 @@ export const msg = {
   badNotebook: (file: string, detail: string) =>
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),
 
-  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
+  /** An output that cannot be written where asked (missing folder, not writable, a directory). */
   cannotWrite: (path: string, reason: string, fix: string) =>
     new SagittaError('CANNOT_WRITE', `${path}: cannot write here (${reason}); ${fix}`, { file: path }),
 
+  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
   outsideValidity: (what: string, value: string, valid: string) =>
     new SagittaError('OUTSIDE_VALIDITY', `${what} ${value} is outside the validity range ${valid}; choose a value inside it`),
 } as const;

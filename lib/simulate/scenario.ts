@@ -11,7 +11,7 @@ import { jsonPointerLines, withLines } from './jsonPointerLines.js';
 import { VACUUM } from '../matter/medium.js';
 import { SCENARIO_SCHEMA } from './scenarioSchema.js';
 import type { MeasurementModel, SimulationConfig, Source, TransportSettings } from './simulate.js';
-import { TRANSPORT_DEFAULTS, type Sampling } from './transport.js';
+import { TRANSPORT_DEFAULTS, type Sampling } from './transportOptions.js';
 
 /** Defaults of the optional scenario fields, in internal units (transport settings: the transport's own). */
 export const SCENARIO_DEFAULTS = Object.freeze({
@@ -76,7 +76,7 @@ function describeErrors(errors: readonly ErrorObject[]): string {
  * the bad field and its line (e.g. "run.json: /sources/1/momentum (line 23): …"); bad JSON names
  * line and column.
  * Records the file in the provenance registry.
- * @example readScenario('notebooks/data/ember-hollow.scenario.json').sources.length
+ * @example readScenario('notebooks/data/brindlemoor.scenario.json').sources.length
  */
 export function readScenario(path: string): SimulationConfig {
   let bytes: Buffer;
