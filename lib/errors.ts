@@ -26,7 +26,10 @@ export type SagittaErrorCode =
   | 'BAD_SCENARIO'
   | 'BAD_NOTEBOOK'
   | 'OUTSIDE_VALIDITY'
-  | 'CANNOT_WRITE';
+  | 'CANNOT_WRITE'
+  | 'CANNOT_READ'
+  | 'BAD_ID'
+  | 'OUTPUT_CLASH';
 
 /** Where in an input a problem sits; all fields optional so callers fill what they know. */
 export interface SourceLocation {
@@ -112,10 +115,21 @@ export const msg = {
   badNotebook: (file: string, detail: string) =>
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),
 
-  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
   cannotWrite: (path: string, reason: string, fix: string) =>
     new SagittaError('CANNOT_WRITE', `${path}: cannot write here (${reason}); ${fix}`, { file: path }),
 
+  /** An input that exists but cannot be read (a folder, no permission, an I/O error). */
+  cannotRead: (path: string, reason: string, fix: string) =>
+    new SagittaError('CANNOT_READ', `${path}: cannot read (${reason}); ${fix}`, { file: path }),
+
+  badId: (file: string, line: number, column: string, text: string, why: string) =>
+    new SagittaError('BAD_ID', located({ file, line, column }, `${JSON.stringify(text)} ${why}`), { file, line, column }),
+
+  /** Two paths of one command that are the same file (an output over an input, or two outputs). */
+  outputClash: (flag: string, path: string, other: string, otherPath: string) =>
+    new SagittaError('OUTPUT_CLASH', `${flag} ${path} is the same file as ${other} ${otherPath}; choose another path (nothing was written)`, { file: path }),
+
+  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
   outsideValidity: (what: string, value: string, valid: string) =>
     new SagittaError('OUTSIDE_VALIDITY', `${what} ${value} is outside the validity range ${valid}; choose a value inside it`),
 } as const;
