@@ -3,7 +3,7 @@ import { performance } from 'node:perf_hooks';
 import { readHits } from '../../../lib/io/readHits.js';
 import { READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv.js';
 import { formatCsvBytes, rowObjects, writeFileAtomic } from '../../../lib/io/columnTable.js';
-import { CIRCLE_METHODS, type CircleMethod } from '../../../lib/fit/fitCircles.js';
+import { fitMethods } from '../../../lib/fit/fitMethods.js';
 import { measureTracks, type TrackTable } from '../../../lib/track/measureTracks.js';
 import { trackTableColumns } from '../../../lib/track/trackTableColumns.js';
 import { fieldTesla, lengthMetres, metresPerUnit } from '../../../lib/units.js';
@@ -16,7 +16,7 @@ import { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns
 
 export interface FitCommandOptions {
   field: string;
-  fitter: CircleMethod;
+  fitter: string;
   out?: string;
   lengthUnit: string;
   hitError?: string;
@@ -38,7 +38,7 @@ export function registerFit(program: Command): void {
     .description('fit circles/helices to the tracks in a hit file and report momenta, charges and errors')
     .argument('<hits>', 'hit file: .csv/.tsv or .jsonl with columns event, track, x, y [, z, sigma | sigma_x, sigma_y, sigma_z]')
     .requiredOption('-B, --field <quantity>', 'magnetic field along +z with its unit, e.g. "1.5 T", "15 kG", "-0.8 T" (negative: along -z)')
-    .addOption(new Option('--fitter <method>', 'circle fit method').choices(CIRCLE_METHODS as string[]).default('geometric'))
+    .addOption(new Option('--fitter <method>', `fit method: ${fitMethods().map((m) => `${m.name} — ${m.summary}`).join('; ')}`).choices(fitMethods().map((m) => m.name)).default('geometric'))
     .option('-o, --out <file>', 'write results to a .csv or .json file (default: CSV on stdout)')
     .option('--length-unit <unit>', 'unit of length columns whose header has none, e.g. x[cm] overrides it', READ_HITS_DEFAULTS.lengthUnit)
     .option('--hit-error <quantity>', 'position error for hits without a sigma column, e.g. "200 um" (default: estimated from each track\'s residuals)')
@@ -83,7 +83,7 @@ export function runFit(hitsPath: string, options: FitCommandOptions): string {
   const tracks = measureTracks(hits, { fieldT, method: options.fitter, chargeMagnitude, hitErrorM });
   const tFit = performance.now();
   const medium = options.material !== undefined ? lookupMaterial(options.material) : undefined;
-  const budget = medium ? resolutionBudget(hits, tracks, { material: medium, particle: lookupParticle(options.particle ?? 'pi+'), hitErrorM }) : undefined;
+  const budget = medium ? resolutionBudget(tracks, { material: medium, particle: lookupParticle(options.particle ?? 'pi+'), hitErrorM }) : undefined;
   const baseTable = trackTableColumns(tracks);
   const table: ColumnTable = budget ? { rows: baseTable.rows, columns: [...baseTable.columns, ...resolutionBudgetColumns(budget)] } : baseTable;
   if (options.out === undefined) process.stdout.write(formatCsvBytes(table));
