@@ -125,6 +125,10 @@ export const msg = {
   badId: (file: string, line: number, column: string, text: string, why: string) =>
     new SagittaError('BAD_ID', located({ file, line, column }, `${JSON.stringify(text)} ${why}`), { file, line, column }),
 
+  /** A hit file streamed to standard output whose events turned out not to be grouped. */
+  notGrouped: (file: string) =>
+    new SagittaError('BAD_ROW', `${file}: the hits of an event are not together (an event appears again after others), so the file cannot be streamed to standard output; write the results to a file with --out, or sort the file by event (the rows printed so far are incomplete)`, { file }),
+
   /** Two paths of one command that are the same file (an output over an input, or two outputs). */
   outputClash: (flag: string, path: string, other: string, otherPath: string) =>
     new SagittaError('OUTPUT_CLASH', `${flag} ${path} is the same file as ${other} ${otherPath}; choose another path (nothing was written)`, { file: path }),
