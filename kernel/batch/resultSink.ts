@@ -104,6 +104,7 @@ class ParquetSink {
   }
 
   add(table: ColumnTable): void {
+    if (table.rows === 0) return;
     if (this.names.length === 0) {
       this.names = table.columns.map((c) => c.name);
       this.types = table.columns.map(parquetTypeOf);
@@ -121,7 +122,7 @@ class ParquetSink {
   finish(names: readonly string[]): void {
     if (this.names.length === 0) {
       this.names = [...names];
-      this.types = names.map((n) => (n === 'status' ? 'STRING' : n === 'event' || n === 'track' ? 'INT64' : 'DOUBLE'));
+      this.types = names.map((n) => (n === 'status' ? 'STRING' : n === 'event' || n === 'track' || n === 'first_hit_position' ? 'INT64' : 'DOUBLE'));
       this.cells = names.map(() => []);
     }
     if (this.buffered > 0 || this.writer === undefined) this.flush(this.buffered);
