@@ -115,6 +115,7 @@ export const msg = {
   badNotebook: (file: string, detail: string) =>
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),
 
+  /** An output that cannot be written where asked (missing folder, not writable, a directory). */
   cannotWrite: (path: string, reason: string, fix: string) =>
     new SagittaError('CANNOT_WRITE', `${path}: cannot write here (${reason}); ${fix}`, { file: path }),
 

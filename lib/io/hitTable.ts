@@ -3,7 +3,7 @@ import type { IdLabels } from './hitIds.js';
 /**
  * The hit table: one row per measured point, stored as typed-array columns (STYLE.md §2).
  *
- * Lengths are in metres inside Sagitta whatever the file said; `lengthUnit` records what the
+ * Lengths are in metres inside Sagitta whatever the file said; `source.units` records what the
  * file used so that summaries can say so. Rows of one track are identified by (event, track);
  * within a track the rows are in the order the particle travelled (first hit = where it
  * entered or was produced) — the turning sense, and so the charge, is read from that order.

@@ -37,7 +37,7 @@ export class HitTableBuilder {
     return this.size;
   }
 
-  /** Starts a new row and returns its index; columns are then written with `set`. */
+  /** Starts a new row and returns its index; its values are then written into `column(name)[row]`. */
   addRow(line: number, position = 0): number {
     if (this.size === this.capacity) this.grow();
     this.lines[this.size] = line;
