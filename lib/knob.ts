@@ -13,7 +13,7 @@ import { DIRECT_UNITS, quantity, type Dimension } from './units.js';
  * call in the notebook before any cell runs and refuses a value of the wrong type or unit
  * (`--set field=1.2` has no unit; `--set field="2 m"` is not a field) or a name no knob declares.
  * A quantity knob returns the value in Sagitta's internal unit for its dimension (tesla, metre,
- * MeV, GeV/c, volt, ampere — lib/units.ts), whatever unit it was written in. Without a supplied
+ * MeV, GeV/c, volt, ampere, radian, g/cm² — lib/units.ts), whatever unit it was written in. Without a supplied
  * value (in the live kernel, say) a knob is its default.
  *
  * Supplied values and the knobs used live on globalThis under a registered symbol, shared by
@@ -50,7 +50,7 @@ const NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
 const RESERVED = new Set(['__proto__', 'constructor', 'prototype']);
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const QUANTITY = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*\S.*$/;
-const INTERNAL_UNIT: Readonly<Record<Dimension, string>> = Object.freeze({ field: 'T', length: 'm', energy: 'MeV', momentum: 'GeV/c', voltage: 'V', current: 'A' });
+const INTERNAL_UNIT: Readonly<Record<Dimension, string>> = Object.freeze({ field: 'T', length: 'm', energy: 'MeV', momentum: 'GeV/c', voltage: 'V', current: 'A', angle: 'rad', arealDensity: 'g/cm²' });
 
 function store(): KnobStore {
   const g = globalThis as unknown as Record<symbol, KnobStore | undefined>;

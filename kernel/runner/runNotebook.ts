@@ -2,7 +2,7 @@ import { fork } from 'node:child_process';
 import path, { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { KnobRecord } from '../../lib/knob.js';
-import { msg } from '../../lib/errors.js';
+import { SagittaError } from '../../lib/errors.js';
 import type { ProvenanceSnapshot } from '../../lib/provenance.js';
 import type { DisplayDataOutput, Notebook, SagittaCellMeta } from '../notebook/types.js';
 import { runCell } from './cellRecorder.js';
@@ -92,7 +92,8 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
   try {
     channel.send({ kind: 'start', workDir, cells: code, knobs: [...(options.knobs ?? new Map<string, string>())] });
     const ready = await channel.waitFor((m) => m.kind === 'ready' || m.kind === 'refused' || m.kind === 'fault', o.startTimeoutMs);
-    if (ready.kind === 'message' && ready.message.kind === 'refused') throw msg.badKnob(ready.message.problems.length === 1 ? 'value' : 'values', ready.message.problems.join('; '));
+    // Each problem is already a BAD_KNOB message naming its knob.
+    if (ready.kind === 'message' && ready.message.kind === 'refused') throw new SagittaError('BAD_KNOB', ready.message.problems.join('; '));
     if (ready.kind !== 'message' || ready.message.kind !== 'ready') {
       const why = stoppedBy ? `was stopped (${stoppedBy})`
         : ready.kind === 'timeout' ? `did not start within ${formatLimit(o.startTimeoutMs)}`
