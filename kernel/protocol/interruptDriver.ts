@@ -26,6 +26,8 @@ export interface InterruptDriverOptions {
   readonly phase: Int32Array;
   send(channel: 'control' | 'iopub', frames: Sendable): void;
   log(line: string): void;
+  /** Stops the main thread's JavaScript; true when asked (default: the inspector's Runtime.terminateExecution). */
+  stopMainThread?: () => boolean;
 }
 
 export interface InterruptDriver {
@@ -58,6 +60,7 @@ export function createInterruptDriver(o: InterruptDriverOptions): InterruptDrive
   }
 
   function terminateMainThread(): boolean {
+    if (o.stopMainThread) return o.stopMainThread();
     try {
       if (!inspector) {
         inspector = new InspectorSession();
