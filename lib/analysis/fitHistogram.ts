@@ -33,8 +33,10 @@ const SPARSE_COUNT = 5;
  * `method`:
  * - `poisson` (default): binned maximum likelihood; the minimised quantity is the Baker–Cousins
  *   saturated-model χ²_λ = 2 Σ [μ − n + n ln(n/μ)] (S. Baker & R. D. Cousins, NIM 221 (1984) 437),
- *   which is also the goodness of fit (asymptotically χ² with ndf degrees of freedom) and makes
- *   empty bins count correctly. Errors from the curvature of χ²_λ (observed information).
+ *   which is also the goodness of fit and makes empty bins count correctly. It is χ²(ndf)
+ *   asymptotically; bins of few expected entries raise its mean (by ~0.13 per bin at μ = 2), so
+ *   the p-value of a spectrum with many sparse bins is approximate (test/analysis/toyPulls.test.ts).
+ *   Errors from the curvature of χ²_λ (observed information), unbiased on toy spectra.
  * - `neyman`: Σ (n − μ)²/n, with σ² = max(n, 1) for counts (σ² = Σw² for weighted bins).
  * - `pearson`: Σ (n − μ)²/μ.
  * Both χ² methods are biased when bins hold few entries: a SPARSE_BINS warning names how many
