@@ -2,7 +2,7 @@ import { chi2Survival } from './chi2Survival.js';
 import type { MinimiserStatus } from './levenbergMarquardt.js';
 
 /** Which objective a fit minimised. */
-export type FitMethod = 'least-squares' | 'poisson' | 'neyman' | 'pearson' | 'unbinned' | 'unbinned-extended';
+export type ModelFitMethod = 'least-squares' | 'poisson' | 'neyman' | 'pearson' | 'unbinned' | 'unbinned-extended';
 
 /**
  * How a fit ended: `ok` (converged, errors from a positive-definite curvature); `not-converged`
@@ -26,7 +26,7 @@ export interface FittedParameter {
 
 /** The result of `fitModel`, `fitHistogram` or `fitUnbinned`: plain, readonly data. */
 export interface FitResult {
-  readonly method: FitMethod;
+  readonly method: ModelFitMethod;
   readonly names: readonly string[];
   readonly values: readonly number[];
   readonly errors: readonly number[];
@@ -52,7 +52,7 @@ export interface FitResult {
 
 /** What the fitters hand to `buildFitResult`. */
 export interface FitResultParts {
-  readonly method: FitMethod;
+  readonly method: ModelFitMethod;
   readonly names: readonly string[];
   readonly full: Float64Array;
   readonly free: Int32Array;

@@ -11,7 +11,7 @@ export { fitHistogram, binResidual, type BinnedMethod, type FitHistogramOptions 
 export { fitUnbinned, type FitUnbinnedOptions } from './fitUnbinned.js';
 export { fitLinear, type LinearFitData, type FitLinearOptions } from './fitLinear.js';
 export { fitStraightLine, type FitStraightLineOptions } from './fitStraightLine.js';
-export { type FitResult, type FittedParameter, type FitMethod, type ModelFitStatus } from './fitResult.js';
+export { type FitResult, type FittedParameter, type ModelFitMethod, type ModelFitStatus } from './fitResult.js';
 export { type ParameterStart, type ParameterOptions } from './fitParameters.js';
 export {
   levenbergMarquardt, LEVENBERG_MARQUARDT_DEFAULTS,
