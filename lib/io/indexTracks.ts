@@ -91,6 +91,6 @@ export function gatherRows(table: HitTable, perm: Int32Array): HitTable {
     sigmaX: gather(table.sigmaX, perm),
     sigmaY: gather(table.sigmaY, perm),
     sigmaZ: gather(table.sigmaZ, perm),
-    source: { ...table.source, line },
+    source: { ...table.source, line, ...(table.source.position ? { position: gather(table.source.position, perm) } : {}) },
   };
 }

@@ -94,8 +94,8 @@ export function resolutionBudget(tracks: TrackTable, options: ResolutionBudgetOp
  */
 export function resolutionBudgetColumns(budget: ResolutionBudgetColumns): Column[] {
   return [
-    { name: 'sigma_p_meas', values: budget.sigmaPMeasGeV, digits: 4 },
-    { name: 'sigma_p_ms', values: budget.sigmaPMsGeV, digits: 4 },
-    { name: 'sigma_p_total', values: budget.sigmaPTotalGeV, digits: 4 },
+    { name: 'sigma_p_meas_GeV_c', values: budget.sigmaPMeasGeV, digits: 4 },
+    { name: 'sigma_p_ms_GeV_c', values: budget.sigmaPMsGeV, digits: 4 },
+    { name: 'sigma_p_total_GeV_c', values: budget.sigmaPTotalGeV, digits: 4 },
   ];
 }

@@ -54,6 +54,6 @@ describe('resolutionBudgetColumns', () => {
     const { resolutionBudgetColumns } = await import('../../lib/track/resolutionBudget.js');
     const h = hits();
     const b = resolutionBudget(measureTracks(h, { fieldT: 1.5 }), { material: material('liquid-hydrogen') });
-    expect(resolutionBudgetColumns(b).map((c) => c.name)).toEqual(['sigma_p_meas', 'sigma_p_ms', 'sigma_p_total']);
+    expect(resolutionBudgetColumns(b).map((c) => c.name)).toEqual(['sigma_p_meas_GeV_c', 'sigma_p_ms_GeV_c', 'sigma_p_total_GeV_c']);
   });
 });
