@@ -7,7 +7,11 @@ export interface MassPeakFit {
   /** Gaussian width of the peak and its error. */
   readonly widthMeV: number;
   readonly sigmaWidthMeV: number;
-  /** Fitted number of signal candidates (fraction × candidates in the window) and its error. */
+  /**
+   * Fitted number of signal candidates (fraction × candidates in the window) and its error,
+   * which adds the Poisson fluctuation of the window's count to the fraction's error
+   * (σ² = n²σ_f² + f²n, as an extended likelihood would give).
+   */
   readonly signal: number;
   readonly sigmaSignal: number;
   /** Candidates inside the window. */
@@ -66,7 +70,7 @@ export function fitMassPeak(massesMeV: ArrayLike<number>, window: readonly [numb
   const C = invert3(H);
   return {
     meanMeV: mu, sigmaMeanMeV: Math.sqrt(C[4]), widthMeV: sigma, sigmaWidthMeV: Math.sqrt(C[8]),
-    signal: f * n, sigmaSignal: n * Math.sqrt(C[0]), inWindow: n, iterations: it, status: converged ? 'ok' : 'not-converged',
+    signal: f * n, sigmaSignal: Math.sqrt(n * n * C[0] + f * f * n), inWindow: n, iterations: it, status: converged ? 'ok' : 'not-converged',
   };
 }
 
