@@ -9,7 +9,8 @@ import { cpus } from 'node:os';
 import { PROTON, ELECTRON } from '../../lib/particles.js';
 import { material } from '../../lib/matter/materials.js';
 import { massStoppingPower } from '../../lib/matter/stoppingPower.js';
-import { csdaRange, rangeTable, energyAtRange } from '../../lib/matter/range.js';
+import { csdaRange, kineticEnergyFromRange, momentumFromRange } from '../../lib/matter/range.js';
+import { rangeTable, energyAtRange } from '../../lib/matter/rangeTable.js';
 
 export interface BenchResult { readonly name: string; readonly value: number; readonly unit: string; readonly target: string; readonly pass: boolean }
 

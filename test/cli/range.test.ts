@@ -36,9 +36,10 @@ describe('sagitta range', () => {
     expect(text).toMatch(/R \[g\/cm2\]/);
     expect(text).toMatch(/not for treatment planning/);
   });
-  it('refuses an energy below the validity cutoff with OUTSIDE_VALIDITY instead of printing a number', () => {
-    expect(() => runRange({ ...base, energy: '0.1 MeV' })).toThrow(SagittaError);
-    expect(() => runRange({ ...base, energy: '0.1 MeV' })).toThrow(/outside the validity range 0.95/);
+  it('answers down to low energies for protons (0.1 MeV: PSTAR 1.607e-4 g/cm², within 1.5 %) and refuses electrons below 10 keV with OUTSIDE_VALIDITY', () => {
+    expect(Math.abs(json({ energy: '0.1 MeV' }).csda_range_g_cm2 / 1.607e-4 - 1)).toBeLessThan(0.015);
+    expect(() => runRange({ ...base, particle: 'electron', energy: '1 keV' })).toThrow(SagittaError);
+    expect(() => runRange({ ...base, particle: 'electron', energy: '1 keV' })).toThrow(/outside the validity range 0.01/);
   });
   it('needs exactly one of --energy, --momentum, --range', () => {
     expect(() => runRange({ ...base })).toThrow(/exactly one/);

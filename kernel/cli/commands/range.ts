@@ -6,7 +6,8 @@ import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings.js';
 import { material as lookupMaterial, type Material } from '../../../lib/matter/materials.js';
 import { kinematicsFromKinetic, kineticFromMomentum } from '../../../lib/matter/kinematics.js';
 import { massStoppingPower } from '../../../lib/matter/stoppingPower.js';
-import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV, rangeTable } from '../../../lib/matter/range.js';
+import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV } from '../../../lib/matter/range.js';
+import { rangeTable } from '../../../lib/matter/rangeTable.js';
 
 export interface RangeCommandOptions {
   particle: string;
@@ -101,7 +102,7 @@ export function rangeGcm2FromText(text: string, m: Material): number {
 }
 
 function validityText(p: Particle): string {
-  return `${Number(rangeCutoffMeV(p).toPrecision(3))}–${Number(rangeMaxMeV(p).toPrecision(3))} MeV for ${p.name}`;
+  return `${p.charge !== 0 && Math.abs(p.massMeV - 0.51099895) < 1e-6 ? Number(rangeCutoffMeV(p).toPrecision(3)) : 0}–${Number(rangeMaxMeV(p).toPrecision(3))} MeV for ${p.name}`;
 }
 
 /** Runs the command; returns what goes to stdout and the warnings (also used by tests). */
@@ -133,10 +134,10 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
   let rangeGiven: number | undefined;
   if (options.energy !== undefined) {
     kineticMeV = energyMeV(options.energy, { what: '--energy' });
-    if (!Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--energy', options.energy, validityText(p));
+    if (!Number.isFinite(massStoppingPower(p, m, kineticMeV)) || !Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--energy', options.energy, validityText(p));
   } else if (options.momentum !== undefined) {
     kineticMeV = kineticFromMomentum(p, momentumGeV(options.momentum, { what: '--momentum' }) * 1000);
-    if (!Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--momentum', options.momentum, validityText(p));
+    if (!Number.isFinite(massStoppingPower(p, m, kineticMeV)) || !Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--momentum', options.momentum, validityText(p));
   } else {
     rangeGiven = rangeGcm2FromText(options.range as string, m);
     kineticMeV = kineticEnergyFromRange(p, m, rangeGiven);
