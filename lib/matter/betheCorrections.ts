@@ -45,17 +45,37 @@ const BY_Z = new Map<number, Element>(Object.values(ELEMENTS).map((e) => [e.atom
  * skipped (their weight goes to the others).
  */
 export function materialShellCorrection(material: Material, betaGammaValue: number): number {
-  let sum = 0;
-  let weight = 0;
+  const [i2, i3] = shellMoments(material);
+  return shellFromMoments(i2, i3, betaGammaValue);
+}
+
+/**
+ * The two material constants the shell correction needs: ⟨I²/Z⟩ and ⟨I³/Z⟩ weighted by
+ * electrons (the Barkas–Berger C is linear in I² and I³, so ⟨C/Z⟩ = a(η)⟨I²/Z⟩ + b(η)⟨I³/Z⟩).
+ */
+export function shellMoments(material: Material): readonly [number, number] {
+  let i2 = 0, i3 = 0, weight = 0;
   for (const c of material.composition) {
     const el = BY_Z.get(c.atomicNumber);
     if (!el) continue;
     const w = (c.massFraction * c.atomicNumber) / c.atomicMassGmol;
-    sum += w * shellCorrectionOverZ(el, betaGammaValue);
+    const i = el.meanExcitationEV;
+    i2 += (w * i * i) / el.atomicNumber;
+    i3 += (w * i * i * i) / el.atomicNumber;
     weight += w;
   }
-  return weight > 0 ? sum / weight : 0;
+  return weight > 0 ? [i2 / weight, i3 / weight] : [0, 0];
 }
+
+/** ⟨C/Z⟩ from the moments of `shellMoments` at βγ (frozen below 0.13). */
+export function shellFromMoments(i2: number, i3: number, betaGammaValue: number): number {
+  const eta = Math.max(betaGammaValue, SHELL_MIN_BETA_GAMMA);
+  const e2 = 1 / (eta * eta);
+  const e4 = e2 * e2;
+  const e6 = e4 * e2;
+  return (0.422377 * e2 + 0.0304043 * e4 - 0.00038106 * e6) * 1e-6 * i2 + (3.858019 * e2 - 0.1667989 * e4 + 0.00157955 * e6) * 1e-9 * i3;
+}
+
 
 /**
  * Bloch correction (the z⁴ term) to the stopping number, PDG RPP "Passage of particles through

@@ -1,6 +1,6 @@
 import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants.js';
 import type { Particle } from '../particles.js';
-import { blochCorrection, materialShellCorrection } from './betheCorrections.js';
+import { blochCorrection, shellFromMoments, shellMoments } from './betheCorrections.js';
 import { densityEffectDelta } from './densityEffect.js';
 import { heliumEffectiveChargeSquared } from './heliumEffectiveCharge.js';
 import { heliumFitStopping, lowEnergyFit, protonFitStopping, type FitCoefficients, type LowEnergyFit } from './lowEnergyFits.js';
@@ -52,6 +52,9 @@ interface LossData {
   readonly helium: Join | undefined;
   /** Electron-weighted mean Z, for the helium effective charge. */
   readonly meanZ: number;
+  /** ⟨I²/Z⟩ and ⟨I³/Z⟩ for the shell correction (betheCorrections.ts). */
+  readonly shellI2: number;
+  readonly shellI3: number;
   /** The fitted material whose curve is scaled below 2 MeV when this one has no fit. */
   readonly reference: Material | undefined;
   /** S(2 MeV) of this material over that of the reference (protons). */
@@ -80,7 +83,8 @@ function stoppingNumber(m: number, material: Material, t: number): number {
 /** Shell + Bloch correction to the stopping number (betheCorrections.ts). */
 function highCorrection(m: number, z: number, material: Material, t: number): number {
   const bg2 = (t * (t + 2 * m)) / (m * m);
-  return -materialShellCorrection(material, Math.sqrt(bg2)) + blochCorrection(z, Math.sqrt(bg2 / (1 + bg2)));
+  const d = lossData(material);
+  return -shellFromMoments(d.shellI2, d.shellI3, Math.sqrt(bg2)) + blochCorrection(z, Math.sqrt(bg2 / (1 + bg2)));
 }
 
 function makeJoin(material: Material, c: FitCoefficients, refMass: number, z: number, fitAt: (t: number) => number): Join {
@@ -104,6 +108,9 @@ function lossData(material: Material): LossData {
   let d = CACHE.get(material);
   if (d) return d;
   const fit = lowEnergyFit(material);
+  const [shellI2, shellI3] = shellMoments(material);
+  // A first entry without joins, so that the join set-up below can evaluate the corrections.
+  CACHE.set(material, Object.freeze({ fit, proton: undefined, helium: undefined, meanZ: 1, shellI2, shellI3, reference: undefined, extrapolationScale: 1 }));
   let electrons = 0, zSum = 0;
   for (const c of material.composition) {
     const w = c.massFraction / c.atomicMassGmol;
@@ -115,6 +122,8 @@ function lossData(material: Material): LossData {
   const sB = prefactor(PROTON_MASS_MEV, 1, material, t2) * (stoppingNumber(PROTON_MASS_MEV, material, t2) + highCorrection(PROTON_MASS_MEV, 1, material, t2));
   d = Object.freeze({
     fit,
+    shellI2,
+    shellI3,
     proton: fit ? makeJoin(material, fit.proton, PROTON_MASS_MEV, 1, (t) => protonFitStopping(fit, t)) : undefined,
     helium: fit ? makeJoin(material, fit.helium, ALPHA_MASS_MEV, 2, (t) => heliumFitStopping(fit, t)) : undefined,
     meanZ: electrons > 0 ? zSum / electrons : 1,
@@ -169,8 +178,8 @@ export function heavyElectronicStopping(particle: Particle, material: Material, 
   if (isAlphaLike(particle) && d.helium && d.fit) {
     const ta = (t * ALPHA_MASS_MEV) / m;
     if (ta <= d.helium.tLow) return heliumFitStopping(d.fit, ta);
-    const corr = ta < d.helium.tHigh ? joinCorrection(d.helium, ta) : highCorrection(m, z, material, t);
-    return prefactor(m, z, material, t) * (stoppingNumber(m, material, t) + corr);
+    if (ta >= d.helium.tHigh) return betheCorrected(m, z, material, d, t);
+    return prefactor(m, z, material, t) * (stoppingNumber(m, material, t) + joinCorrection(d.helium, ta));
   }
   const tp = (t * PROTON_MASS_MEV) / m;
   if (Math.abs(z) === 2 && tp < HELIUM_EFFECTIVE_BELOW_PROTON_MEV) {
@@ -186,13 +195,32 @@ export function heavyElectronicStopping(particle: Particle, material: Material, 
   }
   if (d.fit && d.proton) {
     if (tp <= d.proton.tLow) return z * z * protonFitStopping(d.fit, tp);
-    const corr = tp < d.proton.tHigh ? joinCorrection(d.proton, tp) : highCorrection(m, z, material, t);
-    return prefactor(m, z, material, t) * (stoppingNumber(m, material, t) + corr);
+    if (tp >= d.proton.tHigh) return betheCorrected(m, z, material, d, t);
+    return prefactor(m, z, material, t) * (stoppingNumber(m, material, t) + joinCorrection(d.proton, tp));
   }
   if (tp < EXTRAPOLATION_BELOW_PROTON_MEV && d.reference) {
     return z * z * d.extrapolationScale * heavyElectronicStopping(PROTON_LIKE, d.reference, tp);
   }
-  return prefactor(m, z, material, t) * (stoppingNumber(m, material, t) + highCorrection(m, z, material, t));
+  return betheCorrected(m, z, material, d, t);
+}
+
+/** Bethe with shell and Bloch corrections in one pass (the hot path above the joins). */
+function betheCorrected(m: number, z: number, material: Material, d: LossData, t: number): number {
+  const bg2 = (t * (t + 2 * m)) / (m * m);
+  const gamma2 = 1 + bg2;
+  const beta2 = bg2 / gamma2;
+  const bg = Math.sqrt(bg2);
+  const r = ELECTRON_MASS_MEV / m;
+  const tmax = (2 * ELECTRON_MASS_MEV * bg2) / (1 + 2 * Math.sqrt(gamma2) * r + r * r);
+  const iMeV = material.meanExcitationEV * 1e-6;
+  const l0 = 0.5 * Math.log((2 * ELECTRON_MASS_MEV * bg2 * tmax) / (iMeV * iMeV)) - beta2 - 0.5 * densityEffectDelta(material.densityEffect, bg);
+  const corr = -shellFromMoments(d.shellI2, d.shellI3, bg) + blochCorrection(z, Math.sqrt(beta2));
+  return ((BETHE_K_MEV_CM2_PER_MOL * z * z * material.zOverA) / beta2) * (l0 + corr);
+}
+
+/** True when `material` has an ICRU 49 low-energy fit (then no energy is 'extrapolated'). */
+export function hasLowEnergyFit(material: Material): boolean {
+  return lossData(material).fit !== undefined;
 }
 
 const PROTON_LIKE: Particle = Object.freeze({ name: 'proton', symbol: 'p', massMeV: PROTON_MASS_MEV, charge: 1, ctauM: Infinity });

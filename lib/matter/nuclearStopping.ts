@@ -22,18 +22,34 @@ export function nuclearStoppingPower(particle: Particle, material: Material, kin
   const z1 = Math.abs(particle.charge);
   const m1 = particle.massMeV / ATOMIC_MASS_UNIT_MEV;
   const eKeV = kineticEnergyMeV * 1000;
-  const z1p = Math.pow(z1, 0.23);
+  const z1p = z1 === 1 ? 1 : Math.pow(z1, 0.23);
+  const els = elementsOf(material);
   let s = 0;
-  for (const c of material.composition) {
-    const z2 = c.atomicNumber;
-    const m2 = c.atomicMassGmol;
-    const screen = z1p + Math.pow(z2, 0.23);
+  for (let k = 0; k < els.length; k += 4) {
+    const z2 = els[k], m2 = els[k + 1], perGram = els[k + 3];
+    const screen = z1p + els[k + 2];
     const eps = (32.53 * m2 * eKeV) / (z1 * z2 * (m1 + m2) * screen);
     const sn = eps <= 30
       ? Math.log(1 + 1.1383 * eps) / (2 * (eps + 0.01321 * Math.pow(eps, 0.21226) + 0.19593 * Math.sqrt(eps)))
       : Math.log(eps) / (2 * eps);
     const sEv = (8.462 * z1 * z2 * m1 * sn) / ((m1 + m2) * screen);
-    s += (c.massFraction * sEv * AVOGADRO_PER_MOL * 1e-21) / m2;
+    s += sEv * perGram;
   }
   return s;
+}
+
+/** Per material: [Z₂, M₂, Z₂^0.23, w·N_A·10⁻²¹/M₂] for each element, computed once. */
+const ELEMENTS_OF = new WeakMap<Material, Float64Array>();
+function elementsOf(material: Material): Float64Array {
+  let a = ELEMENTS_OF.get(material);
+  if (a) return a;
+  a = new Float64Array(4 * material.composition.length);
+  material.composition.forEach((c, k) => {
+    a![4 * k] = c.atomicNumber;
+    a![4 * k + 1] = c.atomicMassGmol;
+    a![4 * k + 2] = Math.pow(c.atomicNumber, 0.23);
+    a![4 * k + 3] = (c.massFraction * AVOGADRO_PER_MOL * 1e-21) / c.atomicMassGmol;
+  });
+  ELEMENTS_OF.set(material, a);
+  return a;
 }

@@ -18,7 +18,7 @@ export { rangeCutoffMeV, rangeMaxMeV } from './rangeIntegral.js';
  *
  * Served from a cached per-species table (`cachedRange`): the node below T plus a
  * Gauss–Legendre integral over the rest of the step, so a call costs ~10 stopping-power
- * evaluations and agrees with the full integral to ≈ 1e-12.
+ * evaluations and agrees with the full integral to ≈ 1e-12 (the step is one 8-point panel).
  */
 
 function outside(source: string, particle: Particle, what: string, value: number, valid: string): number {
@@ -56,7 +56,7 @@ function rangeOf(particle: Particle, material: Material, t: number): number {
   while (i > 0 && c.kineticEnergyMeV[i] > t) i--;
   while (i < c.kineticEnergyMeV.length - 2 && c.kineticEnergyMeV[i + 1] <= t) i++;
   const ti = c.kineticEnergyMeV[i];
-  return t > ti ? c.csdaRangeGcm2[i] + integrateRange(particle, material, ti, t) : c.csdaRangeGcm2[i];
+  return t > ti ? c.csdaRangeGcm2[i] + integrateRange(particle, material, ti, t, c.kinks) : c.csdaRangeGcm2[i];
 }
 
 /**
@@ -78,8 +78,8 @@ export function csdaRange(particle: Particle, material: Material, kineticEnergyM
 /**
  * Kinetic energy [MeV] whose CSDA range is `rangeGcm2` [g/cm²]: the inverse of `csdaRange`,
  * from the cached table (cubic Hermite with slopes S) polished by one Newton step on the exact
- * integral (relative agreement with `csdaRange` ≈ 1e-12). About 1 µs a call once the table is
- * built. NaN + warning for a negative range or one beyond R(T_max).
+ * integral (relative agreement with `csdaRange` ≈ 1e-12): about 12 stopping-power evaluations a
+ * call once the table is built (bench: test/bench/matter.ts). NaN + warning for a negative range or one beyond R(T_max).
  * @example kineticEnergyFromRange(PROTON, material('water'), 7.718) // ≈ 100
  */
 export function kineticEnergyFromRange(particle: Particle, material: Material, rangeGcm2: number): number {
@@ -102,9 +102,13 @@ export function kineticEnergyFromRange(particle: Particle, material: Material, r
     if (r[mid] <= rangeGcm2) lo = mid; else hi = mid;
   }
   let tt = hermite(r[lo], r[hi], t[lo], t[hi], s[lo], s[hi], rangeGcm2);
-  for (let k = 0; k < 2; k++) {
-    const rt = tt > t[lo] ? r[lo] + integrateRange(particle, material, t[lo], tt) : r[lo];
-    tt += (rangeGcm2 - rt) * stoppingPowerUnchecked(particle, material, tt);
+  // Newton on the exact integral from node lo; the Hermite start is good to ≲ 2e-6 (1e-4 next
+  // to a kink), so one step reaches ≈ 1e-12 and a second is taken only when the first moved far.
+  for (let k = 0; k < 3; k++) {
+    const rt = tt > t[lo] ? r[lo] + integrateRange(particle, material, t[lo], tt, c.kinks) : r[lo] - integrateRange(particle, material, tt, t[lo], c.kinks);
+    const dt = (rangeGcm2 - rt) * stoppingPowerUnchecked(particle, material, tt);
+    tt += dt;
+    if (Math.abs(dt) < 1e-7 * tt) break;
   }
   return tt;
 }
@@ -147,7 +151,7 @@ export function csdaRangeFromMomentum(particle: Particle, material: Material, mo
 
 /**
  * Momentum [MeV/c] whose CSDA range is `rangeGcm2` [g/cm²]; inverse of `csdaRangeFromMomentum`,
- * served from the cached table like `kineticEnergyFromRange` (≈ 1 µs a call).
+ * served from the cached table like `kineticEnergyFromRange`.
  * @example momentumFromRange(MUON_PLUS, material('liquid-hydrogen'), 0.0995) // ≈ 29.79
  */
 export function momentumFromRange(particle: Particle, material: Material, rangeGcm2: number): number {

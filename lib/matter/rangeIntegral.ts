@@ -35,7 +35,7 @@ export function rangeMaxMeV(particle: Particle): number {
   return isElectronLike(particle) ? ELECTRON_MAX_MEV : kineticFromBetaGamma(particle, BETHE_MAX_BETA_GAMMA);
 }
 
-function kinks(particle: Particle, material: Material): number[] {
+export function rangeKinks(particle: Particle, material: Material): number[] {
   const p = material.densityEffect;
   const out = [kineticFromBetaGamma(particle, 10 ** p.x0), kineticFromBetaGamma(particle, 10 ** p.x1)];
   if (!isElectronLike(particle)) out.push((0.01 * particle.massMeV) / PROTON_MASS_MEV);
@@ -58,11 +58,11 @@ function integrateSmooth(particle: Particle, material: Material, t0: number, t1:
   return 0.5 * h * sum;
 }
 
-/** ∫ dT/S over [t0, t1] (t0 < t1, both ≥ the cutoff), split at the kinks. */
-export function integrateRange(particle: Particle, material: Material, t0: number, t1: number): number {
+/** ∫ dT/S over [t0, t1] (t0 < t1, both ≥ the cutoff), split at the kinks (`rangeKinks`, or given). */
+export function integrateRange(particle: Particle, material: Material, t0: number, t1: number, kinks: readonly number[] = rangeKinks(particle, material)): number {
   let sum = 0;
   let a = t0;
-  for (const k of kinks(particle, material)) {
+  for (const k of kinks) {
     if (k > a && k < t1) {
       sum += integrateSmooth(particle, material, a, k);
       a = k;
@@ -95,12 +95,14 @@ export interface CachedRange {
   readonly kineticEnergyMeV: Float64Array;
   readonly stoppingPowerMeVcm2g: Float64Array;
   readonly csdaRangeGcm2: Float64Array;
+  /** Energies where S has a kink [MeV] (`rangeKinks`). */
+  readonly kinks: readonly number[];
   /** ln T of node 0 and the node spacing in ln T. */
   readonly lnFrom: number;
   readonly step: number;
 }
 
-/** Node spacing of the cached tables in ln T (40 nodes per e-fold; Hermite error ≈ 1e-9). */
+/** Node spacing of the cached tables in ln T (40 nodes per e-fold; Hermite error ≲ 2e-6, up to 1e-4 in a cell holding a kink of S). */
 const CACHE_STEP = 0.025;
 const CACHE = new WeakMap<Material, Map<string, CachedRange>>();
 
@@ -128,9 +130,10 @@ export function cachedRange(particle: Particle, material: Material): CachedRange
     t[i] = i === n - 1 ? to : Math.exp(lnFrom + i * step);
     s[i] = stoppingPowerUnchecked(particle, material, t[i]);
   }
+  const kinks = Object.freeze(rangeKinks(particle, material));
   r[0] = rangeBelowCutoff(particle, material);
-  for (let i = 1; i < n; i++) r[i] = r[i - 1] + integrateRange(particle, material, t[i - 1], t[i]);
-  c = Object.freeze({ kineticEnergyMeV: t, stoppingPowerMeVcm2g: s, csdaRangeGcm2: r, lnFrom, step });
+  for (let i = 1; i < n; i++) r[i] = r[i - 1] + integrateRange(particle, material, t[i - 1], t[i], kinks);
+  c = Object.freeze({ kineticEnergyMeV: t, stoppingPowerMeVcm2g: s, csdaRangeGcm2: r, kinks, lnFrom, step });
   byParticle.set(key, c);
   return c;
 }
@@ -149,7 +152,8 @@ function lowExponent(c: CachedRange): number {
 
 /**
  * R(T) [g/cm²] by cubic Hermite on a cached table (slopes 1/S), with the cutoff law below node 0
- * and Infinity above the top: no checks, no warnings, ≈ 1e-9 relative — for per-step callers
+ * and Infinity above the top: no checks, no warnings, ≲ 2e-6 relative (1e-4 next to a kink of
+ * S, e.g. the 10 keV switch of the proton fits) — for per-step callers
  * (the chamber medium, track fits).
  */
 export function cachedRangeAt(c: CachedRange, kineticEnergyMeV: number): number {

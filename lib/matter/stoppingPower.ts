@@ -3,7 +3,7 @@ import { msg } from '../errors.js';
 import type { Particle } from '../particles.js';
 import { warn } from '../warnings.js';
 import { BETHE_MAX_BETA_GAMMA, kineticRangeText, warnOutside } from './bethe.js';
-import { heavyElectronicStopping, stoppingRegime } from './electronicStopping.js';
+import { hasLowEnergyFit, heavyElectronicStopping, stoppingRegime } from './electronicStopping.js';
 import { electronCollisionStoppingPower, electronRadiativeStoppingPower } from './electronLoss.js';
 import type { Material } from './materials.js';
 import { nuclearStoppingPower } from './nuclearStopping.js';
@@ -31,7 +31,7 @@ function heavyInRange(source: string, particle: Particle, t: number): boolean {
 }
 
 function warnExtrapolated(source: string, particle: Particle, material: Material, t: number): void {
-  if (stoppingRegime(particle, material, t) === 'extrapolated') {
+  if (!hasLowEnergyFit(material) && stoppingRegime(particle, material, t) === 'extrapolated') {
     warn('APPROXIMATION', `${source}: ${particle.name} in ${material.name} at T = ${Number(t.toPrecision(3))} MeV has no ICRU 49 low-energy fit at this energy (below the proton-equivalent 2 MeV, or 100 MeV for I > 400 eV); the value there is good to ~5–20 % only (lib/matter/README.md)`, source);
   }
 }

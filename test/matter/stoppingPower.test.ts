@@ -43,11 +43,17 @@ describe('massStoppingPower for heavy particles (Bethe)', () => {
     const d = massStoppingPower(PROTON, material('water'), 1) / 260.8 - 1;
     expect(Math.abs(d + 0.0026)).toBeLessThan(1.5e-3);
   });
-  it('reproduces the PDG minimum-ionisation dE/dx of the table materials within 1 %', () => {
-    // Source: PDG RPP "Atomic and Nuclear Properties", test/fixtures/pdg-materials/min-ionization.json.
+  it('reproduces the PDG minimum-ionisation dE/dx within 0.2 % per material (emulsion: its documented +0.43 %)', () => {
+    // Source: PDG RPP "Atomic and Nuclear Properties", test/fixtures/pdg-materials/min-ionization.json
+    // (rows marked (memory) there were recalled). Emulsion sits +0.43 % high (issue 15), asserted ±0.1.
+    let checked = 0;
     for (const row of pdgMin.rows) {
-      expect(rel(minimumIonisation(row.material), row.minDedx), row.material).toBeLessThan(0.01);
+      const d = minimumIonisation(row.material) / row.minDedx - 1;
+      if (row.material === 'nuclear-emulsion') expect(Math.abs(d - 0.0043), row.material).toBeLessThan(1e-3);
+      else expect(Math.abs(d), row.material).toBeLessThan(2e-3);
+      checked++;
     }
+    expect(checked).toBe(pdgMin.rows.length);
   });
   it('scales with z²: an alpha at the same βγ loses 4× a proton’s', () => {
     // Common practice: Bethe ∝ z² at fixed β (T_max differs slightly through M; checked at βγ = 1).
