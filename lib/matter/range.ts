@@ -37,7 +37,7 @@ function warnIfExtrapolated(source: string, particle: Particle, material: Materi
   const tEnd = material.meanExcitationEV > 400 ? 100 * scale : 2 * scale;
   const part = rangeOf(particle, material, Math.min(kineticEnergyMeV, tEnd)) / rangeOf(particle, material, kineticEnergyMeV);
   if (part > 0.05) {
-    warn('APPROXIMATION', `${source}: ${material.name} has no ICRU 49 low-energy fit; ${Math.round(100 * part)} % of this range lies below the proton-equivalent ${material.meanExcitationEV > 400 ? 100 : 2} MeV, where it rests on a scaled reference curve good to ~5–20 % (lib/matter/README.md)`, source);
+    warn('APPROXIMATION', `${source}: ${material.name} has no ICRU 49 low-energy fit; ${Math.round(100 * part)} % of this range lies below the proton-equivalent ${material.meanExcitationEV > 400 ? 100 : 2} MeV, where it rests on the no-fit approximations (good to ~5–20 %, lib/matter/README.md)`, source);
   }
 }
 
