@@ -20,10 +20,9 @@ import { MATERIALS, type Material } from './materials.js';
  *  - 'extrapolated': a material without a fit (elements and compounds not in the fit list,
  *    user mixtures) below the proton-equivalent 2 MeV: the proton curve of the fitted material
  *    nearest in ln I, scaled by the ratio of the two Bethe values at 2 MeV (the stopping-ratio
- *    approximation, common practice: ratios of stopping powers vary slowly with energy). Tried
- *    on the fitted materials themselves (leave one out) it is good to ~5 % above 0.3 MeV and
- *    ~15 % at the Bragg peak (silicon from aluminium: −12 % to +1 %; lead from copper: −19 % to
- *    +14 %); the public functions warn (APPROXIMATION) when they use it. For I > 400 eV the
+ *    approximation, common practice: ratios of stopping powers vary slowly with energy).
+ *    Checked against PSTAR on silicon (from aluminium: −12 % to +1 % below 2 MeV) and lead (from
+ *    copper: −19 % to +14 %); the public functions warn (APPROXIMATION) when they use it. For I > 400 eV the
  *    regime extends to 100 MeV (see HIGH_Z_SHELL_MIN_I_EV).
  *  - alphas in a material without a helium fit: z_eff²·S_p at the same velocity with the
  *    Ziegler–Biersack–Littmark effective charge (`heliumEffectiveCharge.ts`).
