@@ -7,6 +7,7 @@ export * from './units.js';
 export * from './provenance.js';
 export * from './display.js';
 export * from './io/index.js';
+export * from './find/index.js';
 export * from './fit/index.js';
 export * from './track/index.js';
 export * from './analysis/index.js';

@@ -46,7 +46,7 @@ export const FIND_TRACKS_DEFAULTS = Object.freeze({
   window: 8,
   minHits: 5,
   maxMissingHits: 2,
-  scatterRad: 0.01,
+  scatterRad: 0.05,
   originM: Object.freeze([0, 0, 0]) as readonly [number, number, number],
   /** Hit error, as a fraction of the spacing, when the hits carry none and none is given. */
   errorPerSpacing: 0.03,
