@@ -26,7 +26,10 @@ export type SagittaErrorCode =
   | 'BAD_SCENARIO'
   | 'BAD_NOTEBOOK'
   | 'OUTSIDE_VALIDITY'
-  | 'CANNOT_WRITE';
+  | 'CANNOT_WRITE'
+  | 'CANNOT_READ'
+  | 'BAD_ID'
+  | 'OUTPUT_CLASH';
 
 /** Where in an input a problem sits; all fields optional so callers fill what they know. */
 export interface SourceLocation {
@@ -112,10 +115,26 @@ export const msg = {
   badNotebook: (file: string, detail: string) =>
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),
 
-  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
+  /** An output that cannot be written where asked (missing folder, not writable, a directory). */
   cannotWrite: (path: string, reason: string, fix: string) =>
     new SagittaError('CANNOT_WRITE', `${path}: cannot write here (${reason}); ${fix}`, { file: path }),
 
+  /** An input that exists but cannot be read (a folder, no permission, an I/O error). */
+  cannotRead: (path: string, reason: string, fix: string) =>
+    new SagittaError('CANNOT_READ', `${path}: cannot read (${reason}); ${fix}`, { file: path }),
+
+  badId: (file: string, line: number, column: string, text: string, why: string) =>
+    new SagittaError('BAD_ID', located({ file, line, column }, `${JSON.stringify(text)} ${why}`), { file, line, column }),
+
+  /** A hit file streamed to standard output whose events turned out not to be grouped. */
+  notGrouped: (file: string) =>
+    new SagittaError('BAD_ROW', `${file}: the hits of an event are not together (an event appears again after others), so the file cannot be streamed to standard output; write the results to a file with --out, or sort the file by event (the rows printed so far are incomplete)`, { file }),
+
+  /** Two paths of one command that are the same file (an output over an input, or two outputs). */
+  outputClash: (flag: string, path: string, other: string, otherPath: string) =>
+    new SagittaError('OUTPUT_CLASH', `${flag} ${path} is the same file as ${other} ${otherPath}; choose another path (nothing was written)`, { file: path }),
+
+  /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
   outsideValidity: (what: string, value: string, valid: string) =>
     new SagittaError('OUTSIDE_VALIDITY', `${what} ${value} is outside the validity range ${valid}; choose a value inside it`),
 } as const;

@@ -11,6 +11,8 @@ export * from './find/index.js';
 export * from './fit/index.js';
 export * from './track/index.js';
 export * from './analysis/index.js';
+export * from './vertex/index.js';
+export * from './beam/index.js';
 export * from './plot/index.js';
 export * from './matter/index.js';
 export * from './simulate/index.js';

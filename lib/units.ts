@@ -14,6 +14,8 @@ import { msg, type SourceLocation } from './errors.js';
  * | momentum  | GeV/c         |
  * | voltage   | volt          |
  * | current   | ampere        |
+ * | angle     | radian        |
+ * | areal density (mass thickness) | g/cm²  |
  *
  * mathjs has no gauss; it is added here (1 G = 1e-4 T, with SI prefixes so "kG" works), because
  * older chamber logbooks give fields in kilogauss.
@@ -41,10 +43,12 @@ export const DIRECT_UNITS: Readonly<Record<Dimension, Readonly<Record<string, nu
   momentum: { eV: 1e-9, keV: 1e-6, MeV: 1e-3, GeV: 1, TeV: 1e3 },
   voltage: { V: 1, mV: 1e-3, kV: 1e3 },
   current: { A: 1, mA: 1e-3, kA: 1e3 },
+  angle: { rad: 1, mrad: 1e-3, urad: 1e-6, deg: Math.PI / 180, degree: Math.PI / 180 },
+  arealDensity: { 'g/cm2': 1, 'mg/cm2': 1e-3, 'ug/cm2': 1e-6, 'kg/m2': 0.1, 'g/m2': 1e-4 },
 });
-const DIRECT = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*([A-Za-zµμ]+)$/;
+const DIRECT = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*([A-Za-zµμ°][A-Za-z0-9µμ/]*)$/;
 
-export type Dimension = 'field' | 'length' | 'energy' | 'momentum' | 'voltage' | 'current';
+export type Dimension = 'field' | 'length' | 'energy' | 'momentum' | 'voltage' | 'current' | 'angle' | 'arealDensity';
 
 interface DimensionSpec {
   readonly base: string;
@@ -61,6 +65,9 @@ const SPECS: Readonly<Record<Dimension, DimensionSpec>> = Object.freeze({
   momentum: { base: 'ENERGY', internal: 'GeV', label: 'a momentum', example: '2.1 GeV/c' },
   voltage: { base: 'ELECTRIC_POTENTIAL', internal: 'V', label: 'a voltage', example: '250 V' },
   current: { base: 'CURRENT', internal: 'A', label: 'a current', example: '1.2 A' },
+  angle: { base: 'ANGLE', internal: 'rad', label: 'an angle', example: '3 mrad' },
+  // mathjs reads "g/cm^2"; "g/cm2" and "g/cm²" are normalised to it first.
+  arealDensity: { base: 'SURFACE_DENSITY', internal: 'g/cm^2', label: 'an areal density', example: '7 g/cm2' },
 });
 
 export interface QuantityOptions {
@@ -84,6 +91,8 @@ export function quantity(text: string, dimension: Dimension, options: QuantityOp
   const where = options.where ?? {};
   let s = String(text).trim();
   if (dimension === 'momentum') s = s.replace(/\s*\/\s*c\s*$/i, '');
+  // Mass thickness is written "g/cm2", "g/cm^2" or "g/cm²"; the direct table spells it the first way.
+  if (dimension === 'arealDensity') s = s.replace(/\s*\/\s*/g, '/').replace(/(cm|m)(?:\^2|²)(?=\)?$)/, (_, l: string) => `${l}2`);
   if (s === '') throw msg.badQuantity(text, what, spec.example, where);
   if (BARE_NUMBER.test(s)) {
     if (options.defaultUnit === undefined) throw msg.missingUnit(text, what, spec.example, where);
@@ -97,7 +106,7 @@ export function quantity(text: string, dimension: Dimension, options: QuantityOp
   const math = mathjs();
   let u: Unit;
   try {
-    const parsed: unknown = math.evaluate(s);
+    const parsed: unknown = math.evaluate(dimension === 'arealDensity' ? s.replace(/(cm|m)2(?=\)?$)/, (_, l: string) => `${l}^2`) : s);
     if (!math.isUnit(parsed)) throw new Error('not a unit');
     u = parsed;
   } catch {
@@ -115,6 +124,10 @@ export const lengthMetres = (text: string, options?: QuantityOptions): number =>
 export const energyMeV = (text: string, options?: QuantityOptions): number => quantity(text, 'energy', options);
 /** "2.1 GeV/c" | "350 MeV/c" → GeV/c. */
 export const momentumGeV = (text: string, options?: QuantityOptions): number => quantity(text, 'momentum', options);
+/** "3 mrad" | "0.5 deg" → radians. */
+export const angleRad = (text: string, options?: QuantityOptions): number => quantity(text, 'angle', options);
+/** "7 g/cm2" | "7 g/cm^2" | "70 kg/m2" → g/cm². */
+export const arealDensityGcm2 = (text: string, options?: QuantityOptions): number => quantity(text, 'arealDensity', options);
 
 /**
  * Metres per unit for a length unit name as written in a table header ("mm", "cm", "um", "µm",
@@ -134,9 +147,4 @@ export function metresPerUnit(unit: string, where: SourceLocation = {}): number 
   }
   if (!u.equalBase(math.unit('m'))) throw msg.unknownUnit(unit, 'a length', 'um, mm, cm, m', where);
   return u.toNumber('m');
-}
-
-/** Formats a number in an internal unit with a unit label, for summaries: fmt(1.5, 'T') → "1.5 T". */
-export function formatQuantity(value: number, unit: string, digits = 4): string {
-  return `${Number(value.toPrecision(digits))} ${unit}`;
 }

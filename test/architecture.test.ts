@@ -31,6 +31,23 @@ describe('architecture', () => {
     const lines = readFileSync(join(root, 'lib/index.ts'), 'utf8').split('\n').filter((l) => l.trim() && !l.trim().startsWith('//'));
     expect(lines.filter((l) => !/^export (\*|\{[^}]*\}|type \{[^}]*\}) from '/.test(l.trim()))).toEqual([]);
   });
+  it('lib/simulate imports from lib/vertex only its dependency-free kinematics leaves', () => {
+    const allowed = new Set(['twoBodyMomentum', 'fourVector', 'lorentzBoost']);
+    const offenders = libFiles.filter((f) => f.path.startsWith('lib/simulate/')).flatMap((f) =>
+      [...f.text.matchAll(/from\s+['"]\.\.\/vertex\/([\w]+)\.js['"]/g)].map((m) => m[1]).filter((name) => !allowed.has(name)).map((name) => `${f.path} → vertex/${name}`));
+    expect(offenders).toEqual([]);
+  });
+  it('lib/simulate imports from lib/vertex only its dependency-free kinematics leaves', () => {
+    const allowed = new Set(['twoBodyMomentum', 'fourVector', 'lorentzBoost']);
+    const offenders = libFiles.filter((f) => f.path.startsWith('lib/simulate/')).flatMap((f) =>
+      [...f.text.matchAll(/from\s+['"]\.\.\/vertex\/(\w+)\.js['"]/g)].map((m) => m[1]).filter((name) => !allowed.has(name)).map((name) => `${f.path} → vertex/${name}`));
+    expect(offenders).toEqual([]);
+    for (const name of allowed) {
+      const leaf = libFiles.find((f) => f.path === `lib/vertex/${name}.ts`);
+      expect(leaf, name).toBeDefined();
+      expect(leaf!.text.match(/from\s+['"][^'"]+['"]/g) ?? []).toEqual((leaf!.text.match(/from\s+['"]\.\/(fourVector|twoBodyMomentum)\.js['"]/g) ?? []));
+    }
+  });
   it('nothing in the project reads the shared planning folder at run time', () => {
     const all = [...libFiles, ...tsFiles(join(root, 'kernel')).map((p) => ({ path: relative(root, p), text: readFileSync(p, 'utf8') }))];
     expect(all.filter((f) => f.text.includes('../shared')).map((f) => f.path)).toEqual([]);

@@ -48,3 +48,17 @@ describe('units read without mathjs agree with mathjs', () => {
     }
   });
 });
+
+describe('angles and areal densities (one parser for the scenario and the range command)', () => {
+  it('angleRad("3 mrad") = 0.003, angleRad("0.5 deg") = π/360; a length is the wrong dimension', async () => {
+    const { angleRad } = await import('../lib/units.js');
+    expect(angleRad('3 mrad')).toBe(0.003);
+    expect(angleRad('0.5 deg')).toBeCloseTo(Math.PI / 360, 15);
+    expect(() => angleRad('3 mm')).toThrow(/is not an angle/);
+  });
+  it('arealDensityGcm2 reads g/cm2, g/cm^2, g/cm², g / cm2 and kg/m2 alike (1 kg/m² = 0.1 g/cm²)', async () => {
+    const { arealDensityGcm2 } = await import('../lib/units.js');
+    for (const t of ['7 g/cm2', '7 g/cm^2', '7 g/cm²', '7 g / cm2', '70 kg/m2']) expect([t, arealDensityGcm2(t)]).toEqual([t, 7]);
+    expect(() => arealDensityGcm2('7 cm')).toThrow(/is not an areal density/);
+  });
+});

@@ -13,9 +13,10 @@
  * This is the curvature form of Karimäki, NIM A305 (1991) 187, with the sign of d0 chosen so
  * that d0 ≈ −(signed residual of the reference point).
  */
-export type FitStatus = 'ok' | 'too-few-hits' | 'degenerate' | 'not-converged' | 'bad-input';
+/** `method-error`: a method written with `defineFitMethod` threw or gave no curvature on this track. */
+export type FitStatus = 'ok' | 'too-few-hits' | 'degenerate' | 'not-converged' | 'bad-input' | 'method-error';
 
-export const FIT_STATUS: readonly FitStatus[] = ['ok', 'too-few-hits', 'degenerate', 'not-converged', 'bad-input'];
+export const FIT_STATUS: readonly FitStatus[] = ['ok', 'too-few-hits', 'degenerate', 'not-converged', 'bad-input', 'method-error'];
 
 export interface CircleFit {
   readonly kappa: number;
@@ -79,7 +80,7 @@ export function allocateCircleFits(count: number): CircleFitColumns {
 }
 
 export const STATUS_CODE: Readonly<Record<FitStatus, number>> = Object.freeze({
-  ok: 0, 'too-few-hits': 1, degenerate: 2, 'not-converged': 3, 'bad-input': 4,
+  ok: 0, 'too-few-hits': 1, degenerate: 2, 'not-converged': 3, 'bad-input': 4, 'method-error': 5,
 });
 
 /** Reads fit k out of the columns as a CircleFit object. */

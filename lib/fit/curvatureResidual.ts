@@ -12,6 +12,8 @@
  *     ∂r/∂Q = (κa·t + (κB − 1)·n)/S   (a unit vector: the direction of the residual)
  */
 
+import type { TrackSpan } from './trackSpan.js';
+
 /** Output slot for (κ, φ, d). */
 export interface TrackParams {
   kappa: number;
@@ -53,17 +55,31 @@ export function extent(x: Float64Array, y: Float64Array, from: number, to: numbe
   return Math.sqrt(m);
 }
 
+/** Scratch of `normalEquations`: the parameters it is evaluated at and what it fills. */
+export interface NormalScratch {
+  readonly params: TrackParams;
+  /** Upper triangle of JᵀWJ (6 numbers). */
+  readonly normal: Float64Array;
+  /** JᵀWr (3 numbers). */
+  readonly gradient: Float64Array;
+}
+
+export function newNormalScratch(): NormalScratch {
+  return { params: { kappa: 0, phi: 0, d: 0 }, normal: new Float64Array(6), gradient: new Float64Array(3) };
+}
+
 /**
- * Normal equations of the geometric fit at (κ, φ, d): fills `A` (6 numbers, upper triangle of
- * JᵀWJ: κκ, κφ, κd, φφ, φd, dd) and `g` (JᵀWr, 3 numbers) and returns χ² = Σ w r².
- * Weights: `w` per hit (1/σ² for isotropic errors, precomputed by the caller) or, when the
- * errors differ in x and y, `sx`/`sy` — then the weight uses the error along the residual
- * direction ∂r/∂Q. Neither: unit weights.
+ * Normal equations of the geometric fit of one track at (κ, φ, d) about the reference point
+ * (xr, yr): fills `A` (6 numbers, upper triangle of JᵀWJ: κκ, κφ, κd, φφ, φd, dd) and `g`
+ * (JᵀWr, 3 numbers) and returns χ² = Σ w r².
+ * Weights: the prepared per-hit weights (1/σ² for round errors, 1 when the errors are unknown)
+ * or, when some hit has σx ≠ σy, the error along the residual direction ∂r/∂Q of each hit.
  */
-export function normalEquations(
-  x: Float64Array, y: Float64Array, w: Float64Array | undefined, sx: Float64Array | undefined, sy: Float64Array | undefined,
-  from: number, to: number, xr: number, yr: number, p: TrackParams, A: Float64Array, g: Float64Array,
-): number {
+export function normalEquations(span: TrackSpan, xr: number, yr: number, p: TrackParams, A: Float64Array, g: Float64Array): number {
+  const { x, y, weights: w } = span.hits;
+  const sx = span.hits.anisotropic ? span.hits.sigmaX : undefined;
+  const sy = span.hits.sigmaY;
+  const { from, to } = span;
   const { kappa, phi, d } = p;
   const c = Math.cos(phi), s = Math.sin(phi);
   const oneMinusKd = 1 - kappa * d;
@@ -86,7 +102,7 @@ export function normalEquations(
       const gx = (kappa * a * c - kB1 * s) * iS, gy = (kappa * a * s + kB1 * c) * iS;
       const ex = sx[i], ey = sy![i];
       wi = 1 / (ex * ex * gx * gx + ey * ey * gy * gy);
-    } else if (w !== undefined) {
+    } else {
       wi = w[i];
     }
     const wjk = wi * jk, wjp = wi * jp, wjd = wi * jd;

@@ -1,6 +1,9 @@
 import { circleFitAt, FIT_STATUS, type CircleFit, type CircleFitColumns } from './circleFit.js';
-import { fitCircles, type CircleFitOptions, type PlaneHits } from './fitCircles.js';
+import { CIRCLE_FIT_DEFAULTS, fitCircles, sigmaColumn, type CircleFitOptions, type PlaneHits } from './fitCircles.js';
+import { fitMethod } from './fitMethods.js';
+import { arcLengthsAndSlopes, newArcLengthSlopes, type CircleAt, type PointRows } from './arcLengths.js';
 import { lineFitInto, newLineScratch } from './fitLine.js';
+import { preparePlaneHits } from './preparePlaneHits.js';
 import { msg } from '../errors.js';
 
 /** Hits with the coordinate along the field. */
@@ -35,78 +38,12 @@ export interface HelixFit {
   readonly status: CircleFit['status'];
 }
 
-/**
- * Arc length [m] of each hit along the fitted circle from the point of closest approach to the
- * reference point, unwrapped in hit order so spirals of several turns are measured in full.
- * Turning angle ψ = atan2(κa, 1 − κB) (a, B as in curvatureResidual.ts), s = ψ/κ (s = a at κ = 0).
- */
-export function arcLengths(x: Float64Array, y: Float64Array, from: number, to: number, kappa: number, phi: number, d: number, xr: number, yr: number, out: Float64Array): void {
-  const c = Math.cos(phi), s = Math.sin(phi);
-  let prev = 0;
-  let turns = 0;
-  for (let i = from; i < to; i++) {
-    const dx = x[i] - xr, dy = y[i] - yr;
-    const a = dx * c + dy * s;
-    const B = -dx * s + dy * c + d;
-    if (kappa === 0) {
-      out[i - from] = a;
-      continue;
-    }
-    let psi = Math.atan2(kappa * a, 1 - kappa * B) * Math.sign(kappa) + turns;
-    // Unwrap: consecutive hits are less than half a turn apart.
-    while (psi - prev > Math.PI) { psi -= 2 * Math.PI; turns -= 2 * Math.PI; }
-    while (psi - prev < -Math.PI) { psi += 2 * Math.PI; turns += 2 * Math.PI; }
-    prev = psi;
-    out[i - from] = psi / Math.abs(kappa);
-  }
-}
-
-/**
- * Arc lengths as `arcLengths`, plus their derivatives with respect to the circle parameters,
- * in the same single pass (one atan2 per hit). With N = κa, D = 1 − κB, Q = N² + D², ψ = atan2(N, D):
- *     ∂s/∂φ = (D·b − N·a)/Q,   ∂s/∂d = N/Q,   ∂s/∂κ = ((D·a + N·B)/Q − s)/κ
- * (b = B − d). For a nearly straight piece (|κa|, |κB| < 1e-4) ∂s/∂κ uses the series
- * s ≈ a + κaB + κ²(aB² − a³/3), whose derivative avoids the cancellation.
- */
-export function arcLengthsAndSlopes(
-  x: Float64Array, y: Float64Array, from: number, to: number, kappa: number, phi: number, d: number, xr: number, yr: number,
-  s: Float64Array, dsK: Float64Array, dsP: Float64Array, dsD: Float64Array,
-): void {
-  const c = Math.cos(phi), sn = Math.sin(phi);
-  let prev = 0;
-  let turns = 0;
-  for (let i = from; i < to; i++) {
-    const j = i - from;
-    const dx = x[i] - xr, dy = y[i] - yr;
-    const a = dx * c + dy * sn;
-    const b = -dx * sn + dy * c;
-    const B = b + d;
-    const N = kappa * a, D = 1 - kappa * B;
-    const Q = N * N + D * D;
-    dsP[j] = (D * b - N * a) / Q;
-    dsD[j] = N / Q;
-    if (kappa === 0) {
-      s[j] = a;
-      dsK[j] = a * B;
-      continue;
-    }
-    let psi = Math.atan2(N, D) + turns;
-    while (psi - prev > Math.PI) { psi -= 2 * Math.PI; turns -= 2 * Math.PI; }
-    while (psi - prev < -Math.PI) { psi += 2 * Math.PI; turns += 2 * Math.PI; }
-    prev = psi;
-    const sj = psi / kappa;
-    s[j] = sj;
-    dsK[j] = turns === 0 && Math.abs(N) + Math.abs(kappa * B) < 1e-4
-      ? a * B + 2 * kappa * (a * B * B - (a * a * a) / 3)
-      : ((D * a + N * B) / Q - sj) / kappa;
-  }
-}
-
 const SYM5 = [0, 1, 2, 3, 4, 1, 5, 6, 7, 8, 2, 6, 9, 10, 11, 3, 7, 10, 12, 13, 4, 8, 11, 13, 14];
 
 /**
- * Helix fit of every track: the circle in x–y (method as in fitCircles), then a straight line
- * z = z0 + tanλ·s in arc length (the two-step helix fit; common practice in gas trackers).
+ * Helix fit of every track. A circle method (`options.method`, as in fitCircles) fits x–y, then a
+ * straight line z = z0 + tanλ·s in arc length follows (the two-step helix fit; common practice
+ * in gas trackers); a method that fits whole helices (e.g. with material effects) does it all.
  * The joint covariance propagates the circle's covariance into (z0, tanλ) through ∂s/∂(κ,φ,d),
  * plus the line fit's own covariance (z weights by effective variance, see below):
  *     C = [[Cc, Cc Gᵀ], [G Cc, G Cc Gᵀ + Cl]],  G = ∂(z0, tanλ)/∂(κ, φ0, d0).
@@ -114,7 +51,10 @@ const SYM5 = [0, 1, 2, 3, 4, 1, 5, 6, 7, 8, 2, 6, 9, 10, 11, 3, 7, 10, 12, 13, 4
  */
 export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: CircleFitOptions = {}): HelixFitColumns {
   if (hits.z.length !== hits.x.length) throw msg.badArgument('z.length', hits.z.length, `${hits.x.length} (one z per hit)`);
-  const circle = fitCircles(hits, offsets, options);
+  const method = fitMethod(options.method ?? CIRCLE_FIT_DEFAULTS.method);
+  const prepared = preparePlaneHits(hits);
+  if (method.measures === 'helix') return method.fitTracks({ ...hits, prepared }, offsets, options);
+  const circle = fitCircles(prepared, offsets, options);
   const count = circle.count;
   const z0 = new Float64Array(count).fill(NaN);
   const tanLambda = new Float64Array(count).fill(NaN);
@@ -122,26 +62,30 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
   const chi2Z = new Float64Array(count).fill(NaN);
   const ndfZ = new Int32Array(count);
   // Scratch, grown as needed; nothing is allocated per track.
-  let s = new Float64Array(64), w = new Float64Array(64);
-  let dsK = new Float64Array(64), dsP = new Float64Array(64), dsD = new Float64Array(64);
+  let w = new Float64Array(64);
+  let arcs = newArcLengthSlopes(64);
+  const rows: PointRows = { x: hits.x, y: hits.y, from: 0, to: 0 };
+  const at: CircleAt = { kappa: 0, phi: 0, d: 0, xRef: 0, yRef: 0 };
   const line = newLineScratch();
   const G = new Float64Array(6);
   const GC = new Float64Array(6);
   const full = new Float64Array(25);
-  const { x, y, z } = hits;
+  const { z } = hits;
   for (let k = 0; k < count; k++) {
     const from = offsets[k], to = offsets[k + 1];
     const n = to - from;
     ndfZ[k] = Math.max(0, n - 2);
     const st = FIT_STATUS[circle.status[k]];
     if (st !== 'ok' && st !== 'not-converged') continue;
-    if (s.length < n) {
-      s = new Float64Array(2 * n); w = new Float64Array(2 * n);
-      dsK = new Float64Array(2 * n); dsP = new Float64Array(2 * n); dsD = new Float64Array(2 * n);
+    if (w.length < n) {
+      w = new Float64Array(2 * n);
+      arcs = newArcLengthSlopes(2 * n);
     }
-    const kap = circle.kappa[k], phi = circle.phi0[k], d = circle.d0[k], xr = circle.xRef[k], yr = circle.yRef[k];
+    rows.from = from; rows.to = to;
+    at.kappa = circle.kappa[k]; at.phi = circle.phi0[k]; at.d = circle.d0[k]; at.xRef = circle.xRef[k]; at.yRef = circle.yRef[k];
     const zs = z.subarray(from, to);
-    arcLengthsAndSlopes(x, y, from, to, kap, phi, d, xr, yr, s, dsK, dsP, dsD);
+    arcLengthsAndSlopes(rows, at, arcs);
+    const { s, dsK, dsP, dsD } = arcs;
     let weights: Float64Array | undefined;
     if (hits.sigmaZ) {
       for (let i = 0; i < n; i++) { const e = hits.sigmaZ[from + i]; w[i] = 1 / (e * e); }
@@ -201,7 +145,7 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
 }
 
 /** Reads helix fit k as an object with the full 5×5 covariance. */
-export function helixFitAt(fits: HelixFitColumns, k: number): HelixFit {
+function helixFitAt(fits: HelixFitColumns, k: number): HelixFit {
   const circle = circleFitAt(fits.circle, k);
   const cov = new Float64Array(25);
   for (let i = 0; i < 25; i++) cov[i] = fits.cov[15 * k + SYM5[i]];
@@ -225,16 +169,7 @@ export function fitHelix(
   options: CircleFitOptions & { sigma?: Float64Array | number; sigmaZ?: Float64Array | number } = {},
 ): HelixFit {
   const n = x.length;
-  const col = (v: Float64Array | number | undefined, name: string): Float64Array | undefined => {
-    if (v === undefined) return undefined;
-    if (typeof v === 'number') {
-      if (!(v > 0)) throw msg.badArgument(name, v, 'a positive error in metres');
-      return new Float64Array(n).fill(v);
-    }
-    if (v.length !== n) throw msg.badArgument(`${name}.length`, v.length, `${n} (one per hit)`);
-    return v;
-  };
-  const sigma = col(options.sigma, 'sigma');
-  const fits = fitHelices({ x, y, z, sigmaX: sigma, sigmaY: sigma, sigmaZ: col(options.sigmaZ, 'sigmaZ') }, Int32Array.of(0, n), options);
+  const sigma = sigmaColumn(options.sigma, n);
+  const fits = fitHelices({ x, y, z, sigmaX: sigma, sigmaY: sigma, sigmaZ: sigmaColumn(options.sigmaZ, n, 'sigmaZ') }, Int32Array.of(0, n), options);
   return helixFitAt(fits, 0);
 }

@@ -1,8 +1,14 @@
 import { STATUS_CODE, type CircleFitColumns } from './circleFit.js';
-import { taubinCircle, finishCovariance, type Circle } from './algebraicCircle.js';
+import { newCircle, type Circle } from './algebraicCircle.js';
+import { fitCircleBatch } from './circleBatch.js';
+import { finishCovariance } from './circleCovariance.js';
+import { newCircleMoments, type CircleMoments } from './circleMoments.js';
 import { extent, invertSym3, normalEquations, paramsFromCentre, paramsFromLine, type TrackParams } from './curvatureResidual.js';
+import type { CircleFitMethod } from './fitMethod.js';
+import { taubinCircle } from './taubinCircle.js';
+import type { TrackSpan } from './trackSpan.js';
 
-/** Options of the geometric fit. */
+/** Settings of the geometric fit. */
 export interface GeometricFitOptions {
   /** Iteration limit. */
   readonly maxIterations?: number;
@@ -16,15 +22,22 @@ export interface GeometricFitOptions {
 
 export const GEOMETRIC_FIT_DEFAULTS = Object.freeze({ maxIterations: 100, tolerance: 1e-12, chi2Tolerance: 1e-9 });
 
-const A = new Float64Array(6);
-const G = new Float64Array(3);
-const Aprev = new Float64Array(6);
-const Gprev = new Float64Array(3);
-const INV = new Float64Array(6);
-const DAMPED = new Float64Array(6);
-const P: TrackParams = { kappa: 0, phi: 0, d: 0 };
-const PREV: TrackParams = { kappa: 0, phi: 0, d: 0 };
-const START: Circle = { xc: 0, yc: 0, radius: 0, sense: 1 };
+/** Working storage of one geometric fit (allocate once per batch with `newGeometricScratch`). */
+export interface GeometricScratch {
+  readonly A: Float64Array; readonly G: Float64Array;
+  readonly Aprev: Float64Array; readonly Gprev: Float64Array;
+  readonly inverse: Float64Array; readonly damped: Float64Array;
+  readonly p: TrackParams; readonly prev: TrackParams;
+  readonly start: Circle; readonly moments: CircleMoments;
+}
+
+export function newGeometricScratch(): GeometricScratch {
+  return {
+    A: new Float64Array(6), G: new Float64Array(3), Aprev: new Float64Array(6), Gprev: new Float64Array(3),
+    inverse: new Float64Array(6), damped: new Float64Array(6),
+    p: { kappa: 0, phi: 0, d: 0 }, prev: { kappa: 0, phi: 0, d: 0 }, start: newCircle(), moments: newCircleMoments(),
+  };
+}
 
 /**
  * Geometric (orthogonal-distance) least-squares circle fit in the (κ, φ, d) parametrisation,
@@ -35,14 +48,15 @@ const START: Circle = { xc: 0, yc: 0, radius: 0, sense: 1 };
  * unknown hit errors are estimated from the residuals.
  * Works for straight tracks (κ → 0) and for spirals of several turns.
  */
-export function geometricCircleInto(
-  x: Float64Array, y: Float64Array, w: Float64Array | undefined, sx: Float64Array | undefined, sy: Float64Array | undefined,
-  from: number, to: number, out: CircleFitColumns, k: number,
-  maxIterations: number = GEOMETRIC_FIT_DEFAULTS.maxIterations, tolerance: number = GEOMETRIC_FIT_DEFAULTS.tolerance,
-  chi2Tolerance: number = GEOMETRIC_FIT_DEFAULTS.chi2Tolerance,
+export function geometricCircle(
+  span: TrackSpan, out: CircleFitColumns, k: number, scratch: GeometricScratch, settings: Required<GeometricFitOptions>,
 ): void {
+  const { x, y } = span.hits;
+  const { from, to } = span;
+  const { maxIterations, tolerance, chi2Tolerance } = settings;
+  const { A, G, Aprev, Gprev, inverse: INV, damped: DAMPED, p: P, prev: PREV, start: START } = scratch;
   const xr = x[from], yr = y[from];
-  const errorsUnknown = w === undefined && sx === undefined;
+  const errorsUnknown = !span.hits.errorsKnown;
   const scale = extent(x, y, from, to, xr, yr);
   if (!(scale > 0)) {
     // Every hit on one point: no circle to fit.
@@ -54,12 +68,12 @@ export function geometricCircleInto(
     out.cov.fill(NaN, 6 * k, 6 * k + 6);
     return;
   }
-  if (taubinCircle(x, y, w, from, to, START) && START.radius < 1e6 * scale) {
+  if (taubinCircle(span, START, scratch.moments) && START.radius < 1e6 * scale) {
     paramsFromCentre(START.xc, START.yc, START.radius, START.sense, xr, yr, P);
   } else {
     paramsFromLine(x, y, from, to, P);
   }
-  let chi2 = normalEquations(x, y, w, sx, sy, from, to, xr, yr, P, A, G);
+  let chi2 = normalEquations(span, xr, yr, P, A, G);
   let lambda = 0;
   let iterations = 0;
   let converged = false;
@@ -90,12 +104,12 @@ export function geometricCircleInto(
     if (lambda === 0 && gain < chi2Tolerance) {
       // Converged: the full Gauss–Newton step changes χ² by less than the tolerance. Take it and
       // evaluate the normal matrix there for the covariance.
-      chi2 = normalEquations(x, y, w, sx, sy, from, to, xr, yr, P, A, G);
+      chi2 = normalEquations(span, xr, yr, P, A, G);
       converged = true;
       iterations++;
       break;
     }
-    const trial = normalEquations(x, y, w, sx, sy, from, to, xr, yr, P, A, G);
+    const trial = normalEquations(span, xr, yr, P, A, G);
     const movement = Math.abs(dk) * scale * scale * 0.5 + Math.abs(dp) * scale + Math.abs(dd);
     if (trial <= chi2 || !(chi2 > 0)) {
       chi2 = trial;
@@ -131,3 +145,19 @@ export function geometricCircleInto(
   out.status[k] = converged && Number.isFinite(chi2) ? STATUS_CODE.ok : STATUS_CODE['not-converged'];
   finishCovariance(out, k, errorsUnknown, A);
 }
+
+/** The geometric fit as a registry method. */
+export const GEOMETRIC_METHOD: CircleFitMethod = Object.freeze<CircleFitMethod>({
+  name: 'geometric',
+  summary: 'orthogonal-distance least squares in (κ, φ0, d0), iterated from Taubin (Karimäki 1991; Marquardt damping)',
+  measures: 'circle' as const,
+  fitTracks(hits, offsets, context) {
+    const scratch = newGeometricScratch();
+    const settings = {
+      maxIterations: context.maxIterations ?? GEOMETRIC_FIT_DEFAULTS.maxIterations,
+      tolerance: context.tolerance ?? GEOMETRIC_FIT_DEFAULTS.tolerance,
+      chi2Tolerance: context.chi2Tolerance ?? GEOMETRIC_FIT_DEFAULTS.chi2Tolerance,
+    };
+    return fitCircleBatch(hits, offsets, (span, out, k) => geometricCircle(span, out, k, scratch, settings));
+  },
+});

@@ -10,7 +10,7 @@ const PREPARED = Symbol('sagitta.preparedPlaneHits');
 
 /**
  * Hits made ready for repeated fitting: per-hit weights w = 2/(σx² + σy²) (= 1/σ² for round
- * errors) computed once, whether any hit has σx ≠ σy (then the geometric fit weighs each residual
+ * errors; 1 for every hit when the hits carry no errors, which `errorsKnown` then says) computed once, whether any hit has σx ≠ σy (then the geometric fit weighs each residual
  * by the error along its own direction), and whether every number is usable (finite coordinates,
  * positive finite errors) — when it is, the fits skip the per-track screen.
  *
@@ -18,7 +18,9 @@ const PREPARED = Symbol('sagitta.preparedPlaneHits');
  * several times (comparing fitters, scanning options). Do not change the arrays afterwards.
  */
 export interface PreparedPlaneHits extends PlaneHits {
-  readonly weights: Float64Array | undefined;
+  readonly weights: Float64Array;
+  /** False when the hits carry no errors: the fits then estimate them from the residuals. */
+  readonly errorsKnown: boolean;
   readonly anisotropic: boolean;
   readonly allUsable: boolean;
   readonly [PREPARED]: true;
@@ -35,7 +37,7 @@ export function preparePlaneHits(hits: PlaneHits): PreparedPlaneHits {
   const sx = hits.sigmaX;
   const sy = hits.sigmaY ?? sx;
   const n = x.length;
-  let weights: Float64Array | undefined;
+  let weights: Float64Array;
   let anisotropic = false;
   // v·0 is 0 for finite v and NaN for ±Infinity or NaN, so one sum screens a column.
   let acc = 0;
@@ -49,6 +51,8 @@ export function preparePlaneHits(hits: PlaneHits): PreparedPlaneHits {
       if (ex !== ey) anisotropic = true;
       allUsable = allUsable && ex > 0 && ey > 0 && ex < Infinity && ey < Infinity;
     }
+  } else {
+    weights = new Float64Array(n).fill(1);
   }
-  return { x, y, sigmaX: sx, sigmaY: sy, weights, anisotropic, allUsable, [PREPARED]: true };
+  return { x, y, sigmaX: sx, sigmaY: sy, weights, errorsKnown: sx !== undefined, anisotropic, allUsable, [PREPARED]: true };
 }

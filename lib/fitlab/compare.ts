@@ -1,7 +1,11 @@
 import { GEV_PER_TESLA_METRE } from '../constants.js';
 import { msg } from '../errors.js';
 import { chi2Survival } from '../analysis/chi2Survival.js';
-import type { Fitter } from './fitter.js';
+import { FIT_STATUS } from '../fit/circleFit.js';
+import { fitHelices } from '../fit/fitHelices.js';
+import type { FitMethod } from '../fit/fitMethod.js';
+import { fitMethod } from '../fit/fitMethods.js';
+import { preparePlaneHits, type PreparedPlaneHits } from '../fit/preparePlaneHits.js';
 import type { FitLabSample } from './sample.js';
 
 /** One fitter's answer for every track of the sample (NaN where it failed or gave nothing). */
@@ -75,25 +79,30 @@ export interface CompareOptions {
 }
 
 /**
- * Runs every fitter on every track of a simulated sample and reports, per fitter, the bias and
+ * Runs every fit method (registry names or `FitMethod`s, e.g. one made with `defineFitMethod` in
+ * a notebook) on every track of a simulated sample — as a helix fit, so that tan λ is measured
+ * too — and reports, per method, the bias and
  * resolution of curvature and momentum (overall, per momentum bin and per track length), the
  * pull mean and width, χ²/ndf and the p-value distribution, the failure rate and the speed
  * (tracks per second, wall clock on this machine — for comparing methods side by side, not a
- * benchmark). A fitter that throws on a track counts as a failure on that track.
- * @example compareFitters(BUILTIN_FITTERS, fitLabSample({...})).summary
+ * benchmark). A method that fails on a track (for a user method: throws) counts as a failure on
+ * that track. χ²/ndf and p-values are those of the bending-plane fit.
+ * @example compareFitters(['geometric', 'taubin', 'kasa'], fitLabSample({...})).summary
  */
-export function compareFitters(fitters: readonly Fitter[], sample: FitLabSample, options: CompareOptions = {}): FitLabReport {
-  if (fitters.length === 0) throw msg.badArgument('fitters', [], 'at least one Fitter');
+export function compareFitters(methods: readonly (FitMethod | string)[], sample: FitLabSample, options: CompareOptions = {}): FitLabReport {
+  if (methods.length === 0) throw msg.badArgument('methods', [], 'at least one fit method (a registered name or a FitMethod)');
+  const fitters = methods.map((m) => (typeof m === 'string' ? fitMethod(m) : m));
   const names = fitters.map((f) => f.name);
   if (new Set(names).size !== names.length) throw msg.badArgument('fitter names', names, 'distinct names');
   const perTrack: Record<string, FitterTrackColumns> = {};
   const summary: (FitMerit & { tracksPerSecond: number })[] = [];
   const all = Int32Array.from({ length: sample.count }, (_, k) => k);
+  const prepared = preparePlaneHits({ x: sample.x, y: sample.y, sigmaX: sample.sigma, sigmaY: sample.sigma });
   for (const fitter of fitters) {
     // Untimed warm-up on a few tracks so that the first fitter does not pay the JIT for all.
-    runFitter(fitter, sample, Math.min(50, sample.count));
+    runFitter(fitter, sample, prepared, Math.min(50, sample.count));
     const t0 = performance.now();
-    const cols = runFitter(fitter, sample, sample.count);
+    const cols = runFitter(fitter, sample, prepared, sample.count);
     const seconds = (performance.now() - t0) / 1000;
     perTrack[fitter.name] = cols;
     summary.push({ ...merit(fitter.name, cols, sample, all), tracksPerSecond: seconds > 0 ? sample.count / seconds : Infinity });
@@ -126,36 +135,34 @@ export function compareFitters(fitters: readonly Fitter[], sample: FitLabSample,
   return { fitters: names, summary, byMomentum, byLength, perTrack, sample };
 }
 
-function runFitter(fitter: Fitter, s: FitLabSample, tracks: number): FitterTrackColumns {
+function runFitter(method: FitMethod, s: FitLabSample, prepared: PreparedPlaneHits, tracks: number): FitterTrackColumns {
   const n = tracks;
   const kappa = new Float64Array(n).fill(NaN), sigmaKappa = new Float64Array(n).fill(NaN);
   const chi2 = new Float64Array(n).fill(NaN), ndf = new Float64Array(n).fill(NaN);
   const pValue = new Float64Array(n).fill(NaN), pull = new Float64Array(n).fill(NaN);
   const tanLambda = new Float64Array(n).fill(NaN), tanLambdaPull = new Float64Array(n).fill(NaN);
   const ok = new Uint8Array(n);
+  const fits = fitHelices({ ...prepared, z: s.z, sigmaZ: s.sigmaZ }, s.offsets.subarray(0, n + 1), { method });
+  const c = fits.circle;
   for (let k = 0; k < n; k++) {
-    const from = s.offsets[k], to = s.offsets[k + 1];
-    let out;
-    try {
-      out = fitter.fit(s.x.subarray(from, to), s.y.subarray(from, to), s.sigma.subarray(from, to), s.z.subarray(from, to), s.sigmaZ.subarray(from, to));
-    } catch {
-      continue;
-    }
-    if (out.ok === false || !Number.isFinite(out.kappa)) continue;
+    if (FIT_STATUS[c.status[k]] !== 'ok' || !Number.isFinite(c.kappa[k])) continue;
     ok[k] = 1;
-    kappa[k] = out.kappa;
-    if (out.sigmaKappa !== undefined && out.sigmaKappa > 0) {
-      sigmaKappa[k] = out.sigmaKappa;
-      pull[k] = (out.kappa - s.kappaTrue[k]) / out.sigmaKappa;
+    kappa[k] = c.kappa[k];
+    const sk = Math.sqrt(c.cov[6 * k]);
+    if (sk > 0) {
+      sigmaKappa[k] = sk;
+      pull[k] = (c.kappa[k] - s.kappaTrue[k]) / sk;
     }
-    if (out.tanLambda !== undefined && Number.isFinite(out.tanLambda)) {
-      tanLambda[k] = out.tanLambda;
-      if (out.sigmaTanLambda !== undefined && out.sigmaTanLambda > 0) tanLambdaPull[k] = (out.tanLambda - s.tanLambdaTrue[k]) / out.sigmaTanLambda;
+    const t = fits.tanLambda[k];
+    if (Number.isFinite(t)) {
+      tanLambda[k] = t;
+      const st = Math.sqrt(fits.cov[15 * k + 14]);
+      if (st > 0) tanLambdaPull[k] = (t - s.tanLambdaTrue[k]) / st;
     }
-    if (out.chi2 !== undefined && out.ndf !== undefined && out.ndf > 0) {
-      chi2[k] = out.chi2;
-      ndf[k] = out.ndf;
-      pValue[k] = chi2Survival(out.chi2, out.ndf);
+    if (Number.isFinite(c.chi2[k]) && c.ndf[k] > 0) {
+      chi2[k] = c.chi2[k];
+      ndf[k] = c.ndf[k];
+      pValue[k] = chi2Survival(c.chi2[k], c.ndf[k]);
     }
   }
   return { kappa, sigmaKappa, chi2, ndf, pValue, pull, tanLambda, tanLambdaPull, ok };

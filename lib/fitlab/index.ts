@@ -1,8 +1,4 @@
 // lib/fitlab: compare track-fit methods on simulated truth (re-exports only).
-export {
-  BUILTIN_FITTERS, KASA_FITTER, TAUBIN_FITTER, GEOMETRIC_FITTER, HELIX_FITTER, outcomeOfCircleFit,
-  type Fitter, type FitterOutcome,
-} from './fitter.js';
 export { fitLabSample, type FitLabSample, type FitLabSampleOptions } from './sample.js';
 export { fitLabSampleFromRun, type SampleFromRunOptions } from './sampleFromRun.js';
 export { compareFitters, type FitLabReport, type FitMerit, type BinnedMerit, type FitterTrackColumns, type CompareOptions } from './compare.js';

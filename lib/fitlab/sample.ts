@@ -4,7 +4,8 @@ import { MUON_MINUS, MUON_PLUS, type Particle } from '../particles.js';
 import { chamber } from '../simulate/chamber.js';
 import { VACUUM, type Medium } from '../matter/medium.js';
 import { seededRandom } from '../simulate/rng.js';
-import { transportTrack, TRANSPORT_DEFAULTS } from '../simulate/transport.js';
+import { transportTrack } from '../simulate/transport.js';
+import { TRANSPORT_DEFAULTS } from '../simulate/transportOptions.js';
 
 export interface FitLabSampleOptions {
   /** Number of tracks. */

@@ -53,15 +53,15 @@ function cellWriter(c: Column): CellWriter {
  * CSV bytes (UTF-8) with a header row. Cells are copied straight into one growing buffer: about
  * three times faster than joining strings for a 200 000-row result table.
  */
-export function formatCsvBytes(table: ColumnTable): Uint8Array {
+export function formatCsvBytes(table: ColumnTable, options: { readonly header?: boolean } = {}): Uint8Array {
   const { columns, rows } = table;
   const writers = columns.map(cellWriter);
   const m = writers.length;
-  let buf = Buffer.allocUnsafe(Math.max(1024, rows * m * 12));
+  let buf = Buffer.allocUnsafeSlow(Math.max(1024, rows * m * 12));
   let pos = 0;
   const put = (text: string, end: number): void => {
     if (pos + 4 * text.length + 1 > buf.length) {
-      const next = Buffer.allocUnsafe(Math.max(2 * buf.length, pos + 4 * text.length + 1));
+      const next = Buffer.allocUnsafeSlow(Math.max(2 * buf.length, pos + 4 * text.length + 1));
       buf.copy(next, 0, 0, pos);
       buf = next;
     }
@@ -74,7 +74,7 @@ export function formatCsvBytes(table: ColumnTable): Uint8Array {
     pos += ascii ? text.length : buf.write(text, pos, 'utf8');
     buf[pos++] = end;
   };
-  for (let j = 0; j < m; j++) put(columns[j].name, j === m - 1 ? 10 : 44);
+  if (options.header !== false) for (let j = 0; j < m; j++) put(columns[j].name, j === m - 1 ? 10 : 44);
   for (let i = 0; i < rows; i++) {
     for (let j = 0; j < m; j++) put(writers[j](i), j === m - 1 ? 10 : 44);
   }

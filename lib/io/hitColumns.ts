@@ -24,6 +24,14 @@ export interface HeaderField {
 
 const NAME_WITH_UNIT = /^([^[\]()]+?)\s*(?:\[\s*([^\]]*?)\s*\]|\(\s*([^)]*?)\s*\))?$/;
 
+/** The hit column a header name maps to ("X [cm]" → x), or undefined for a column Sagitta ignores. */
+export function columnOf(name: string): HitColumn | undefined {
+  const raw = name.trim().replace(/^"(.*)"$/, '$1');
+  const m = NAME_WITH_UNIT.exec(raw);
+  const base = (m ? m[1] : raw).trim().toLowerCase();
+  return (HIT_COLUMNS as readonly string[]).includes(base) ? (base as HitColumn) : undefined;
+}
+
 /**
  * Reads a header into fields, checks duplicates and required columns, and resolves units
  * (header unit, else `defaultLengthUnit`).

@@ -1,13 +1,16 @@
+import type { IdLabels } from './hitIds.js';
+
 /**
  * The hit table: one row per measured point, stored as typed-array columns (STYLE.md §2).
  *
- * Lengths are in metres inside Sagitta whatever the file said; `lengthUnit` records what the
+ * Lengths are in metres inside Sagitta whatever the file said; `source.units` records what the
  * file used so that summaries can say so. Rows of one track are identified by (event, track);
  * within a track the rows are in the order the particle travelled (first hit = where it
  * entered or was produced) — the turning sense, and so the charge, is read from that order.
  */
 export interface HitTable {
   readonly length: number;
+  /** Event and track ids: exact whole numbers (codes when beyond 2⁵³ − 1, see source.idLabels). */
   readonly event: Float64Array;
   readonly track: Float64Array;
   /** Bending-plane coordinates [m]. */
@@ -33,6 +36,16 @@ export interface HitTableSource {
   readonly line?: Int32Array;
   /** Columns present in the file that Sagitta does not use. */
   readonly ignoredColumns: readonly string[];
+  /**
+   * Where each row starts in the input (byte offset in a text file, row number in a columnar
+   * one), kept only when a reader was asked for it (sharded batch runs order their results by it).
+   */
+  readonly position?: Float64Array;
+  /**
+   * Present when an id column holds ids beyond 2⁵³ − 1: that column then holds order codes and
+   * these labels give the exact ids (lib/io/hitIds.ts). Absent in the usual file.
+   */
+  readonly idLabels?: { readonly event?: IdLabels; readonly track?: IdLabels };
 }
 
 /**

@@ -7,9 +7,10 @@ import type { HitTable, TrackIndex } from './hitTable.js';
  * returned as it is. When a track's rows are scattered (e.g. a file sorted by plane), the rows
  * are gathered track by track, in order of each track's first appearance, keeping the file order
  * within a track (a stable regrouping, so the travel order of hits is preserved).
- * No row is dropped.
+ * No row is dropped. `rows`, when the rows were regrouped, gives for each row of the returned
+ * table its row in `table` (absent: the same rows in the same order).
  */
-export function indexTracks(table: HitTable): { table: HitTable; index: TrackIndex } {
+export function indexTracks(table: HitTable): { table: HitTable; index: TrackIndex; rows?: Int32Array } {
   const n = table.length;
   const { event, track } = table;
   // Fast path: (event, track) never decreasing means every track is one contiguous run.
@@ -46,7 +47,7 @@ export function indexTracks(table: HitTable): { table: HitTable; index: TrackInd
   const perm = new Int32Array(n);
   for (let i = 0; i < n; i++) perm[fill[groupOf[i]]++] = i;
   const gathered = gatherRows(table, perm);
-  return { table: gathered, index: runIndex(gathered.event, gathered.track, n, counts.length) };
+  return { table: gathered, index: runIndex(gathered.event, gathered.track, n, counts.length), rows: perm };
 }
 
 function runIndex(event: Float64Array, track: Float64Array, n: number, runs: number): TrackIndex {
@@ -90,6 +91,6 @@ export function gatherRows(table: HitTable, perm: Int32Array): HitTable {
     sigmaX: gather(table.sigmaX, perm),
     sigmaY: gather(table.sigmaY, perm),
     sigmaZ: gather(table.sigmaZ, perm),
-    source: { ...table.source, line },
+    source: { ...table.source, line, ...(table.source.position ? { position: gather(table.source.position, perm) } : {}) },
   };
 }

@@ -13,7 +13,7 @@ export interface EventArcs {
 
 /**
  * The circles [m] of one event's successfully fitted tracks (`measureTracks`). The centre is
- * rebuilt from (κ, φ0, d0) at the track's first hit, C = ref + (1/κ − d0)·n with
+ * rebuilt from (κ, φ0, d0) at the track's reference point (its first hit, kept on the table), C = ref + (1/κ − d0)·n with
  * n = (−sin φ0, cos φ0) — the parametrisation of lib/fit (Karimäki, NIM A305 (1991) 187).
  * Each is labelled with its transverse momentum.
  */
@@ -25,16 +25,14 @@ export function eventArcs(hits: HitTable, tracks: TrackTable, event: number): Ev
   const drawn: DisplayTrack[] = [];
   for (let k = 0; k < tracks.count; k++) {
     if (tracks.event[k] !== event || tracks.status[k] !== 'ok' || tracks.track[k] < 0) continue;
-    const first = rows.find((i) => hits.track[i] === tracks.track[k]);
-    if (first === undefined) continue;
     const kappa = tracks.kappa[k], phi0 = tracks.phi0[k], d0 = tracks.d0[k];
     if (!(Math.abs(kappa) > 0)) continue;
     const lever = 1 / kappa - d0;
     const pt = tracks.momentum.ptGeV[k];
     trackIndexOf.set(tracks.track[k], drawn.length);
     drawn.push({
-      centerXM: hits.x[first] - lever * Math.sin(phi0),
-      centerYM: hits.y[first] + lever * Math.cos(phi0),
+      centerXM: tracks.xRef[k] - lever * Math.sin(phi0),
+      centerYM: tracks.yRef[k] + lever * Math.cos(phi0),
       radiusM: Math.abs(1 / kappa),
       charge: tracks.momentum.charge[k],
       label: Number.isFinite(pt) ? (pt < 1 ? `${(pt * 1000).toFixed(0)} MeV/c` : `${pt.toFixed(2)} GeV/c`) : undefined,

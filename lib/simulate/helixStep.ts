@@ -1,5 +1,13 @@
 import { GEV_PER_TESLA_METRE } from '../constants.js';
 
+/** What a helix step needs besides the state: momentum [GeV/c], signed charge number, field [T]. */
+export interface HelixMotion {
+  momentumGeV: number;
+  charge: number;
+  /** [Bx, By, Bz] in tesla. */
+  readonly fieldT: Float64Array;
+}
+
 /**
  * Exact step of a charged particle along a helix in a uniform field (no loss, no scattering).
  *
@@ -13,17 +21,11 @@ import { GEV_PER_TESLA_METRE } from '../constants.js';
  * `state` holds [x, y, z, ux, uy, uz] (metres, unit direction) and is overwritten with the state
  * after `stepM` metres. Field components in tesla, momentum in GeV/c, charge number signed.
  * Valid for any |B| ≥ 0 and any step; a neutral particle or zero field gives a straight line.
- * @example const st = Float64Array.of(0,0,0, 1,0,0); helixStep(st, 0.1, 1, 0, 0, 1.5, 1) // bends to −y
+ * @example const st = Float64Array.of(0,0,0, 1,0,0); helixStep(st, 0.1, { momentumGeV: 1, charge: 1, fieldT: Float64Array.of(0, 0, 1.5) }) // bends to −y
  */
-export function helixStep(
-  state: Float64Array,
-  stepM: number,
-  momentumGeV: number,
-  bxT: number,
-  byT: number,
-  bzT: number,
-  charge: number,
-): void {
+export function helixStep(state: Float64Array, stepM: number, motion: HelixMotion): void {
+  const { momentumGeV, charge } = motion;
+  const bxT = motion.fieldT[0], byT = motion.fieldT[1], bzT = motion.fieldT[2];
   const x = state[0], y = state[1], z = state[2];
   const ux = state[3], uy = state[4], uz = state[5];
   const bMag = Math.sqrt(bxT * bxT + byT * byT + bzT * bzT);

@@ -2,11 +2,12 @@
 export { seededRandom, type SeededRandom } from './rng.js';
 export { chamber, insideChamber, type Chamber, type ChamberField, type ChamberOptions } from './chamber.js';
 export { helixStep } from './helixStep.js';
-export {
-  transportTrack, rotateAbout, TRANSPORT_DEFAULTS,
-  type Sampling, type EnergyLossMode, type TransportOptions, type TrackStart, type TrackEnd, type EndReason, type HitSink, type DeltaSink,
-} from './transport.js';
-export { twoBodyMomentumMeV, twoBodyDecay, invariantMassMeV, type TwoBodyProducts } from './twoBodyDecay.js';
+export { transportTrack } from './transport.js';
+export { TRANSPORT_DEFAULTS, type Sampling, type EnergyLossMode, type TransportOptions } from './transportOptions.js';
+export type { TrackStart, TrackEnd, EndReason, HitSink, DeltaSink, PositionAndDirection, ParticleInFlight } from './trackInFlight.js';
+export { rotateAbout } from './scatteringKick.js';
+export type { HelixMotion } from './helixStep.js';
+export { twoBodyDecay, type TwoBodyProducts } from './twoBodyDecay.js';
 export { michelMaxEnergyMeV, sampleMichelFraction } from './michel.js';
 export { deltaRayRatePerM, sampleDeltaRayKineticMeV, deltaRayCosTheta } from './deltaRay.js';
 export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays.js';

@@ -1,24 +1,24 @@
 import { readFileSync } from 'node:fs';
-import { Ajv, type ErrorObject } from 'ajv';
-import { unit as mathUnit } from 'mathjs';
+import { createRequire } from 'node:module';
+import type { Ajv as AjvClass, ErrorObject } from 'ajv';
 import { msg, SagittaError } from '../errors.js';
 import { particle, type Particle } from '../particles.js';
 import { recordInput } from '../provenance.js';
-import { fieldTesla, energyMeV, lengthMetres, momentumGeV } from '../units.js';
+import { angleRad, fieldTesla, energyMeV, lengthMetres, momentumGeV } from '../units.js';
 import { chamber, insideChamber, type Chamber } from './chamber.js';
 import { chamberMedium } from '../matter/chamberMedium.js';
 import { jsonPointerLines, withLines } from './jsonPointerLines.js';
 import { VACUUM } from '../matter/medium.js';
 import { SCENARIO_SCHEMA } from './scenarioSchema.js';
 import type { MeasurementModel, SimulationConfig, Source, TransportSettings } from './simulate.js';
-import type { Sampling } from './transport.js';
+import { TRANSPORT_DEFAULTS, type Sampling } from './transportOptions.js';
 
-/** Defaults of the optional scenario fields, in internal units. */
+/** Defaults of the optional scenario fields, in internal units (transport settings: the transport's own). */
 export const SCENARIO_DEFAULTS = Object.freeze({
-  energyLoss: 'mean' as const,
-  scattering: true,
-  maxStepM: 0.01,
-  maxPathM: 20,
+  energyLoss: TRANSPORT_DEFAULTS.energyLoss,
+  scattering: TRANSPORT_DEFAULTS.scattering,
+  maxStepM: TRANSPORT_DEFAULTS.maxStepM,
+  maxPathM: TRANSPORT_DEFAULTS.maxPathM,
   efficiency: 1,
   noiseHitsPerEvent: 0,
   momentumSpread: 0,
@@ -30,9 +30,13 @@ export const SCENARIO_DEFAULTS = Object.freeze({
 
 type Json = Record<string, unknown>;
 
-let validator: ReturnType<Ajv['compile']> | undefined;
+// The schema validator (ajv) loads on the first scenario read, not with the library.
+let validator: ReturnType<AjvClass['compile']> | undefined;
 function validate(doc: unknown): readonly ErrorObject[] {
-  if (validator === undefined) validator = new Ajv({ allErrors: true, strict: false, verbose: true }).compile(SCENARIO_SCHEMA);
+  if (validator === undefined) {
+    const { Ajv } = createRequire(import.meta.url)('ajv') as typeof import('ajv');
+    validator = new Ajv({ allErrors: true, strict: false, verbose: true }).compile(SCENARIO_SCHEMA);
+  }
   return validator(doc) ? [] : (validator.errors ?? []);
 }
 
@@ -72,7 +76,7 @@ function describeErrors(errors: readonly ErrorObject[]): string {
  * the bad field and its line (e.g. "run.json: /sources/1/momentum (line 23): …"); bad JSON names
  * line and column.
  * Records the file in the provenance registry.
- * @example readScenario('notebooks/data/ember-hollow.scenario.json').sources.length
+ * @example readScenario('notebooks/data/brindlemoor.scenario.json').sources.length
  */
 export function readScenario(path: string): SimulationConfig {
   let bytes: Buffer;
@@ -130,14 +134,7 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
     }
   };
   const len = (text: unknown, path: string) => at(path, () => lengthMetres(String(text), { what: fieldName(path) }));
-  const angle = (text: unknown, path: string) => at(path, () => {
-    try {
-      const u = mathUnit(String(text));
-      return u.toNumber('rad');
-    } catch {
-      throw msg.badQuantity(String(text), 'an angle', '3 mrad');
-    }
-  });
+  const angle = (text: unknown, path: string) => at(path, () => angleRad(String(text), { what: fieldName(path) }));
 
   const ch = d.chamber as Json;
   const size = (ch.size as string[]).map((s, i) => len(s, `/chamber/size/${i}`)) as [number, number, number];

@@ -1,20 +1,20 @@
 import type { HitTable } from '../io/hitTable.js';
-import { ELECTRON, type Particle } from '../particles.js';
+import { momentumFromKinetic } from '../matter/kinematics.js';
+import { ELECTRON } from '../particles.js';
 import { warn } from '../warnings.js';
 import type { Chamber } from './chamber.js';
-import { insideChamber } from './chamber.js';
 import { ColumnBuffer } from './columnBuffer.js';
-import { DECAY_AT_REST, DECAY_IN_FLIGHT, NEUTRAL_DECAYS } from './decays.js';
-import { michelMaxEnergyMeV, sampleMichelFraction } from './michel.js';
+import { DECAY_IN_FLIGHT } from './decays.js';
+import { HitRecorder } from './hitRecorder.js';
+import { decayAtRest, flyNeutral, type Pending } from './secondaries.js';
 import { seededRandom, type SeededRandom } from './rng.js';
 import { beamEvent, type BeamSource } from './sources/beam.js';
 import { burstEvent, type BurstSource } from './sources/burst.js';
 import { cosmicEvent, type CosmicSource } from './sources/cosmic.js';
-import type { Primary } from './sources/primary.js';
 import { stoppingEvent, type StoppingSource } from './sources/stopping.js';
-import { transportTrack, TRANSPORT_DEFAULTS, type EnergyLossMode, type Sampling, type TransportOptions } from './transport.js';
-import { rotateAbout } from './transport.js';
-import { twoBodyDecay, twoBodyMomentumMeV } from './twoBodyDecay.js';
+import { transportTrack } from './transport.js';
+import { TRANSPORT_DEFAULTS, type EnergyLossMode, type Sampling, type TransportOptions } from './transportOptions.js';
+import { twoBodyDecay } from './twoBodyDecay.js';
 
 export type { BeamSource, BurstSource, CosmicSource, StoppingSource };
 export type Source = BeamSource | BurstSource | CosmicSource | StoppingSource;
@@ -102,56 +102,6 @@ const MAX_TRACKS_PER_EVENT = 2000;
 /** Track id of noise hits: negative ids mean "on no track" in hit files (lib/track/measureTracks). */
 const NOISE_TRACK = -1;
 
-interface Pending extends Primary {
-  readonly parent: number;
-}
-
-/**
- * Hit rows as they are simulated: measured and true positions, true momentum. A dedicated class
- * with one typed array per field (rather than a generic column buffer) so that the per-hit write
- * compiles to plain stores.
- */
-class HitRecorder {
-  private cap: number;
-  n = 0;
-  event: Float64Array; track: Float64Array; x: Float64Array; y: Float64Array; z: Float64Array;
-  tx: Float64Array; ty: Float64Array; tz: Float64Array; tp: Float64Array;
-
-  constructor(capacity: number) {
-    this.cap = capacity;
-    this.event = new Float64Array(capacity); this.track = new Float64Array(capacity);
-    this.x = new Float64Array(capacity); this.y = new Float64Array(capacity); this.z = new Float64Array(capacity);
-    this.tx = new Float64Array(capacity); this.ty = new Float64Array(capacity); this.tz = new Float64Array(capacity);
-    this.tp = new Float64Array(capacity);
-  }
-
-  add(event: number, track: number, x: number, y: number, z: number, tx: number, ty: number, tz: number, tp: number): void {
-    if (this.n === this.cap) this.grow();
-    const i = this.n++;
-    this.event[i] = event; this.track[i] = track;
-    this.x[i] = x; this.y[i] = y; this.z[i] = z;
-    this.tx[i] = tx; this.ty[i] = ty; this.tz[i] = tz; this.tp[i] = tp;
-  }
-
-  private grow(): void {
-    this.cap *= 2;
-    const g = (a: Float64Array) => {
-      const b = new Float64Array(this.cap);
-      b.set(a);
-      return b;
-    };
-    this.event = g(this.event); this.track = g(this.track);
-    this.x = g(this.x); this.y = g(this.y); this.z = g(this.z);
-    this.tx = g(this.tx); this.ty = g(this.ty); this.tz = g(this.tz); this.tp = g(this.tp);
-  }
-
-  /** Exact-length columns (views when at least half the buffer is used). */
-  column(name: 'event' | 'track' | 'x' | 'y' | 'z' | 'tx' | 'ty' | 'tz' | 'tp'): Float64Array {
-    const a = this[name];
-    return 2 * this.n >= this.cap ? a.subarray(0, this.n) : a.slice(0, this.n);
-  }
-}
-
 const TRUTH_COLUMNS = ['event', 'track', 'parent', 'charge', 'vx', 'vy', 'vz', 'px', 'py', 'pz', 'ex', 'ey', 'ez', 'path', 'hits'] as const;
 
 /**
@@ -219,7 +169,7 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
                 x, y, z, p);
             },
             (x, y, z, ux, uy, uz, t) => {
-              stack.push({ species: ELECTRON, xM: x, yM: y, zM: z, ux, uy, uz, momentumGeV: Math.sqrt(t * (t + 2 * ELECTRON.massMeV)) * 1e-3, process: 'delta', parent: id });
+              stack.push({ species: ELECTRON, xM: x, yM: y, zM: z, ux, uy, uz, momentumGeV: momentumFromKinetic(ELECTRON, t) * 1e-3, process: 'delta', parent: id });
             });
           nHits = hits.n - first;
           end = r.reason; ex = r.xM; ey = r.yM; ez = r.zM; path = r.pathM;
@@ -294,57 +244,4 @@ function addNoise(hits: HitRecorder, event: number, c: Chamber, m: MeasurementMo
       c.zMinM + (c.zMaxM - c.zMinM) * rng.uniform(),
       NaN, NaN, NaN, NaN);
   }
-}
-
-/**
- * A neutral particle flies straight; it decays after an exponential flight length of mean
- * βγcτ when a charged decay mode is known and the decay point is inside the chamber.
- */
-function flyNeutral(item: Pending, id: number, c: Chamber, rng: SeededRandom, stack: Pending[]) {
-  const sp = item.species;
-  const pMeV = item.momentumGeV * 1e3;
-  const daughters = NEUTRAL_DECAYS[sp.name];
-  const mean = (pMeV / sp.massMeV) * sp.ctauM;
-  const length = Number.isFinite(mean) ? rng.exponential(mean) : Infinity;
-  const exit = exitDistance(c, item);
-  if (daughters === undefined || !(length < exit)) {
-    const l = Math.min(length, exit);
-    return { end: 'exited', ex: item.xM + l * item.ux, ey: item.yM + l * item.uy, ez: item.zM + l * item.uz, path: l };
-  }
-  const ex = item.xM + length * item.ux, ey = item.yM + length * item.uy, ez = item.zM + length * item.uz;
-  const d = twoBodyDecay(sp.massMeV, pMeV * item.ux, pMeV * item.uy, pMeV * item.uz, daughters[0].massMeV, daughters[1].massMeV, rng);
-  for (const [daughter, four] of [[daughters[0], d.first], [daughters[1], d.second]] as const) {
-    const p = Math.hypot(four[1], four[2], four[3]);
-    stack.push({ species: daughter, xM: ex, yM: ey, zM: ez, ux: four[1] / p, uy: four[2] / p, uz: four[3] / p, momentumGeV: p * 1e-3, process: 'decay', parent: id });
-  }
-  return { end: 'decayed', ex, ey, ez, path: length };
-}
-
-/** Distance along a straight line from the item's start to the chamber wall. */
-function exitDistance(c: Chamber, item: Primary): number {
-  if (!insideChamber(c, item.xM, item.yM, item.zM)) return 0;
-  let t = Infinity;
-  const axes: [number, number, number, number][] = [
-    [item.xM, item.ux, c.xMinM, c.xMaxM], [item.yM, item.uy, c.yMinM, c.yMaxM], [item.zM, item.uz, c.zMinM, c.zMaxM],
-  ];
-  for (const [x, u, lo, hi] of axes) {
-    if (u > 0) t = Math.min(t, (hi - x) / u);
-    else if (u < 0) t = Math.min(t, (lo - x) / u);
-  }
-  return t;
-}
-
-function decayAtRest(sp: Particle, x: number, y: number, z: number, id: number, rng: SeededRandom, stack: Pending[]): void {
-  const mode = DECAY_AT_REST[sp.name];
-  if (mode === undefined) return;
-  let pMeV: number;
-  if (mode.kind === 'two-body') {
-    pMeV = twoBodyMomentumMeV(sp.massMeV, mode.daughter.massMeV, 0);
-  } else {
-    const e = Math.max(mode.daughter.massMeV, sampleMichelFraction(rng) * michelMaxEnergyMeV(sp.massMeV));
-    pMeV = Math.sqrt(Math.max(0, e * e - mode.daughter.massMeV ** 2));
-  }
-  if (!(pMeV > 0)) return;
-  const [ux, uy, uz] = rotateAbout(0, 0, 1, 2 * rng.uniform() - 1, 2 * Math.PI * rng.uniform());
-  stack.push({ species: mode.daughter, xM: x, yM: y, zM: z, ux, uy, uz, momentumGeV: pMeV * 1e-3, process: 'decay-at-rest', parent: id });
 }

@@ -1,20 +1,8 @@
 import { msg } from '../errors.js';
 import type { SeededRandom } from './rng.js';
-
-/**
- * Momentum [MeV/c] of either daughter in the rest frame of a parent of mass `parentMeV`
- * decaying to masses `m1MeV` + `m2MeV`:
- * p* = √[(M² − (m₁+m₂)²)(M² − (m₁−m₂)²)] / 2M (relativistic two-body kinematics; PDG RPP
- * "Kinematics", two-body decays). NaN when the decay is closed (M < m₁ + m₂).
- * @example twoBodyMomentumMeV(497.611, 139.57039, 139.57039) // 205.97 (PDG listing: 206 MeV/c)
- */
-export function twoBodyMomentumMeV(parentMeV: number, m1MeV: number, m2MeV: number): number {
-  const s = parentMeV * parentMeV;
-  const a = s - (m1MeV + m2MeV) ** 2;
-  const b = s - (m1MeV - m2MeV) ** 2;
-  if (a < 0) return NaN;
-  return Math.sqrt(a * b) / (2 * parentMeV);
-}
+// The one definition of p*: kinematics lives in lib/vertex; the simulator imports only its
+// dependency-free leaf modules (test/architecture.test.ts holds it to that).
+import { twoBodyMomentumMeV } from '../vertex/twoBodyMomentum.js';
 
 /** Four-momenta of the two daughters in the laboratory [MeV]: (E, px, py, pz) each. */
 export interface TwoBodyProducts {
@@ -80,16 +68,4 @@ function perpendicular(x: number, y: number, z: number): [number, number, number
   else { px = y; py = -x; pz = 0; }
   const n = Math.hypot(px, py, pz);
   return [px / n, py / n, pz / n];
-}
-
-/**
- * Invariant mass [MeV] of two four-momenta (E, px, py, pz) in MeV:
- * m² = (E₁+E₂)² − |p₁+p₂|² (special relativity, c = 1; common practice; PDG RPP "Kinematics").
- * Valid for any pair; returns NaN for a space-like sum.
- * @example invariantMassMeV([E1, px1, py1, pz1], [E2, px2, py2, pz2]) // 497.611 for a K⁰_S pair
- */
-export function invariantMassMeV(a: readonly number[], b: readonly number[]): number {
-  const e = a[0] + b[0], x = a[1] + b[1], y = a[2] + b[2], z = a[3] + b[3];
-  const m2 = e * e - x * x - y * y - z * z;
-  return m2 >= 0 ? Math.sqrt(m2) : NaN;
 }

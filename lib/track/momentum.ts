@@ -50,7 +50,8 @@ function isHelix(f: CircleFitColumns | HelixFitColumns): f is HelixFitColumns {
 
 /**
  * Momenta of all fitted tracks in a field B_z = `fieldT` [T] (signed: negative when the field
- * points along −z). Circle-only fits give p = p_T (tan λ taken as 0, stated in the column).
+ * points along −z). Circle-only fits measure p_T alone: p, p_z, tan λ and σ(p) are NaN then
+ * (never p = p_T, which would claim a dip of zero).
  * Valid wherever the track is a helix in a uniform field; no energy-loss correction.
  * @example momenta(fits, 1.5).ptGeV[0] // for R = 2 m: 0.8994 GeV/c
  */
@@ -81,11 +82,11 @@ export function momenta(fits: CircleFitColumns | HelixFitColumns, fieldT: number
     out.charge[k] = Number.isFinite(kappa) ? (kappa === 0 ? 0 : -Math.sign(kappa) * bSign * z) : NaN;
     out.radiusM[k] = 1 / absK;
     out.ptGeV[k] = pt;
-    out.pGeV[k] = p;
+    out.pGeV[k] = helix ? p : NaN;
     out.pxGeV[k] = pt * Math.cos(phi);
     out.pyGeV[k] = pt * Math.sin(phi);
-    out.pzGeV[k] = pt * t;
-    out.tanLambda[k] = t;
+    out.pzGeV[k] = helix ? pt * t : NaN;
+    out.tanLambda[k] = helix ? t : NaN;
     out.sigmaPtGeV[k] = (pt * Math.sqrt(vkk)) / absK;
     if (helix) {
       // Covariance entries of (κ, tanλ): upper-triangle indices 0 (κκ), 4 (κ·tanλ), 14 (tanλ·tanλ).
@@ -94,7 +95,7 @@ export function momenta(fits: CircleFitColumns | HelixFitColumns, fieldT: number
       const dk = -p / kappa, dt = (p * t) / (1 + t * t);
       out.sigmaPGeV[k] = Math.sqrt(dk * dk * vkk + dt * dt * vtt + 2 * dk * dt * vkt);
     } else {
-      out.sigmaPGeV[k] = out.sigmaPtGeV[k];
+      out.sigmaPGeV[k] = NaN;
     }
     out.curvatureSignificance[k] = absK / Math.sqrt(vkk);
   }

@@ -106,6 +106,7 @@ export interface MomentumResolutionInput {
   /** β of the particle; defaults to 1. */
   readonly beta?: number;
   readonly charge?: number;
+  /** B_z [T], signed along +z as everywhere in Sagitta (only |B| matters here). */
   readonly fieldT: number;
   /** Projected track length L [m]. */
   readonly lengthM: number;
@@ -140,12 +141,12 @@ export function momentumResolution(input: MomentumResolutionInput): MomentumReso
   const { momentumGeV, fieldT, lengthM, sigmaM } = input;
   const z = Math.abs(input.charge ?? 1);
   const beta = input.beta ?? 1;
-  if (!(fieldT > 0)) throw msg.badArgument('fieldT', fieldT, 'a positive field in tesla');
+  if (!Number.isFinite(fieldT) || fieldT === 0) throw msg.badArgument('fieldT', fieldT, 'a non-zero magnetic field in tesla (signed along +z)');
   if (!(momentumGeV > 0)) throw msg.badArgument('momentumGeV', momentumGeV, 'a positive momentum in GeV/c');
   const sigmaKMeas = input.positionsM
     ? curvatureSigmaLeastSquares(input.positionsM, sigmaM)
     : curvatureSigmaEquallySpaced({ nPoints: input.nPoints ?? 10, sigmaM, lengthM });
-  const toFraction = momentumGeV / (GEV_PER_TESLA_METRE * z * fieldT);
+  const toFraction = momentumGeV / (GEV_PER_TESLA_METRE * z * Math.abs(fieldT));
   const measurement = sigmaKMeas * toFraction;
   const multipleScattering = input.material
     ? multipleScatteringCurvatureSigma({ momentumGeV, beta, charge: z, lengthM, radiationLengthM: radiationLengthM(input.material) }) * toFraction

@@ -1,8 +1,4 @@
-import { GEV_PER_TESLA_METRE } from '../constants.js';
-import { msg } from '../errors.js';
 import type { Column } from '../io/columnTable.js';
-import type { HitTable } from '../io/hitTable.js';
-import { indexTracks } from '../io/indexTracks.js';
 import { PION_PLUS, type Particle } from '../particles.js';
 import type { Material } from '../matter/materials.js';
 import type { TrackTable } from './measureTracks.js';
@@ -37,14 +33,13 @@ export interface ResolutionBudgetColumns {
  *  - multiple scattering: `multipleScatteringCurvatureSigma` over the projected length L with
  *    the material's X₀, β from p and the mass hypothesis, dip angle from tan λ when measured;
  *  - total in quadrature. σ(p) = p · σ(κ)/|κ| with κ from p_T = 0.299792458 |z| B R.
- * Rows follow `tracks` (same (event, track) order as `measureTracks`); valid for small sagitta.
+ * Rows follow `tracks`; the hits are the ones the track table was measured from (kept on it),
+ * and κ is the fitted curvature. Valid for small sagitta.
  */
-export function resolutionBudget(hits: HitTable, tracks: TrackTable, options: ResolutionBudgetOptions): ResolutionBudgetColumns {
+export function resolutionBudget(tracks: TrackTable, options: ResolutionBudgetOptions): ResolutionBudgetColumns {
   const species = options.particle ?? PION_PLUS;
   const x0M = radiationLengthM(options.material);
-  const assigned = keepAssigned(hits);
-  const { table, index } = indexTracks(assigned);
-  if (index.count !== tracks.count) throw msg.badArgument('tracks', tracks.count, `the track table measured from these hits (${index.count} tracks)`);
+  const table = tracks.hits;
   const n = tracks.count;
   const out = {
     count: n,
@@ -52,10 +47,7 @@ export function resolutionBudget(hits: HitTable, tracks: TrackTable, options: Re
   };
   const m = tracks.momentum;
   for (let k = 0; k < n; k++) {
-    if (index.event[k] !== tracks.event[k] || index.track[k] !== tracks.track[k]) {
-      throw msg.badArgument('tracks', `event ${tracks.event[k]} track ${tracks.track[k]}`, 'the track table measured from these hits, in the same order');
-    }
-    const a = index.offsets[k], b = index.offsets[k + 1];
+    const a = tracks.offsets[k], b = tracks.offsets[k + 1];
     const pt = m.ptGeV[k];
     const p = tracks.hasZ ? m.pGeV[k] : pt;
     if (tracks.status[k] !== 'ok' || !(pt > 0) || b - a < 3) {
@@ -75,7 +67,7 @@ export function resolutionBudget(hits: HitTable, tracks: TrackTable, options: Re
     }
     const lengthM = hi - lo;
     out.lengthM[k] = lengthM;
-    const kappaAbs = (GEV_PER_TESLA_METRE * Math.abs(m.charge[k]) * Math.abs(tracks.fieldT)) / pt;
+    const kappaAbs = Math.abs(tracks.kappa[k]);
     let sigmaKappa: number;
     if (table.sigmaX !== undefined) {
       const sig = new Float64Array(b - a);
@@ -96,27 +88,14 @@ export function resolutionBudget(hits: HitTable, tracks: TrackTable, options: Re
   return out;
 }
 
-function keepAssigned(hits: HitTable): HitTable {
-  let unassigned = 0;
-  for (let i = 0; i < hits.length; i++) if (hits.track[i] < 0) unassigned++;
-  if (unassigned === 0) return hits;
-  const keep: number[] = [];
-  for (let i = 0; i < hits.length; i++) if (hits.track[i] >= 0) keep.push(i);
-  const pick = (c: Float64Array | undefined) => (c ? Float64Array.from(keep, (i) => c[i]) : undefined);
-  return {
-    length: keep.length, event: pick(hits.event)!, track: pick(hits.track)!, x: pick(hits.x)!, y: pick(hits.y)!,
-    z: pick(hits.z), sigmaX: pick(hits.sigmaX), sigmaY: pick(hits.sigmaY), sigmaZ: pick(hits.sigmaZ), source: hits.source,
-  };
-}
-
 /**
  * The budget as result-table columns, named as `sagitta fit --material` writes them:
  * sigma_p_meas, sigma_p_ms, sigma_p_total, all σ(p) in GeV/c.
  */
 export function resolutionBudgetColumns(budget: ResolutionBudgetColumns): Column[] {
   return [
-    { name: 'sigma_p_meas', values: budget.sigmaPMeasGeV, digits: 4 },
-    { name: 'sigma_p_ms', values: budget.sigmaPMsGeV, digits: 4 },
-    { name: 'sigma_p_total', values: budget.sigmaPTotalGeV, digits: 4 },
+    { name: 'sigma_p_meas_GeV_c', values: budget.sigmaPMeasGeV, digits: 4 },
+    { name: 'sigma_p_ms_GeV_c', values: budget.sigmaPMsGeV, digits: 4 },
+    { name: 'sigma_p_total_GeV_c', values: budget.sigmaPTotalGeV, digits: 4 },
   ];
 }

@@ -2,9 +2,9 @@ import type { ColumnTable } from '../io/columnTable.js';
 import type { TrackTable } from './measureTracks.js';
 
 /**
- * The track table as output columns, in the order `sagitta fit` writes them. Units are in the
- * names (`_m`, `_GeV`, `_rad`); `p_GeV`, `tanLambda`, `z0_m` and `sigma_p_GeV` are empty
- * when the hits carry no z.
+ * The track table as output columns, in the order `sagitta fit` writes them: snake_case names
+ * ending in their unit (`_m`, `_rad`, `_GeV_c` for momenta). `p_GeV_c`, `tan_lambda`, `z0_m` and
+ * `sigma_p_GeV_c` are empty when the hits carry no z.
  */
 export function trackTableColumns(t: TrackTable): ColumnTable {
   const m = t.momentum;
@@ -13,18 +13,18 @@ export function trackTableColumns(t: TrackTable): ColumnTable {
     columns: [
       { name: 'event', values: t.event, digits: 0 },
       { name: 'track', values: t.track, digits: 0 },
-      { name: 'nhits', values: t.nhits, digits: 0 },
+      { name: 'n_hits', values: t.nhits, digits: 0 },
       { name: 'charge', values: m.charge, digits: 0 },
-      { name: 'R_m', values: m.radiusM },
-      { name: 'pT_GeV', values: m.ptGeV },
-      { name: 'p_GeV', values: m.pGeV },
-      { name: 'tanLambda', values: m.tanLambda },
+      { name: 'radius_m', values: m.radiusM },
+      { name: 'pt_GeV_c', values: m.ptGeV },
+      { name: 'p_GeV_c', values: m.pGeV },
+      { name: 'tan_lambda', values: m.tanLambda },
       { name: 'phi0_rad', values: t.phi0 },
       { name: 'd0_m', values: t.d0 },
       { name: 'z0_m', values: t.z0 },
-      { name: 'sigma_pT_GeV', values: m.sigmaPtGeV, digits: 4 },
-      { name: 'sigma_p_GeV', values: m.sigmaPGeV, digits: 4 },
-      { name: 'kappa_signif', values: m.curvatureSignificance, digits: 4 },
+      { name: 'sigma_pt_GeV_c', values: m.sigmaPtGeV, digits: 4 },
+      { name: 'sigma_p_GeV_c', values: m.sigmaPGeV, digits: 4 },
+      { name: 'kappa_significance', values: m.curvatureSignificance, digits: 4 },
       { name: 'chi2', values: t.chi2, digits: 6 },
       { name: 'ndf', values: t.ndf, digits: 0 },
       { name: 'iterations', values: t.iterations, digits: 0 },

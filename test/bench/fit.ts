@@ -11,7 +11,7 @@ import { mkdtempSync, openSync, writeSync, closeSync, statSync, rmSync } from 'n
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { fitCircles, type CircleMethod } from '../../lib/fit/fitCircles.js';
+import { fitCircles } from '../../lib/fit/fitCircles.js';
 import { preparePlaneHits } from '../../lib/fit/preparePlaneHits.js';
 import { parseHitsCsv } from '../../lib/io/parseHitsCsv.js';
 import { readFileSync } from 'node:fs';
@@ -62,7 +62,7 @@ function fitRates(): void {
   // Weights and the screen of all numbers are made once per table (the input), as measureTracks
   // and the fit lab do; the last line shows the cost with that preparation inside the timing.
   const hits = preparePlaneHits(plain);
-  const cases: [string, CircleMethod, boolean, number | undefined][] = [
+  const cases: [string, string, boolean, number | undefined][] = [
     ['kasa (centre, radius, κ, φ0, d0)', 'kasa', false, 8e6],
     ['kasa + χ² + covariance', 'kasa', true, undefined],
     ['taubin (centre, radius, κ, φ0, d0)', 'taubin', false, 5e6],

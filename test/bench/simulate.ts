@@ -9,7 +9,8 @@ import { performance } from 'node:perf_hooks';
 import { PION_MINUS, PROTON } from '../../lib/particles.js';
 import { chamber, seededRandom, simulateChamber, transportTrack, TRANSPORT_DEFAULTS, type SimulationConfig } from '../../lib/simulate/index.js';
 import { chamberMedium, VACUUM } from '../../lib/matter/index.js';
-import { BUILTIN_FITTERS, compareFitters, fitLabSample } from '../../lib/fitlab/index.js';
+import { BUILT_IN_FIT_METHODS } from '../../lib/fit/index.js';
+import { compareFitters, fitLabSample } from '../../lib/fitlab/index.js';
 
 export interface BenchResult { readonly name: string; readonly value: number; readonly unit: string; readonly target: string; readonly pass: boolean }
 
@@ -77,10 +78,10 @@ export function benchSimulate(): BenchResult[] {
     const t0 = performance.now();
     const s = fitLabSample({ tracks, momentumGeV: [0.3, 10], lengthsM: [0.5, 1], hitsPerTrack, sigmaM: 3e-4, fieldT: 1.5, seed: 3 });
     sampleSeconds = (performance.now() - t0) / 1000;
-    compareFitters(BUILTIN_FITTERS, s);
+    compareFitters(BUILT_IN_FIT_METHODS, s);
   });
   out.push({ name: `fitLabSample ${tracks} × ${hitsPerTrack}`, value: sampleSeconds * 1000, unit: 'ms', target: '(info)', pass: true });
-  out.push({ name: `compareFitters ${BUILTIN_FITTERS.length} built-in fits, incl. sample`, value: tracks / tLab, unit: 'tracks/s', target: '(info)', pass: true });
+  out.push({ name: `compareFitters ${BUILT_IN_FIT_METHODS.length} built-in fits, incl. sample`, value: tracks / tLab, unit: 'tracks/s', target: '(info)', pass: true });
   return out;
 }
 

@@ -25,27 +25,27 @@ const base: FitCommandOptions = { field: '1.5 T', fitter: 'geometric', lengthUni
 
 describe('sagitta fit --material (issue 3: momentum error budget)', () => {
   const hits = writeHits();
-  it('adds sigma_p_meas, sigma_p_ms and sigma_p_total; the MS term matches momentumResolution for argon gas', () => {
+  it('adds sigma_p_meas_GeV_c, sigma_p_ms_GeV_c and sigma_p_total_GeV_c; the MS term matches momentumResolution for argon gas', async () => {
     const out = join(dir, 'tracks.json');
-    const summary = runFit(hits, { ...base, material: 'argon-gas', particle: 'pi+', out });
+    const summary = await runFit(hits, { ...base, material: 'argon-gas', particle: 'pi+', out });
     const row = JSON.parse(readFileSync(out, 'utf8')).tracks[0];
-    expect(row).toHaveProperty('sigma_p_meas');
-    expect(row).toHaveProperty('sigma_p_ms');
-    const p = row.pT_GeV as number;
+    expect(row).toHaveProperty('sigma_p_meas_GeV_c');
+    expect(row).toHaveProperty('sigma_p_ms_GeV_c');
+    const p = row.pt_GeV_c as number;
     const chord = 2 * 2 * Math.sin(0.25);
     const r = momentumResolution({ momentumGeV: p, beta: p / Math.hypot(p, PION_PLUS.massMeV / 1000), fieldT: 1.5, lengthM: chord, sigmaM: 1.5e-4, nPoints: 25, material: material('argon-gas') });
-    expect(Math.abs(row.sigma_p_ms / (p * r.multipleScattering) - 1)).toBeLessThan(1e-3); // 4 significant digits in the file
-    expect(Math.abs(row.sigma_p_total / Math.hypot(row.sigma_p_meas, row.sigma_p_ms) - 1)).toBeLessThan(1e-3);
+    expect(Math.abs(row.sigma_p_ms_GeV_c / (p * r.multipleScattering) - 1)).toBeLessThan(1e-3); // 4 significant digits in the file
+    expect(Math.abs(row.sigma_p_total_GeV_c / Math.hypot(row.sigma_p_meas_GeV_c, row.sigma_p_ms_GeV_c) - 1)).toBeLessThan(1e-3);
     // The measurement term is the exact least-squares error for these hits: close to the fit's own σ(pT).
-    expect(Math.abs(row.sigma_p_meas / row.sigma_pT_GeV - 1)).toBeLessThan(0.05);
+    expect(Math.abs(row.sigma_p_meas_GeV_c / row.sigma_pt_GeV_c - 1)).toBeLessThan(0.05);
     expect(summary).toMatch(/error budget in argon-gas \(β from pi\+\): median σp\/p measurement [\d.]+ %, multiple scattering [\d.]+ %/);
   });
-  it('without --material the columns are absent', () => {
+  it('without --material the columns are absent', async () => {
     const out = join(dir, 'plain.csv');
-    runFit(hits, { ...base, out });
-    expect(readFileSync(out, 'utf8').split('\n')[0]).not.toMatch(/sigma_p_meas/);
+    await runFit(hits, { ...base, out });
+    expect(readFileSync(out, 'utf8').split('\n')[0]).not.toMatch(/sigma_p_meas_GeV_c/);
   });
-  it('an unknown material is a located, listed error', () => {
-    expect(() => runFit(hits, { ...base, material: 'cheese', out: join(dir, 'x.csv') })).toThrow(/unknown material "cheese"/);
+  it('an unknown material is a located, listed error', async () => {
+    await expect(runFit(hits, { ...base, material: 'cheese', out: join(dir, 'x.csv') })).rejects.toThrow(/unknown material "cheese"/);
   });
 });

@@ -39,19 +39,19 @@ describe('sagitta fit', () => {
     expect(r.code).toBe(0);
     const rows = readFileSync(join(dir, 'out.csv'), 'utf8').trim().split('\n').map((l) => l.split(','));
     const header = rows.shift()!;
-    for (const c of ['event', 'track', 'nhits', 'charge', 'R_m', 'pT_GeV', 'p_GeV', 'tanLambda', 'sigma_pT_GeV', 'chi2', 'ndf', 'status']) {
+    for (const c of ['event', 'track', 'n_hits', 'charge', 'radius_m', 'pt_GeV_c', 'p_GeV_c', 'tan_lambda', 'sigma_pt_GeV_c', 'chi2', 'ndf', 'status']) {
       expect(header).toContain(c);
     }
     const col = (row: string[], name: string) => row[header.indexOf(name)];
     expect(rows).toHaveLength(3);
     // p_T = 0.299792458 · 1.5 T · 2 m (common practice), p = p_T·√(1 + 0.25²).
-    expect(Number(col(rows[0], 'pT_GeV'))).toBeCloseTo(0.899377374, 6);
-    expect(Number(col(rows[0], 'p_GeV'))).toBeCloseTo(0.899377374 * Math.sqrt(1.0625), 6);
+    expect(Number(col(rows[0], 'pt_GeV_c'))).toBeCloseTo(0.899377374, 6);
+    expect(Number(col(rows[0], 'p_GeV_c'))).toBeCloseTo(0.899377374 * Math.sqrt(1.0625), 6);
     expect(col(rows[0], 'charge')).toBe('1');
     expect(col(rows[1], 'charge')).toBe('-1');
     expect(col(rows[2], 'status')).toBe('too-few-hits');
     expect(r.stderr).toContain('fitted 2, failed 1 (too-few-hits 1)');
-    expect(r.stderr).toContain('1 unassigned hits');
+    expect(r.stderr).toContain('42 hits on 3 tracks, 1 unassigned hits (track < 0) set aside');
     expect(r.stderr).toContain('field 1.5 T');
   });
 
@@ -60,13 +60,16 @@ describe('sagitta fit', () => {
     expect(r.code).toBe(0);
     const json = JSON.parse(readFileSync(join(dir, 'out.json'), 'utf8'));
     expect(json.meta.fitter).toBe('taubin');
+    expect(json.meta.field_T).toBe(1.5);
+    expect(json.meta.counts).toMatchObject({ hits: 43, tracks: 3, track_hits: 42, unassigned_hits: 1, status_ok: 2 });
+    expect(json.meta.counts['status_too-few-hits']).toBe(1);
     expect(json.tracks).toHaveLength(3);
-    expect(json.tracks[2].pT_GeV).toBeNull();
+    expect(json.tracks[2].pt_GeV_c).toBeNull();
   });
 
-  it('refuses a field without a unit, naming the option and an example', () => {
+  it('refuses a field without a unit, naming the option and an example (bad usage: exit 2)', () => {
     const r = sagitta('fit', hits, '--field', '1.5');
-    expect(r.code).toBe(1);
+    expect(r.code).toBe(2);
     expect(r.stderr).toContain('--field "1.5" has no unit; write it with one, e.g. "1.5 T"');
   });
 

@@ -1,12 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import { fitCircle, fitCircles, CIRCLE_METHODS, type CircleMethod } from '../../lib/fit/fitCircles.js';
+import { fitCircle, fitCircles } from '../../lib/fit/fitCircles.js';
+import { BUILT_IN_FIT_METHODS } from '../../lib/fit/fitMethods.js';
+import { preparePlaneHits } from '../../lib/fit/preparePlaneHits.js';
 import { circleFitAt } from '../../lib/fit/circleFit.js';
 import { normalEquations } from '../../lib/fit/curvatureResidual.js';
 import { arc, gaussian } from './helpers.js';
 
-const METHODS = CIRCLE_METHODS;
+const METHODS = BUILT_IN_FIT_METHODS;
 
 describe('fitCircle on exact points (derived check: the points are constructed on the circle)', () => {
   const cases: [string, number, number, number, number, number, number][] = [
@@ -157,7 +159,8 @@ describe('fitCircle covariance is honest (derived check by simulation)', () => {
     for (let i = 0; i < 8; i++) x[i] += 1e-3 * Math.sin(7 * i);
     const base = { kappa: 1.1, phi: 2.0, d: 0.01 };
     const A = new Float64Array(6), G = new Float64Array(3);
-    const chi2 = (p: typeof base) => normalEquations(x, y, undefined, undefined, undefined, 0, 8, x[0], y[0], p, A, G);
+    const span = { hits: preparePlaneHits({ x, y }), from: 0, to: 8 };
+    const chi2 = (p: typeof base) => normalEquations(span, x[0], y[0], p, A, G);
     chi2(base);
     const grad = Array.from(G).map((v) => 2 * v); // ∂χ²/∂p = 2 Jᵀr
     const h = 1e-7;
@@ -180,7 +183,7 @@ describe('fitCircles never throws on bad numbers: failures are statuses', () => 
   });
 
   it('a bad method name is a bad call and throws', () => {
-    expect(() => fitCircles({ x: new Float64Array(3), y: new Float64Array(3) }, Int32Array.of(0, 3), { method: 'nope' as CircleMethod })).toThrow(/method = "nope"/);
+    expect(() => fitCircles({ x: new Float64Array(3), y: new Float64Array(3) }, Int32Array.of(0, 3), { method: 'nope' })).toThrow(/method = "nope"/);
   });
 
   it('without hit errors, the error is estimated from the residuals (χ²/ndf scaling)', () => {

@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { fitHelix, fitHelices, arcLengths } from '../../lib/fit/fitHelices.js';
+import { fitHelix, fitHelices } from '../../lib/fit/fitHelices.js';
+import { arcLengthsAndSlopes, newArcLengthSlopes } from '../../lib/fit/arcLengths.js';
+
+/** Arc lengths alone (the s column of arcLengthsAndSlopes), in the argument order of the circle parametrisation. */
+function arcLengths(x: Float64Array, y: Float64Array, from: number, to: number, kappa: number, phi: number, d: number, xRef: number, yRef: number, out: Float64Array): void {
+  const scratch = newArcLengthSlopes(to - from);
+  arcLengthsAndSlopes({ x, y, from, to }, { kappa, phi, d, xRef, yRef }, scratch);
+  out.set(scratch.s.subarray(0, to - from));
+}
 import { fitLine } from '../../lib/fit/fitLine.js';
 import { gaussian } from './helpers.js';
 
@@ -77,7 +85,6 @@ describe('fitLine (textbook weighted least squares)', () => {
 
 describe('arcLengthsAndSlopes (analytic ∂s/∂(κ, φ, d) used by the helix covariance)', () => {
   it('matches central finite differences of arcLengths, for curved, nearly straight and spiralling tracks', async () => {
-    const { arcLengthsAndSlopes } = await import('../../lib/fit/fitHelices.js');
     const cases: [number, number, number][] = [[1.7, 0.3, 0.002], [1e-6, -0.4, 0.001], [-25, 1.0, -0.0005], [40, 2.0, 0.0003]];
     for (const [kappa, phi, d] of cases) {
       const n = 40, R = 1 / Math.abs(kappa);
@@ -94,7 +101,7 @@ describe('arcLengthsAndSlopes (analytic ∂s/∂(κ, φ, d) used by the helix co
         y[i] = cy + R * Math.sin(ang) + 1e-4 * Math.cos(5 * i);
       }
       const s = new Float64Array(n), dK = new Float64Array(n), dP = new Float64Array(n), dD = new Float64Array(n);
-      arcLengthsAndSlopes(x, y, 0, n, kappa, phi, d, 0, 0, s, dK, dP, dD);
+      arcLengthsAndSlopes({ x, y, from: 0, to: n }, { kappa, phi, d, xRef: 0, yRef: 0 }, { s, dsK: dK, dsP: dP, dsD: dD });
       const up = new Float64Array(n), dn = new Float64Array(n);
       const steps = [1e-6 * Math.max(Math.abs(kappa), 1), 1e-7, 1e-8];
       const analytic = [dK, dP, dD];

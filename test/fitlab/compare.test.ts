@@ -1,8 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { fitCircleGeometric } from '../../lib/fit/index.js';
-import {
-  BUILTIN_FITTERS, compareFitters, fitLabSample, GEOMETRIC_FITTER, HELIX_FITTER, meritFigure, pullFigure, pValueFigure, type Fitter,
-} from '../../lib/fitlab/index.js';
+import { BUILT_IN_FIT_METHODS, defineFitMethod, fitCircle } from '../../lib/fit/index.js';
+import { compareFitters, fitLabSample, meritFigure, pullFigure, pValueFigure } from '../../lib/fitlab/index.js';
 import { chamberMedium } from '../../lib/matter/index.js';
 import { glucksternCurvatureSigma } from '../../lib/track/resolution.js';
 
@@ -10,7 +8,7 @@ describe('the fit lab on simulated truth', () => {
   it('fitLabSample: the true curvature sign follows lib/fit (κ > 0 counter-clockwise; q > 0 turns clockwise in B along +z)', () => {
     const s = fitLabSample({ tracks: 20, momentumGeV: [1, 1], lengthsM: [1], hitsPerTrack: 30, sigmaM: 1e-7, fieldT: 1.5, seed: 2 });
     for (let k = 0; k < s.count; k++) {
-      const f = fitCircleGeometric(s.x.subarray(s.offsets[k], s.offsets[k + 1]), s.y.subarray(s.offsets[k], s.offsets[k + 1]), 1e-7);
+      const f = fitCircle(s.x.subarray(s.offsets[k], s.offsets[k + 1]), s.y.subarray(s.offsets[k], s.offsets[k + 1]), { sigma: 1e-7 });
       expect(Math.sign(f.kappa)).toBe(-Math.sign(s.charge[k]));
       expect(Math.abs(f.kappa / s.kappaTrue[k] - 1)).toBeLessThan(1e-5);
     }
@@ -18,7 +16,7 @@ describe('the fit lab on simulated truth', () => {
 
   it('without scattering: geometric pulls have mean ≈ 0 and width within 10 % of 1; χ² p-values are flat (5 % below 0.05)', () => {
     const s = fitLabSample({ tracks: 3000, momentumGeV: [0.3, 10], lengthsM: [0.3, 0.6, 1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 3 });
-    const r = compareFitters(BUILTIN_FITTERS, s);
+    const r = compareFitters(BUILT_IN_FIT_METHODS, s);
     const g = r.summary.find((x) => x.fitter === 'geometric')!;
     expect(g.failureRate).toBe(0);
     expect(Math.abs(g.pullMean)).toBeLessThan(0.1);
@@ -30,7 +28,7 @@ describe('the fit lab on simulated truth', () => {
 
   it('curvature resolution follows Gluckstern (NIM 24 (1963) 381: σ(κ) = (ε/L²)√(720/(N+4))) within 10 % for 1 m tracks of 40 hits', () => {
     const s = fitLabSample({ tracks: 3000, momentumGeV: [2, 10], lengthsM: [1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 4 });
-    const g = compareFitters([GEOMETRIC_FITTER], s).summary[0];
+    const g = compareFitters(['geometric'], s).summary[0];
     // The hits span 39/40 of the length (first hit one spacing after the start).
     const expected = glucksternCurvatureSigma({ nPoints: 40, sigmaM: 3e-4, lengthM: 0.975 });
     expect(Math.abs(g.kappaResolution / expected - 1)).toBeLessThan(0.1);
@@ -38,61 +36,59 @@ describe('the fit lab on simulated truth', () => {
 
   it('with multiple scattering in liquid hydrogen: geometric pulls within 10 % of 1 at high momentum (5–20 GeV/c), wider at low momentum', () => {
     const s = fitLabSample({ tracks: 3000, momentumGeV: [0.3, 20], lengthsM: [0.5, 1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 5, medium: chamberMedium('liquid hydrogen') });
-    const r = compareFitters([GEOMETRIC_FITTER], s, { momentumEdgesGeV: [0.3, 1, 5, 20] });
+    const r = compareFitters(['geometric'], s, { momentumEdgesGeV: [0.3, 1, 5, 20] });
     const [low, , high] = r.byMomentum;
     expect(high.tracks).toBeGreaterThan(500);
     expect(Math.abs(high.pullWidth - 1)).toBeLessThan(0.1);
     expect(low.pullWidth).toBeGreaterThan(1.5);
   });
 
-  it('helix fitter on dipped tracks (tan λ ∈ [−1, 1]): κ and tan λ pulls have width within 10 % of 1; circle fits measure p_T', () => {
+  it('on dipped tracks (tan λ ∈ [−1, 1]) every method is run as a helix fit: κ and tan λ pulls have width within 10 % of 1, p_T unbiased', () => {
     const s = fitLabSample({ tracks: 2000, momentumGeV: [0.5, 5], lengthsM: [0.6, 1], hitsPerTrack: 40, sigmaM: 3e-4, sigmaZM: 1e-3, tanLambda: [-1, 1], fieldT: 1.5, seed: 12 });
-    const r = compareFitters([GEOMETRIC_FITTER, HELIX_FITTER], s);
-    const [geo, helix] = r.summary;
-    expect(Math.abs(helix.pullWidth - 1)).toBeLessThan(0.1);
-    expect(Math.abs(helix.tanLambdaPullWidth - 1)).toBeLessThan(0.1);
+    const [geo] = compareFitters(['geometric'], s).summary;
+    expect(Math.abs(geo.pullWidth - 1)).toBeLessThan(0.1);
+    expect(Math.abs(geo.tanLambdaPullWidth - 1)).toBeLessThan(0.1);
     expect(Math.abs(geo.momentumBias)).toBeLessThan(0.01);
-    expect(geo.tanLambdaResolution).toBeNaN();
   });
 
   it('curvature error grows as L⁻² (fact of the trade): halving the length roughly quadruples σ(κ) at fixed hit count', () => {
     const s = fitLabSample({ tracks: 4000, momentumGeV: [3, 10], lengthsM: [0.5, 1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 6 });
-    const [short, long] = compareFitters([GEOMETRIC_FITTER], s).byLength;
+    const [short, long] = compareFitters(['geometric'], s).byLength;
     expect(short.kappaResolution / long.kappaResolution).toBeGreaterThan(3.4);
     expect(short.kappaResolution / long.kappaResolution).toBeLessThan(4.6);
   });
 
   it('a method written by a user (three-point sagitta) is compared beside the built-ins; a throwing method counts as failures', () => {
-    const threePoint: Fitter = {
+    const threePoint = defineFitMethod({
       name: 'three-point',
-      fit(x, y) {
+      fitTrack({ x, y }) {
         const n = x.length, a = 0, b = n >> 1, c = n - 1;
         // Signed curvature through three points: 2·cross / (|AB||BC||CA|).
         const cross = (x[b] - x[a]) * (y[c] - y[a]) - (y[b] - y[a]) * (x[c] - x[a]);
         const d = Math.hypot(x[b] - x[a], y[b] - y[a]) * Math.hypot(x[c] - x[b], y[c] - y[b]) * Math.hypot(x[a] - x[c], y[a] - y[c]);
         return { kappa: (2 * cross) / d };
       },
-    };
-    const broken: Fitter = { name: 'broken', fit: () => { throw new Error('nope'); } };
+    });
+    const broken = defineFitMethod({ name: 'broken', fitTrack: () => { throw new Error('nope'); } });
     const s = fitLabSample({ tracks: 500, momentumGeV: [0.5, 2], lengthsM: [1], hitsPerTrack: 30, sigmaM: 3e-4, fieldT: 1.5, seed: 7 });
-    const r = compareFitters([GEOMETRIC_FITTER, threePoint, broken], s);
+    const r = compareFitters(['geometric', threePoint, broken], s);
     const [geo, tp, br] = r.summary;
     expect(tp.failureRate).toBe(0);
     expect(tp.pullWidth).toBeNaN();
     expect(tp.kappaResolution).toBeGreaterThan(geo.kappaResolution);
     expect(br.failureRate).toBe(1);
-    expect(() => compareFitters([GEOMETRIC_FITTER, GEOMETRIC_FITTER], s)).toThrow(/distinct names/);
+    expect(() => compareFitters(['geometric', 'geometric'], s)).toThrow(/distinct names/);
   });
 
   it('figures are plain plotly JSON: one trace per fitter plus the reference curve', () => {
     const s = fitLabSample({ tracks: 300, momentumGeV: [0.5, 5], lengthsM: [0.5, 1], hitsPerTrack: 20, sigmaM: 3e-4, fieldT: 1.5, seed: 8 });
-    const r = compareFitters(BUILTIN_FITTERS, s);
+    const r = compareFitters(BUILT_IN_FIT_METHODS, s);
     const pulls = pullFigure(r);
-    expect(pulls.data.length).toBe(5);
+    expect(pulls.data.length).toBe(4);
     expect(JSON.parse(JSON.stringify(pulls)).data[0].y.reduce((a: number, b: number) => a + b, 0)).toBeGreaterThan(250);
-    expect(pValueFigure(r).data.length).toBe(5);
+    expect(pValueFigure(r).data.length).toBe(4);
     const res = meritFigure(r, 'momentum', 'momentumResolution');
-    expect(res.data.map((t) => t.name)).toEqual(['kasa', 'taubin', 'geometric', 'helix']);
+    expect(res.data.map((t) => t.name)).toEqual(['geometric', 'taubin', 'kasa']);
     expect((res.layout.xaxis as { type: string }).type).toBe('log');
   });
 });
@@ -107,7 +103,7 @@ describe('the fit lab on a full chamber run', () => {
     const s = fitLabSampleFromRun(run, { fieldT: 1.5, minHits: 20, species: ['pi-', 'pi+', 'mu-', 'mu+'] });
     expect(s.count).toBeGreaterThan(150);
     for (let k = 0; k < s.count; k++) expect(Math.sign(s.kappaTrue[k])).toBe(-Math.sign(s.charge[k]));
-    const r = compareFitters([GEOMETRIC_FITTER], s, { momentumEdgesGeV: [0.02, 0.2, 0.45, 1] });
+    const r = compareFitters(['geometric'], s, { momentumEdgesGeV: [0.02, 0.2, 0.45, 1] });
     expect(r.byLength.length).toBe(6);
     const fast = r.byMomentum[2];
     expect(fast.tracks).toBeGreaterThan(50);
@@ -122,6 +118,6 @@ describe('the fit lab on a full chamber run', () => {
     // track, so a single circle overestimates the first-hit curvature (momentum biased low).
     const protons = fitLabSampleFromRun(run, { fieldT: 1.5, minHits: 20, species: ['proton'] });
     expect(protons.count).toBeGreaterThan(30);
-    expect(compareFitters([GEOMETRIC_FITTER], protons).summary[0].momentumBias).toBeLessThan(-0.1);
+    expect(compareFitters(['geometric'], protons).summary[0].momentumBias).toBeLessThan(-0.1);
   });
 });

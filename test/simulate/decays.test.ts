@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { KAON_SHORT, LAMBDA, MUON_PLUS, PION_MINUS, PION_PLUS, PROTON } from '../../lib/particles.js';
-import { chamber, invariantMassMeV, michelMaxEnergyMeV, sampleMichelFraction, seededRandom, simulateChamber, twoBodyDecay, twoBodyMomentumMeV, type SimulationConfig } from '../../lib/simulate/index.js';
+import { chamber, michelMaxEnergyMeV, sampleMichelFraction, seededRandom, simulateChamber, twoBodyDecay, type SimulationConfig } from '../../lib/simulate/index.js';
+import { invariantMassMeV, twoBodyMomentumMeV } from '../../lib/vertex/index.js';
 import { chamberMedium, VACUUM } from '../../lib/matter/index.js';
 
 // Reference values: PDG RPP 2022 listings, see test/fixtures/pdg-decays/README.md.

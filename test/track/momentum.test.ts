@@ -43,6 +43,8 @@ describe('charge sign from the turning sense (convention: B along +z, positive p
     // Starting at the top of the circle going clockwise: travelling along +x.
     expect(m.pxGeV).toBeCloseTo(0.899377374, 9);
     expect(m.pyGeV).toBeCloseTo(0, 9);
+    // Without z the dip is not measured: no p, p_z, tan λ or σ(p) rather than p = p_T.
+    expect([m.pGeV, m.pzGeV, m.tanLambda, m.sigmaPGeV]).toEqual([NaN, NaN, NaN, NaN]);
   });
 });
 

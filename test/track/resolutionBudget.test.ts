@@ -24,7 +24,7 @@ function hits(): HitTable {
 describe('resolutionBudget (per-track error budget for sagitta fit --material)', () => {
   const h = hits();
   const tracks = measureTracks(h, { fieldT: 1.5 });
-  const b = resolutionBudget(h, tracks, { material: material('argon-gas'), particle: PION_PLUS });
+  const b = resolutionBudget(tracks, { material: material('argon-gas'), particle: PION_PLUS });
 
   it('has one row per track with the chord extent as length (2R sin(span/2) = 1.129 m)', () => {
     expect(b.count).toBe(2);
@@ -53,7 +53,7 @@ describe('resolutionBudgetColumns', () => {
   it('names the columns sigma_p_meas, sigma_p_ms, sigma_p_total (issue 3)', async () => {
     const { resolutionBudgetColumns } = await import('../../lib/track/resolutionBudget.js');
     const h = hits();
-    const b = resolutionBudget(h, measureTracks(h, { fieldT: 1.5 }), { material: material('liquid-hydrogen') });
-    expect(resolutionBudgetColumns(b).map((c) => c.name)).toEqual(['sigma_p_meas', 'sigma_p_ms', 'sigma_p_total']);
+    const b = resolutionBudget(measureTracks(h, { fieldT: 1.5 }), { material: material('liquid-hydrogen') });
+    expect(resolutionBudgetColumns(b).map((c) => c.name)).toEqual(['sigma_p_meas_GeV_c', 'sigma_p_ms_GeV_c', 'sigma_p_total_GeV_c']);
   });
 });

@@ -1,138 +1,205 @@
 import { Command, Option } from 'commander';
+import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { readHits } from '../../../lib/io/readHits.js';
 import { READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv.js';
-import { formatCsvBytes, rowObjects, writeFileAtomic } from '../../../lib/io/columnTable.js';
-import { CIRCLE_METHODS, type CircleMethod } from '../../../lib/fit/fitCircles.js';
-import { measureTracks, type TrackTable } from '../../../lib/track/measureTracks.js';
-import { trackTableColumns } from '../../../lib/track/trackTableColumns.js';
+import { fitMethods } from '../../../lib/fit/fitMethods.js';
 import { fieldTesla, lengthMetres, metresPerUnit } from '../../../lib/units.js';
 import { msg } from '../../../lib/errors.js';
-import { consumeWarnings } from '../../../lib/warnings.js';
-import type { ColumnTable } from '../../../lib/io/columnTable.js';
 import { material as lookupMaterial } from '../../../lib/matter/materials.js';
 import { particle as lookupParticle } from '../../../lib/particles.js';
-import { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns } from '../../../lib/track/resolutionBudget.js';
+import { formatWarning } from '../../../lib/warnings.js';
+import type { FitJobOptions } from '../../batch/fitJob.js';
+import { resultFormatOf } from '../../batch/inputFormat.js';
+import { planOutputs } from '../../batch/outputPlan.js';
+import { OutputSet } from '../../batch/outputSet.js';
+import { wantProgress } from '../../batch/progress.js';
+import { stdoutTarget } from '../../batch/resultSink.js';
+import { runBatch, type BatchTotals } from '../../batch/runBatch.js';
+import { parseShard, type Shard } from '../../batch/shard.js';
+import { usage } from '../usage.js';
+import { parseThreads } from '../threads.js';
 
 export interface FitCommandOptions {
   field: string;
-  fitter: CircleMethod;
+  fitter: string;
   out?: string;
   lengthUnit: string;
   hitError?: string;
   chargeNumber: string;
-  /** Chamber medium for the momentum error budget (adds sigma_p_meas, sigma_p_ms, sigma_p_total). */
+  /** Chamber medium for the momentum error budget (adds sigma_p_meas_GeV_c, sigma_p_ms_GeV_c, sigma_p_total_GeV_c). */
   material?: string;
   /** Mass hypothesis for β in the multiple-scattering term (with --material). */
   particle?: string;
+  threads?: string;
+  shard?: string;
+  quiet?: boolean;
 }
+
+/** Help examples; each runs as written from the package folder (test/cli/helpExamples.test.ts). */
+export const FIT_EXAMPLES = [
+  'sagitta fit notebooks/data/brindlemoor-hits.csv --field "15 kG" --out out/tracks.csv',
+  'sagitta fit notebooks/data/brindlemoor-hits.csv --field "1.5 T" --material liquid-hydrogen --out out/tracks.json',
+  'sagitta fit notebooks/data/brindlemoor-hits.csv --field "1.5 T" --shard 2/4 --out out/part-2.csv',
+];
 
 /**
  * `sagitta fit <hits> --field "1.5 T"`: one row per track (momentum, charge, errors, fit
- * quality) to a CSV or JSON file, or CSV on stdout; a short summary on stderr.
- * Exit code 1 only for unusable input; a track that cannot be fitted is a row with a status.
+ * quality) to a CSV, JSON Lines, JSON or Parquet file, or CSV on stdout; a short summary on
+ * stderr. Large inputs stream through worker threads (kernel/batch), with the same bytes out
+ * whatever the thread count. Exit codes as kernel/cli/main.ts says.
  */
 export function registerFit(program: Command): void {
   program
     .command('fit')
     .description('fit circles/helices to the tracks in a hit file and report momenta, charges and errors')
-    .argument('<hits>', 'hit file: .csv/.tsv or .jsonl with columns event, track, x, y [, z, sigma | sigma_x, sigma_y, sigma_z]')
+    .argument('<hits>', 'hit file: .csv/.tsv, .jsonl, .parquet or .arrow with columns event, track, x, y [, z, sigma | sigma_x, sigma_y, sigma_z]')
     .requiredOption('-B, --field <quantity>', 'magnetic field along +z with its unit, e.g. "1.5 T", "15 kG", "-0.8 T" (negative: along -z)')
-    .addOption(new Option('--fitter <method>', 'circle fit method').choices(CIRCLE_METHODS as string[]).default('geometric'))
-    .option('-o, --out <file>', 'write results to a .csv or .json file (default: CSV on stdout)')
+    .addOption(new Option('--fitter <method>', `fit method: ${fitMethods().map((m) => `${m.name} — ${m.summary}`).join('; ')}`).choices(fitMethods().map((m) => m.name)).default('geometric'))
+    .option('-o, --out <file>', 'write results to a .csv, .jsonl, .json or .parquet file (default: CSV on stdout)')
     .option('--length-unit <unit>', 'unit of length columns whose header has none, e.g. x[cm] overrides it', READ_HITS_DEFAULTS.lengthUnit)
     .option('--hit-error <quantity>', 'position error for hits without a sigma column, e.g. "200 um" (default: estimated from each track\'s residuals)')
     .option('--charge-number <z>', 'charge magnitude |z| of the particles (2 for alpha particles)', '1')
     .option('--material <name>', 'medium the tracks cross, e.g. argon-gas, liquid-hydrogen, liquid-propane: adds the momentum error budget columns')
     .option('--particle <name>', 'mass hypothesis for β in the multiple-scattering term (with --material)', 'pi+')
+    .option('--threads <n>', `worker threads (default: all ${availableParallelism()} cores); the output is the same for any count`)
+    .option('--shard <K/N>', 'fit only the K-th of N slices of the events (by event id), e.g. 3/8; combine the parts with "sagitta merge"')
+    .option('-q, --quiet', 'no progress bar (there is none off a terminal anyway)')
     .addHelpText('after', `
 Hits with a negative track id belong to no track (noise); they are counted, not fitted.
 Hits of one track must be in the order the particle travelled: the turning sense, and so the
 sign of the charge, is read from that order (B along +z: positive particles turn clockwise).
 
-Output columns: event, track, nhits, charge, R_m, pT_GeV, p_GeV, tanLambda, phi0_rad, d0_m, z0_m,
-sigma_pT_GeV, sigma_p_GeV, kappa_signif, chi2, ndf, iterations, status. p_GeV, tanLambda and z0_m
-need a z column. Status is ok, too-few-hits, degenerate, not-converged or bad-input.
+Output columns: event, track, n_hits, charge, radius_m, pt_GeV_c, p_GeV_c, tan_lambda, phi0_rad,
+d0_m, z0_m, sigma_pt_GeV_c, sigma_p_GeV_c, kappa_significance, chi2, ndf, iterations, status.
+p_GeV_c, tan_lambda and z0_m need a z column; chi2 is empty when the hit errors were estimated
+from the residuals. Status is ok, too-few-hits, degenerate, not-converged or bad-input.
+Ids are exact whole numbers up to 2^63 - 1.
 
-With --material: sigma_p_meas (from the hit errors, exact least squares for each track's hits),
-sigma_p_ms (multiple scattering in the medium over the track length, Gluckstern/PDG form, β from
---particle) and sigma_p_total (quadrature sum), all in GeV/c.
+With --material: sigma_p_meas_GeV_c (from the hit errors, exact least squares for each track's
+hits), sigma_p_ms_GeV_c (multiple scattering in the medium over the track length, Gluckstern/PDG
+form, β from --particle) and sigma_p_total_GeV_c (quadrature sum).
 
-Example:
-  sagitta fit notebooks/data/hits.csv --field "15 kG" --out tracks.csv
-  sagitta fit notebooks/data/hits.csv --field "1.5 T" --material argon-gas --out tracks.csv`)
-    .action((hitsPath: string, options: FitCommandOptions) => {
-      const summary = runFit(hitsPath, options);
+Large files are read in pieces of whole events, so memory stays bounded; a file whose events are
+not grouped (an event reappears after others) is read whole instead. With --shard K/N, each
+result row starts with first_hit_position (where the track starts in the input), which
+"sagitta merge" uses to put the parts back in input order and then removes.
+
+Exit codes: 0 done (failed fits are rows with a status); 1 the input is unusable (file:line,
+column named); 2 bad usage.
+
+Examples (from the package folder, with an out/ folder):
+${FIT_EXAMPLES.map((e) => `  ${e}`).join('\n')}`)
+    .action(async (hitsPath: string, options: FitCommandOptions) => {
+      const summary = await runFit(hitsPath, options);
       process.stderr.write(summary + '\n');
     });
 }
 
+interface CheckedFit {
+  readonly job: FitJobOptions;
+  readonly threads: number | undefined;
+  readonly shard: Shard | undefined;
+  readonly format: 'csv' | 'jsonl' | 'json' | 'parquet';
+}
+
+/** Every option checked, with the flag named in the message (usage errors, exit 2). */
+function checkOptions(hitsPath: string, o: FitCommandOptions): CheckedFit {
+  const fieldT = fieldTesla(o.field, { what: '--field' });
+  if (fieldT === 0 || !Number.isFinite(fieldT)) throw msg.badArgument('--field', o.field, 'a non-zero finite field, e.g. "1.5 T"');
+  metresPerUnit(o.lengthUnit, { column: '--length-unit' });
+  let hitErrorM: number | undefined;
+  if (o.hitError !== undefined) {
+    hitErrorM = lengthMetres(o.hitError, { what: '--hit-error' });
+    if (!(hitErrorM > 0 && Number.isFinite(hitErrorM))) throw msg.badArgument('--hit-error', o.hitError, 'a positive length, e.g. "200 um"');
+  }
+  const chargeMagnitude = /^\s*\d+(\.\d+)?\s*$/.test(o.chargeNumber) ? Number(o.chargeNumber) : NaN;
+  if (!(chargeMagnitude > 0 && chargeMagnitude <= 200)) throw msg.badArgument('--charge-number', o.chargeNumber, 'a positive number such as 1 or 2');
+  if (o.material !== undefined) lookupMaterial(o.material);
+  const particle = o.particle ?? 'pi+';
+  lookupParticle(particle);
+  const format = o.out === undefined ? 'csv' : resultFormatOf(o.out);
+  return {
+    job: { fieldT, method: o.fitter, chargeMagnitude, hitErrorM, material: o.material, particle },
+    threads: o.threads === undefined ? undefined : parseThreads(o.threads),
+    shard: o.shard === undefined ? undefined : parseShard(o.shard),
+    format,
+  };
+}
+
 /** Runs the fit command and returns its summary text (also used by tests). */
-export function runFit(hitsPath: string, options: FitCommandOptions): string {
+export async function runFit(hitsPath: string, options: FitCommandOptions): Promise<string> {
   const t0 = performance.now();
-  const fieldT = fieldTesla(options.field, { what: '--field' });
-  if (fieldT === 0) throw msg.badArgument('--field', options.field, 'a non-zero field');
-  metresPerUnit(options.lengthUnit);
-  const hitErrorM = options.hitError !== undefined ? lengthMetres(options.hitError, { what: '--hit-error' }) : undefined;
-  const chargeMagnitude = Number(options.chargeNumber);
-  if (!(chargeMagnitude > 0)) throw msg.badArgument('--charge-number', options.chargeNumber, 'a positive number such as 1 or 2');
-  if (options.out !== undefined && !/\.(csv|json)$/i.test(options.out)) throw msg.unknownFormat(options.out, ['.csv', '.json']);
+  const checked = usage(() => checkOptions(hitsPath, options));
+  const outputs = usage(() => (options.out === undefined ? [] : planOutputs([{ flag: '<hits>', path: hitsPath }], [{ flag: '--out', path: options.out }])));
+  const files = outputs.length ? new OutputSet(outputs) : undefined;
+  let totals: BatchTotals;
+  try {
+    totals = await runBatch({
+      input: hitsPath,
+      lengthUnit: options.lengthUnit,
+      job: 'fit',
+      jobOptions: checked.job,
+      threads: checked.threads,
+      shard: checked.shard,
+      format: checked.format,
+      target: files ? (bytes) => files.write('--out', bytes) : stdoutTarget,
+      restart: files ? () => files.restart('--out') : undefined,
+      meta: (t) => fitMeta(hitsPath, t, checked, options),
+      progress: wantProgress(options.quiet),
+      progressLabel: 'fit',
+    });
+    files?.commit();
+  } catch (err) {
+    files?.abandon();
+    throw err;
+  }
+  return fitSummary(hitsPath, totals, checked, options, (performance.now() - t0) / 1000);
+}
 
-  const hits = readHits(hitsPath, { lengthUnit: options.lengthUnit });
-  const tRead = performance.now();
-  const tracks = measureTracks(hits, { fieldT, method: options.fitter, chargeMagnitude, hitErrorM });
-  const tFit = performance.now();
-  const medium = options.material !== undefined ? lookupMaterial(options.material) : undefined;
-  const budget = medium ? resolutionBudget(hits, tracks, { material: medium, particle: lookupParticle(options.particle ?? 'pi+'), hitErrorM }) : undefined;
-  const baseTable = trackTableColumns(tracks);
-  const table: ColumnTable = budget ? { rows: baseTable.rows, columns: [...baseTable.columns, ...resolutionBudgetColumns(budget)] } : baseTable;
-  if (options.out === undefined) process.stdout.write(formatCsvBytes(table));
-  else if (/\.json$/i.test(options.out)) writeFileAtomic(options.out, formatJson(table, tracks, hitsPath, hits.source.units, options));
-  else writeFileAtomic(options.out, formatCsvBytes(table));
-  const tEnd = performance.now();
+/** The JSON meta block: snake_case keys with units, the counts merge adds up. */
+function fitMeta(hitsPath: string, t: BatchTotals, c: CheckedFit, o: FitCommandOptions): Record<string, unknown> {
+  const { other_shard_hits: _skipped, ...counts } = t.counts;
+  return {
+    input: hitsPath,
+    length_units: t.units,
+    field_T: c.job.fieldT,
+    fitter: t.method ?? c.job.method,
+    helix: t.hasZ,
+    hit_error_m: c.job.hitErrorM ?? null,
+    hit_errors: t.estimatedErrors ? 'estimated from residuals' : c.job.hitErrorM !== undefined ? 'given by --hit-error' : 'from the file',
+    charge_number: c.job.chargeMagnitude,
+    material: o.material ?? null,
+    particle: o.material !== undefined ? c.job.particle : null,
+    counts,
+    ...(c.shard ? { shard: `${c.shard.index}/${c.shard.count}` } : {}),
+  };
+}
 
-  const failed = tracks.count - tracks.statusCounts.ok;
-  const failures = Object.entries(tracks.statusCounts).filter(([s, c]) => s !== 'ok' && c > 0).map(([s, c]) => `${s} ${c}`);
-  const units = Object.entries(hits.source.units).map(([c, u]) => `${c}[${u}]`).join(' ');
+function fitSummary(hitsPath: string, t: BatchTotals, c: CheckedFit, o: FitCommandOptions, seconds: number): string {
+  const n = t.counts;
+  const statuses = Object.entries(n).filter(([k, v]) => k.startsWith('status_') && k !== 'status_ok' && v > 0).map(([k, v]) => `${k.slice(7)} ${v}`);
+  const failed = (n.tracks ?? 0) - (n.status_ok ?? 0);
+  const units = Object.entries(t.units).map(([col, u]) => `${col}[${u}]`).join(' ');
+  const errors = t.estimatedErrors ? 'hit errors estimated from the residuals (chi2 left empty)' : c.job.hitErrorM !== undefined ? `hit error ${o.hitError}` : 'hit errors from the file';
   const lines = [
-    `sagitta fit: ${hitsPath}: ${hits.length} hits in ${tracks.count} tracks; lengths read as ${units}` +
-      (hitErrorM !== undefined && hits.sigmaX === undefined ? `; hit error ${options.hitError}` : hits.sigmaX === undefined ? '; hit errors estimated from residuals' : ''),
-    `  field ${fieldT} T along ${fieldT > 0 ? '+z' : '-z'}, fitter ${tracks.method}${tracks.hasZ ? ', helix (z present)' : ', circle only (no z: p and tan(lambda) not measured)'}`,
-    `  fitted ${tracks.statusCounts.ok}, failed ${failed}${failures.length ? ` (${failures.join(', ')})` : ''}` +
-      (tracks.unassignedHits ? `; ${tracks.unassignedHits} unassigned hits (track < 0) set aside` : ''),
-    `  time ${((tEnd - t0) / 1000).toFixed(2)} s (read ${((tRead - t0) / 1000).toFixed(2)}, fit ${((tFit - tRead) / 1000).toFixed(2)}, write ${((tEnd - tFit) / 1000).toFixed(2)})` +
-      (options.out ? `; results in ${options.out}` : ''),
+    `sagitta fit: ${hitsPath}: ${n.track_hits ?? 0} hits on ${n.tracks ?? 0} tracks` +
+      (n.unassigned_hits ? `, ${n.unassigned_hits} unassigned hits (track < 0) set aside` : '') + `; lengths read as ${units}; ${errors}`,
+    `  field ${c.job.fieldT} T along ${c.job.fieldT > 0 ? '+z' : '-z'}, fitter ${t.method ?? c.job.method}${t.hasZ ? ', helix (z present)' : ', circle only (no z: p and tan(lambda) not measured)'}`,
+    `  fitted ${n.status_ok ?? 0}, failed ${failed}${statuses.length ? ` (${statuses.join(', ')})` : ''}`,
   ];
-  if (budget && medium) lines.push(budgetSummary(budget, tracks, medium.name, options.particle ?? 'pi+'));
-  for (const w of consumeWarnings()) lines.push(`  warning: ${w.message}`);
-  if (hits.source.ignoredColumns.length) lines.push(`  ignored columns: ${hits.source.ignoredColumns.join(', ')}`);
+  if (c.shard) lines.push(`  shard ${c.shard.index}/${c.shard.count}: ${n.other_shard_hits ?? 0} hits of other slices' events skipped`);
+  if (t.readWhole) lines.push('  the events of this file are not grouped (an event reappears after others): read whole instead of streamed');
+  lines.push(`  time ${seconds.toFixed(2)} s, ${t.threads} thread${t.threads === 1 ? '' : 's'}${o.out ? `; results in ${o.out}` : ''}`);
+  if (o.material !== undefined) {
+    lines.push(`  error budget in ${o.material} (β from ${c.job.particle}): median σp/p measurement ${medianPercent(t.samples.measurement)}, multiple scattering ${medianPercent(t.samples.scattering)}`);
+  }
+  for (const w of t.warnings) lines.push(`  ${formatWarning(w)}`);
+  if (t.ignoredColumns.length) lines.push(`  ignored columns: ${t.ignoredColumns.join(', ')}`);
   return lines.join('\n');
 }
 
-function formatJson(table: ColumnTable, tracks: TrackTable, hitsPath: string, units: Record<string, string>, options: FitCommandOptions): string {
-  const meta = {
-    input: hitsPath,
-    lengthUnits: units,
-    fieldT: tracks.fieldT,
-    fitter: tracks.method,
-    hasZ: tracks.hasZ,
-    hitError: options.hitError ?? null,
-    statusCounts: tracks.statusCounts,
-    material: options.material ?? null,
-  };
-  return JSON.stringify({ meta, tracks: rowObjects(table) }, null, 0) + '\n';
-}
-
-/** "error budget in argon-gas (β from pi+): median σp/p measurement 1.2 %, multiple scattering 0.8 %". */
-function budgetSummary(budget: ResolutionBudgetColumns, tracks: TrackTable, medium: string, species: string): string {
-  const median = (sigma: Float64Array): string => {
-    const r: number[] = [];
-    for (let k = 0; k < tracks.count; k++) {
-      const v = sigma[k] / (tracks.hasZ ? tracks.momentum.pGeV[k] : tracks.momentum.ptGeV[k]);
-      if (Number.isFinite(v)) r.push(v);
-    }
-    r.sort((a, b) => a - b);
-    return r.length ? `${(100 * r[r.length >> 1]).toPrecision(3)} %` : 'n/a';
-  };
-  return `  error budget in ${medium} (β from ${species}): median σp/p measurement ${median(budget.sigmaPMeasGeV)}, multiple scattering ${median(budget.sigmaPMsGeV)}`;
+/** "1.23 %" for the median of the finite values, "n/a" when there are none. */
+function medianPercent(values: readonly number[] | undefined): string {
+  const r = (values ?? []).filter(Number.isFinite).sort((a, b) => a - b);
+  return r.length ? `${(100 * r[r.length >> 1]).toPrecision(3)} %` : 'n/a';
 }

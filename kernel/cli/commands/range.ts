@@ -1,6 +1,6 @@
 import type { Command } from 'commander';
 import { particle as lookupParticle, type Particle } from '../../../lib/particles.js';
-import { energyMeV, lengthMetres, momentumGeV } from '../../../lib/units.js';
+import { arealDensityGcm2, energyMeV, lengthMetres, momentumGeV } from '../../../lib/units.js';
 import { msg } from '../../../lib/errors.js';
 import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings.js';
 import { material as lookupMaterial, type Material } from '../../../lib/matter/materials.js';
@@ -93,10 +93,11 @@ function row(p: Particle, m: Material, kineticEnergyMeV: number, rangeGcm2?: num
   };
 }
 
-/** Reads --range: "7 g/cm2" (areal density) or any length, converted with the density. */
+/** Reads --range: an areal density ("7 g/cm2", "70 kg/m2") or any length, converted with the density. */
 export function rangeGcm2FromText(text: string, m: Material): number {
-  const areal = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(?:g\s*\/\s*cm(?:\^?2|²)|g\s*cm\^?-2)\s*$/i.exec(text);
-  if (areal) return Number(areal[1]);
+  // Every mass-thickness unit names grams (g, mg, kg, ug); no length unit does.
+  const unitPart = text.replace(/^[\s+\-\d.eE]*/, '');
+  if (/g/i.test(unitPart)) return arealDensityGcm2(text, { what: '--range' });
   return lengthMetres(text, { what: '--range' }) * 100 * m.densityGcm3;
 }
 

@@ -1,5 +1,6 @@
 import type { SeededRandom } from '../rng.js';
-import { rotateAbout, type PositionAndDirection } from '../transport.js';
+import { rotateAbout } from '../scatteringKick.js';
+import type { PositionAndDirection } from '../trackInFlight.js';
 import { unit } from './primary.js';
 
 /** Where a beam comes from and how it spreads: origin [m], mean direction, spot σ [m], divergence σ [rad]. */

@@ -1,4 +1,4 @@
-import type { ParticleInFlight } from '../transport.js';
+import type { ParticleInFlight } from '../trackInFlight.js';
 
 /** A particle made by a source at the start of an event. Position [m], unit direction, |p| [GeV/c]. */
 export interface Primary extends ParticleInFlight {

@@ -1,0 +1,215 @@
+import { availableParallelism } from 'node:os';
+import { closeSync, openSync, readFileSync, statSync } from 'node:fs';
+import { msg } from '../../lib/errors.js';
+import type { SagittaWarning } from '../../lib/warnings.js';
+import { loadBatchJob } from './batchJobs.js';
+import { columnarChunks } from './columnarChunks.js';
+import { inputFormatOf, type InputFormat } from './inputFormat.js';
+import { errorFromData, errorToData, processChunk, type Chunk, type ChunkOutcome, type ChunkSettings, type ResultFormat } from './processChunk.js';
+import { Progress } from './progress.js';
+import { ResultSink, type ByteTarget } from './resultSink.js';
+import type { Shard } from './shard.js';
+import { CHUNK_BYTES, textChunks, type TextChunk } from './textChunks.js';
+import { WorkerPool, type Settled } from './workerPool.js';
+
+/** One batch run: an input hit file through a job into one result output. */
+export interface BatchRunOptions {
+  readonly input: string;
+  readonly lengthUnit: string;
+  readonly job: string;
+  readonly jobOptions: unknown;
+  /** Worker threads; 1 runs everything in this thread. Default: all cores. */
+  readonly threads?: number;
+  readonly shard?: Shard;
+  readonly format: ResultFormat;
+  readonly target: ByteTarget;
+  /** Empties the target to start again (a file can; standard output cannot: leave it out). */
+  readonly restart?: () => void;
+  /** The JSON meta block, from the run's totals (JSON output only). */
+  readonly meta?: (totals: BatchTotals) => unknown;
+  /** Draw a progress bar (the caller decides: a terminal, not --quiet). */
+  readonly progress?: boolean;
+  readonly progressLabel?: string;
+}
+
+/** What a run adds up over its chunks. */
+export interface BatchTotals {
+  readonly counts: Record<string, number>;
+  readonly rows: number;
+  readonly names: readonly string[];
+  readonly warnings: SagittaWarning[];
+  /** The jobs' per-row samples, concatenated in input order. */
+  readonly samples: Record<string, number[]>;
+  readonly hasZ: boolean;
+  readonly method?: string;
+  readonly estimatedErrors: boolean;
+  readonly units: Record<string, string>;
+  readonly ignoredColumns: readonly string[];
+  readonly inputFormat: InputFormat;
+  readonly threads: number;
+  readonly chunks: number;
+  /** True when the input's events were not grouped, so it was read whole instead of streamed. */
+  readonly readWhole: boolean;
+}
+
+/** Thrown inside a run when an event appears again after other events (the input is not grouped by event). */
+class NotGrouped extends Error {}
+
+/**
+ * Streams a hit file through a batch job: the input is read in chunks of whole events, each
+ * chunk is parsed and processed in a worker thread (or here, with one thread), and the results
+ * are written in input order — so the output is byte-identical whatever the thread count. When
+ * an event reappears after others, the file cannot be streamed; it is then read whole and
+ * regrouped as `readHits` does (same results), and the totals say so.
+ * Errors name the file's own line numbers; nothing is written to the target after an error.
+ */
+export async function runBatch(o: BatchRunOptions): Promise<BatchTotals> {
+  const format = inputFormatOf(o.input);
+  checkReadable(o.input);
+  const size = statSync(o.input).size;
+  const job = await loadBatchJob(o.job);
+  const settings: ChunkSettings = { file: o.input, lengthUnit: o.lengthUnit, format: o.format, shard: o.shard, jobOptions: o.jobOptions };
+  const threads = Math.max(1, Math.min(o.threads ?? availableParallelism(), 64, Math.ceil(size / CHUNK_BYTES)));
+  const progress = o.progress ? new Progress(o.progressLabel ?? 'reading', size) : undefined;
+  let sink = new ResultSink(o.format, o.target);
+  const totals = newTotals(format, threads);
+  let pool: WorkerPool | undefined;
+  try {
+    pool = threads > 1 ? new WorkerPool(threads, o.job, settings) : undefined;
+    const run = (chunk: Chunk): Promise<Settled> => {
+      if (pool) return pool.submit(chunk);
+      try {
+        return Promise.resolve({ outcome: processChunk(chunk, job, settings) });
+      } catch (err) {
+        return Promise.resolve({ error: errorToData(err) });
+      }
+    };
+    const source = format === 'csv' || format === 'jsonl'
+      ? textChunks(o.input, format, o.lengthUnit, (done) => progress?.update(done))
+      : await columnarChunks(o.input, format, o.lengthUnit, settings.shard !== undefined, (done) => progress?.update(done));
+    try {
+      await pipeline(source, run, threads, sink, totals);
+    } catch (err) {
+      if (!(err instanceof NotGrouped)) throw err;
+      // Not grouped by event: read whole, as one chunk (bounded memory is not possible here).
+      if (totals.chunks > 0) {
+        if (o.restart === undefined) throw msg.notGrouped(o.input);
+        o.restart();
+      }
+      sink = new ResultSink(o.format, o.target);
+      Object.assign(totals, newTotals(format, 1), { readWhole: true });
+      const run1 = (c: Chunk): Promise<Settled> => {
+        try {
+          return Promise.resolve({ outcome: processChunk(c, job, settings) });
+        } catch (err) {
+          return Promise.resolve({ error: errorToData(err) });
+        }
+      };
+      const whole = await wholeChunk(o.input, format, o.lengthUnit, settings.shard !== undefined);
+      await pipeline(whole, run1, 1, sink, totals);
+    }
+    if ((totals.counts.hits ?? 0) + (totals.counts.other_shard_hits ?? 0) === 0) {
+      throw msg.emptyFile(o.input, format === 'jsonl' ? 'one JSON object per line' : 'at least one data row after the header');
+    }
+    await sink.finish(totals.names, o.meta?.(totals));
+    return totals;
+  } finally {
+    progress?.stop();
+    await pool?.close();
+  }
+}
+
+/**
+ * Keeps up to 2 × threads chunks in flight and consumes their outcomes in order. Results are held
+ * back until the whole input has proved grouped only as far as needed: rows are written as soon
+ * as their chunk is known not to repeat an earlier event.
+ */
+async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, run: (c: Chunk) => Promise<Settled>, threads: number, sink: ResultSink, totals: MutableTotals): Promise<void> {
+  const inFlight: Promise<Settled>[] = [];
+  const seen = new Set<number | string>();
+  let lineBase = 0;
+  let firstChunk = true;
+  const consume = async (): Promise<void> => {
+    const settled = await inFlight.shift()!;
+    if ('error' in settled) throw errorFromData(settled.error, lineBase);
+    const out = settled.outcome;
+    const fresh = new Set<number | string>();
+    for (const e of out.events) {
+      if (seen.has(e)) throw new NotGrouped();
+      fresh.add(e);
+    }
+    for (const e of fresh) seen.add(e);
+    lineBase += out.lines;
+    addOutcome(totals, out);
+    sink.begin(out.names);
+    await sink.add(out.encoded, out.table);
+  };
+  for await (const chunk of source) {
+    if (firstChunk && chunk.kind === 'csv') lineBase = chunk.layout!.bodyLine - 1;
+    firstChunk = false;
+    inFlight.push(run(chunk));
+    inFlight.at(-1)!.catch(() => undefined);
+    if (inFlight.length >= 2 * threads) await consume();
+  }
+  while (inFlight.length > 0) await consume();
+}
+
+type MutableTotals = { -readonly [K in keyof BatchTotals]: BatchTotals[K] };
+
+function newTotals(inputFormat: InputFormat, threads: number): MutableTotals {
+  return { counts: {}, rows: 0, names: [], warnings: [], samples: {}, hasZ: false, estimatedErrors: false, units: {}, ignoredColumns: [], inputFormat, threads, chunks: 0, readWhole: false };
+}
+
+function addOutcome(t: MutableTotals, out: ChunkOutcome): void {
+  for (const [k, v] of Object.entries(out.counts)) t.counts[k] = (t.counts[k] ?? 0) + v;
+  t.rows += out.rows;
+  t.chunks++;
+  for (const [k, v] of Object.entries(out.samples ?? {})) {
+    const dst = (t.samples[k] ??= []);
+    for (let i = 0; i < v.length; i++) dst.push(v[i]);
+  }
+  if (t.names.length === 0) t.names = out.names;
+  if (out.hasZ) t.hasZ = true;
+  if (out.estimatedErrors) t.estimatedErrors = true;
+  t.method ??= out.method;
+  if (Object.keys(t.units).length === 0) t.units = out.units;
+  if (t.ignoredColumns.length < out.ignoredColumns.length) t.ignoredColumns = out.ignoredColumns;
+  for (const w of out.warnings) {
+    const same = t.warnings.findIndex((x) => x.code === w.code && x.message === w.message);
+    if (same < 0) t.warnings.push(w);
+    else t.warnings[same] = { ...t.warnings[same], count: t.warnings[same].count + w.count };
+  }
+}
+
+/** The whole input as one chunk (for inputs whose events are not grouped). */
+async function wholeChunk(path: string, format: InputFormat, lengthUnit: string, positions: boolean): Promise<Chunk[]> {
+  if (format === 'csv' || format === 'jsonl') {
+    const bytes = readFileSync(path);
+    // One chunk spanning everything after the header (the header and fields from the first chunk).
+    const chunks = textChunks(path, format, lengthUnit);
+    const first = chunks.next().value as TextChunk;
+    chunks.return(undefined);
+    const start = first.positionBase;
+    return [{ ...first, bytes: new Uint8Array(bytes.buffer, bytes.byteOffset + start, bytes.byteLength - start), positionBase: start }];
+  }
+  const all: Chunk[] = [];
+  for await (const c of await columnarChunks(path, format, lengthUnit, positions, undefined, true)) all.push(c);
+  return all;
+}
+
+/** Refuses a folder, a missing or an unreadable input with one line. */
+export function checkReadable(path: string): void {
+  let st;
+  try {
+    st = statSync(path);
+  } catch {
+    throw msg.fileNotFound(path);
+  }
+  if (st.isDirectory()) throw msg.cannotRead(path, 'it is a folder', 'give the hit file inside it');
+  try {
+    closeSync(openSync(path, 'r'));
+  } catch (err) {
+    const code = (err as { code?: string }).code;
+    throw msg.cannotRead(path, code === 'EACCES' ? 'permission denied' : code ?? 'unknown error', 'check the file\'s permissions');
+  }
+}
