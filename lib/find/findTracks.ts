@@ -104,7 +104,8 @@ export interface FoundTracks {
  */
 export function findTracks(hits: FindHits, options: FindTracksOptions = {}): FoundTracks {
   const n = hits.length;
-  const o = { ...FIND_TRACKS_DEFAULTS, ...options };
+  // Options given as undefined take their default.
+  const o = { ...FIND_TRACKS_DEFAULTS, ...Object.fromEntries(Object.entries(options).filter(([, v]) => v !== undefined)) } as typeof FIND_TRACKS_DEFAULTS & FindTracksOptions;
   for (const [name, v, ok] of [
     ['chi2Cut', o.chi2Cut, o.chi2Cut > 0], ['window', o.window, Number.isInteger(o.window) && o.window >= 3],
     ['minHits', o.minHits, Number.isInteger(o.minHits) && o.minHits >= 3], ['maxMissingHits', o.maxMissingHits, Number.isInteger(o.maxMissingHits) && o.maxMissingHits >= 0],

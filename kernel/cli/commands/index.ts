@@ -10,6 +10,7 @@ type Register = (program: Command) => void;
  * it here.
  */
 const COMMANDS: Readonly<Record<string, () => Promise<Register>>> = {
+  find: async () => (await import('./find.js')).registerFind,
   fit: async () => (await import('./fit.js')).registerFit,
   merge: async () => (await import('./merge.js')).registerMerge,
   range: async () => (await import('./range.js')).registerRange,
