@@ -4,3 +4,4 @@ export { DIRECTION_RULES, type DirectionRule } from './travelDirection.js';
 export { estimateHitSpacing } from './hitSpacing.js';
 export { groupEvents, type EventGroups } from './groupEvents.js';
 export { matchFoundTracks, MATCH_DEFAULTS, type MatchOptions, type TrackMatch } from './matchFoundTracks.js';
+export { labelHits } from './labelHits.js';

@@ -31,7 +31,7 @@ describe.each(examples)('example notebook %s', (name) => {
     expect(errors).toEqual([]);
     const page = readFileSync(html, 'utf8');
     // Provenance: the data files the notebook read are listed with their SHA-256.
-    expect(page).toMatch(/brindlemoor-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td class="sg-hash">[0-9a-f]{64}/);
+    expect(page).toMatch(/[\w-]+-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td class="sg-hash">[0-9a-f]{64}/);
     if (!chromiumAvailable()) return;
     const report = await openReport(html);
     try {
