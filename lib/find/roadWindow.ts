@@ -55,12 +55,21 @@ export function fitRoadWindow(
   const h1 = ids[first + step];
   const bx = x[h1] - ax, by = y[h1] - ay;
   let sxx = 0, sxy = 0, syy = 0, vx = 0, vy = 0, srr = 0;
+  // With a running arc length the s–z sums come in the same pass (s and z from the anchor).
+  const s0 = along !== undefined ? along[first] : 0, z0 = z[h0];
+  let ss = 0, sz = 0, sss = 0, ssz = 0, span = 0;
   for (let j = 1; j < m; j++) {
-    const h = ids[first + j * step];
+    const at = first + j * step;
+    const h = ids[at];
     const dx = x[h] - ax, dy = y[h] - ay;
     const r2 = dx * dx + dy * dy;
     sxx += dx * dx; sxy += dx * dy; syy += dy * dy;
     vx += r2 * dx; vy += r2 * dy; srr += r2 * r2;
+    if (along !== undefined) {
+      const s = -step * (along[at] - s0), dz = z[h] - z0;
+      ss += s; sz += dz; sss += s * s; ssz += s * dz;
+      span = s;
+    }
   }
   let qx: number, qy: number, A = 0;
   if (m >= 3 && srr > 0) {
@@ -89,15 +98,24 @@ export function fitRoadWindow(
   const kappa = -2 * A * (eta >= 0 ? 1 : -1);
   out.x = ax; out.y = ay;
   out.cosPhi = tx; out.sinPhi = ty; out.kappa = kappa;
-  // Arc lengths back along the circle (negative): from the chain's running arc length when the
-  // caller keeps one, else measured on the fitted circle, unwrapped hit to hit past π.
+  out.hits = m;
+  if (along !== undefined) {
+    out.lengthM = Math.abs(span);
+    if (hasZ) {
+      const ms = ss / m, mz = sz / m;
+      const css = sss - m * ms * ms, csz = ssz - m * ms * mz;
+      const t = css > 0 ? csz / css : 0;
+      out.tanLambda = t; out.zAtAnchor = z0 + mz - t * ms; out.meanS = ms; out.sss = css; out.z = z0;
+    } else {
+      out.tanLambda = 0; out.zAtAnchor = 0; out.meanS = 0; out.sss = 0; out.z = 0;
+    }
+    return out;
+  }
+  // Arc lengths back along the circle (negative), measured on the fitted circle, unwrapped hit
+  // to hit past π.
   let prev = 0, turns = 0;
   sArc[0] = 0;
-  if (along !== undefined) {
-    const s0 = along[first];
-    for (let j = 1; j < m; j++) sArc[j] = -step * (along[first + j * step] - s0);
-  }
-  for (let j = along === undefined ? 1 : m; j < m; j++) {
+  for (let j = 1; j < m; j++) {
     const h = ids[first + j * step];
     const dx = x[h] - ax, dy = y[h] - ay;
     const a = dx * tx + dy * ty, b = -dx * ty + dy * tx;

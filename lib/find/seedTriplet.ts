@@ -10,27 +10,43 @@ import type { RoadContext } from './roadContext.js';
 export function orderSeeds(ctx: RoadContext): number {
   const { n, x, y, z, hasZ, grid, neighbours, seedOrder } = ctx;
   const r = ctx.settings.seedRadiusM, r2 = r * r;
-  const { start, hits, nx, ny, x0, y0 } = grid;
-  const inv = 1 / grid.cellM;
+  const { start, hits, nx, ny } = grid;
   const bucket = ctx.buckets;
   const BUCKETS = bucket.length - 1;
   bucket.fill(0);
-  for (let i = 0; i < n; i++) {
-    const xi = x[i], yi = y[i], zi = z[i];
-    const i0 = Math.max(0, Math.floor((xi - r - x0) * inv)), i1 = Math.min(nx - 1, Math.floor((xi + r - x0) * inv));
-    const j0 = Math.max(0, Math.floor((yi - r - y0) * inv)), j1 = Math.min(ny - 1, Math.floor((yi + r - y0) * inv));
-    let count = 0;
-    for (let j = j0; j <= j1; j++) {
-      for (let cell = j * nx + i0, last = j * nx + i1; cell <= last; cell++) {
-        for (let q = start[cell], qEnd = start[cell + 1]; q < qEnd; q++) {
+  neighbours.fill(0, 0, n);
+  // Each pair once: a cell against itself and its four "forward" neighbours (cells are at least
+  // the seed radius wide, so no pair is farther apart than adjacent cells).
+  for (let cj = 0; cj < ny; cj++) {
+    for (let ci = 0; ci < nx; ci++) {
+      const cell = cj * nx + ci;
+      const a0 = start[cell], a1 = start[cell + 1];
+      if (a0 === a1) continue;
+      for (let p = a0; p < a1; p++) {
+        const i = hits[p];
+        const xi = x[i], yi = y[i], zi = z[i];
+        let count = 0;
+        for (let q = p + 1; q < a1; q++) {
           const h = hits[q];
-          if (h === i) continue;
           const dx = x[h] - xi, dy = y[h] - yi, dz = hasZ ? z[h] - zi : 0;
-          if (dx * dx + dy * dy + dz * dz <= r2) count++;
+          if (dx * dx + dy * dy + dz * dz <= r2) { count++; neighbours[h]++; }
         }
+        for (let k = 0; k < 4; k++) {
+          const ni = ci + (k === 0 ? 1 : k - 2), nj = cj + (k === 0 ? 0 : 1);
+          if (ni < 0 || ni >= nx || nj >= ny) continue;
+          const other = nj * nx + ni;
+          for (let q = start[other], qEnd = start[other + 1]; q < qEnd; q++) {
+            const h = hits[q];
+            const dx = x[h] - xi, dy = y[h] - yi, dz = hasZ ? z[h] - zi : 0;
+            if (dx * dx + dy * dy + dz * dz <= r2) { count++; neighbours[h]++; }
+          }
+        }
+        neighbours[i] += count;
       }
     }
-    neighbours[i] = count;
+  }
+  for (let i = 0; i < n; i++) {
+    const count = neighbours[i];
     if (count >= 2) bucket[Math.min(count, BUCKETS) - 1]++;
   }
   // Counting sort by neighbour count (2, 3, …, ≥ BUCKETS), stable in hit order.
