@@ -8,7 +8,9 @@
  * - `mimeBundleOf(value)` turns any value into a bundle: objects with that method, danfojs
  *   DataFrame / Series (an HTML table plus text), everything else as `text/plain`.
  * - `present(value, { id })` shows a value now; `refresh(id, value)` replaces what an earlier
- *   `present(…, { id })` showed. Inside a kernel or the headless runner these go to the sink the
+ *   `present(…, { id })` showed; `clearOutput({ wait })` clears what the cell has shown so far;
+ *   `ask(prompt)` asks the person running the notebook for a line of text (a front end that
+ *   allows input shows a prompt; a headless run has no one to ask and refuses). Inside a kernel or the headless runner these go to the sink the
  *   session installs (`setDisplaySink`); in a plain Node script they print the text form.
  *
  * No DOM and no kernel imports here (lib never imports kernel). The sink lives on globalThis
@@ -47,6 +49,54 @@ export function setDisplaySink(sink: DisplaySink | undefined): DisplaySink | und
 /** The sink in place, if any. */
 export function displaySink(): DisplaySink | undefined {
   return (globalThis as SinkHolder)[SINK_KEY];
+}
+
+/** What a running cell can ask of the front end besides showing things. */
+export interface CellChannel {
+  clear(wait: boolean): void;
+  ask(prompt: string, password: boolean): Promise<string>;
+}
+
+const CHANNEL_KEY = Symbol.for('sagitta.cellChannel');
+
+type ChannelHolder = { [CHANNEL_KEY]?: CellChannel };
+
+/** Installs the cell channel (or removes it with `undefined`); returns the previous one. */
+export function setCellChannel(channel: CellChannel | undefined): CellChannel | undefined {
+  const holder = globalThis as ChannelHolder;
+  const previous = holder[CHANNEL_KEY];
+  if (channel === undefined) delete holder[CHANNEL_KEY];
+  else holder[CHANNEL_KEY] = channel;
+  return previous;
+}
+
+/**
+ * Clears the outputs the running cell has shown so far — for a progress display that redraws
+ * itself. With `wait: true` the old outputs stay until the next output arrives, so nothing
+ * flickers. Outside a notebook it does nothing.
+ * @example for (const n of [10, 20, 30]) { clearOutput({ wait: true }); present(`fitted ${n} %`); }
+ */
+export function clearOutput(options: { wait?: boolean } = {}): void {
+  (globalThis as ChannelHolder)[CHANNEL_KEY]?.clear(options.wait === true);
+}
+
+/**
+ * Asks the person running the notebook for one line of text and resolves with it. A front end
+ * that allows input shows `prompt` (hiding what is typed when `password` is set); a headless run
+ * (`sagitta run`) or a front end without input rejects with INPUT_UNAVAILABLE — use a knob for
+ * values a run must be given. In a plain Node script it reads a line from the terminal.
+ * @example const runLabel = await ask('Run label: ');
+ */
+export async function ask(prompt: string, options: { password?: boolean } = {}): Promise<string> {
+  const channel = (globalThis as ChannelHolder)[CHANNEL_KEY];
+  if (channel) return channel.ask(prompt, options.password === true);
+  const { createInterface } = await import('node:readline/promises');
+  const lines = createInterface({ input: process.stdin, output: process.stdout });
+  try {
+    return await lines.question(prompt);
+  } finally {
+    lines.close();
+  }
 }
 
 /** True when `value` implements the `asMime` method. */

@@ -25,11 +25,16 @@ export type SagittaErrorCode =
   | 'UNKNOWN_FORMAT'
   | 'BAD_SCENARIO'
   | 'BAD_NOTEBOOK'
+  | 'BAD_MATERIAL_FILE'
   | 'OUTSIDE_VALIDITY'
   | 'CANNOT_WRITE'
   | 'CANNOT_READ'
   | 'BAD_ID'
-  | 'OUTPUT_CLASH';
+  | 'OUTPUT_CLASH'
+  | 'BAD_CONNECTION_FILE'
+  | 'KERNEL_STATE'
+  | 'INPUT_UNAVAILABLE'
+  | 'BAD_KNOB';
 
 /** Where in an input a problem sits; all fields optional so callers fill what they know. */
 export interface SourceLocation {
@@ -112,6 +117,10 @@ export const msg = {
   badScenario: (file: string, detail: string) =>
     new SagittaError('BAD_SCENARIO', `${file}: ${detail}`, { file }),
 
+  /** A user material file (lib/matter/materialFile.ts) that cannot be read as one: file:line and what to write. */
+  badMaterialFile: (file: string, line: number, detail: string) =>
+    new SagittaError('BAD_MATERIAL_FILE', located({ file, line }, detail), { file, line }),
+
   badNotebook: (file: string, detail: string) =>
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),
 
@@ -133,6 +142,20 @@ export const msg = {
   /** Two paths of one command that are the same file (an output over an input, or two outputs). */
   outputClash: (flag: string, path: string, other: string, otherPath: string) =>
     new SagittaError('OUTPUT_CLASH', `${flag} ${path} is the same file as ${other} ${otherPath}; choose another path (nothing was written)`, { file: path }),
+
+  badConnectionFile: (file: string, detail: string) =>
+    new SagittaError('BAD_CONNECTION_FILE', `${file}: ${detail}; the front end writes this file when it starts the kernel — start the kernel from the front end`, { file }),
+
+  /** A kernel or runner asked to do something its state does not allow (a closed session, a failed start). */
+  kernelState: (action: string, detail: string) =>
+    new SagittaError('KERNEL_STATE', `cannot ${action}: ${detail}`),
+
+  inputUnavailable: (where: string, fix: string) =>
+    new SagittaError('INPUT_UNAVAILABLE', `a cell asked for input, but ${where}; ${fix}`),
+
+  /** A notebook knob (lib/knob.ts) declared or given wrongly. */
+  badKnob: (name: string, detail: string) =>
+    new SagittaError('BAD_KNOB', `knob ${JSON.stringify(name)}: ${detail}`),
 
   /** A request a formula cannot answer (e.g. a range below the stopping-power cutoff); library code returns NaN + a warning instead, the CLI turns that into this error. */
   outsideValidity: (what: string, value: string, valid: string) =>

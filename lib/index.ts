@@ -6,6 +6,7 @@ export * from './particles.js';
 export * from './units.js';
 export * from './provenance.js';
 export * from './display.js';
+export { knob, knobSnapshot, readKnobValue, type KnobKind, type KnobRecord } from './knob.js';
 export * from './io/index.js';
 export * from './find/index.js';
 export * from './fit/index.js';

@@ -36,14 +36,20 @@ export interface SeedRecord {
   readonly label: string;
 }
 
+/** Kinds of result that call for a caution wherever they are shown. */
+export type CautionKind = 'stopping-power';
+
 export interface ProvenanceSnapshot {
   readonly inputs: readonly InputRecord[];
   readonly seeds: readonly SeedRecord[];
+  /** Cautions the results call for (e.g. ranges and stopping powers near clinical use). */
+  readonly cautions?: readonly CautionKind[];
 }
 
 interface Registry {
   inputs: InputRecord[];
   seeds: SeedRecord[];
+  cautions?: CautionKind[];
 }
 
 const KEY = Symbol.for('sagitta.provenance');
@@ -94,10 +100,21 @@ export function recordSeed(seed: number | bigint | string, label = 'seed'): Seed
   return record;
 }
 
+/**
+ * Records that a result of a kind that calls for a caution was computed (once per kind): a range
+ * or stopping-power table is the case today — reports that show one carry the clinical caution.
+ * @example recordCaution('stopping-power')
+ */
+export function recordCaution(kind: CautionKind): void {
+  const r = registry();
+  r.cautions ??= [];
+  if (!r.cautions.includes(kind)) r.cautions.push(kind);
+}
+
 /** A copy of everything recorded so far, in the order it was recorded. */
 export function provenanceSnapshot(): ProvenanceSnapshot {
   const r = registry();
-  return Object.freeze({ inputs: Object.freeze(r.inputs.slice()), seeds: Object.freeze(r.seeds.slice()) });
+  return Object.freeze({ inputs: Object.freeze(r.inputs.slice()), seeds: Object.freeze(r.seeds.slice()), cautions: Object.freeze((r.cautions ?? []).slice()) });
 }
 
 /** Forgets everything recorded (a fresh run, or a test). */
@@ -105,4 +122,5 @@ export function resetProvenance(): void {
   const r = registry();
   r.inputs.length = 0;
   r.seeds.length = 0;
+  r.cautions = [];
 }

@@ -1,6 +1,6 @@
 import { Command, CommanderError } from 'commander';
 import { SagittaError } from '../../lib/errors.js';
-import { sagittaVersion } from './version.js';
+import { sagittaVersion } from '../version.js';
 import { registerCommands } from './commands/index.js';
 import { EXIT, UsageError } from './usage.js';
 import { OutputClosed } from '../batch/resultSink.js';

@@ -6,7 +6,7 @@ import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, w
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { msg } from '../../lib/errors.js';
-import { sagittaVersion } from '../cli/version.js';
+import { sagittaVersion } from '../version.js';
 import { logoPng, logoSvg } from './logo.js';
 import { currentPlatformEnv, kernelsDirFor, kernelSearchPath, type PlatformEnv } from './paths.js';
 

@@ -76,11 +76,4 @@ export interface SagittaCellMeta {
   wallMs?: number;
   /** ISO-8601 time the cell started. */
   startedAt?: string;
-  /** True on the cell the runner inserted to carry `--set` values. */
-  injected?: boolean;
 }
-
-/** The tag that marks the cell holding a notebook's adjustable defaults. */
-export const DEFAULTS_TAG = 'sagitta-knobs';
-/** The tag on the cell the runner inserts after it with the values given by `--set`. */
-export const INJECTED_TAG = 'sagitta-knobs-set';

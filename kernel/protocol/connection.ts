@@ -1,4 +1,5 @@
 import { readFileSync } from 'node:fs';
+import { msg } from '../../lib/errors.js';
 
 /** The connection file a front end writes before starting a kernel (messaging spec, "Connection files"). */
 export interface ConnectionInfo {
@@ -21,10 +22,10 @@ export type Channel = 'shell' | 'control' | 'iopub' | 'stdin' | 'hb';
 export function readConnectionFile(file: string): ConnectionInfo {
   const raw = JSON.parse(readFileSync(file, 'utf8')) as Partial<ConnectionInfo>;
   for (const field of ['ip', 'shell_port', 'control_port', 'iopub_port', 'stdin_port', 'hb_port'] as const) {
-    if (raw[field] === undefined) throw new Error(`${file}: connection file has no "${field}"`);
+    if (raw[field] === undefined) throw msg.badConnectionFile(file, `it has no "${field}"`);
   }
   const scheme = raw.signature_scheme ?? 'hmac-sha256';
-  if (scheme !== 'hmac-sha256') throw new Error(`${file}: signature scheme "${scheme}" is not supported; use hmac-sha256`);
+  if (scheme !== 'hmac-sha256') throw msg.badConnectionFile(file, `signature scheme "${scheme}" is not supported (only hmac-sha256)`);
   return { transport: raw.transport ?? 'tcp', key: raw.key ?? '', signature_scheme: scheme, ...raw } as ConnectionInfo;
 }
 

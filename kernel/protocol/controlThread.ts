@@ -1,97 +1,93 @@
 /**
- * The control and heartbeat channels, served from a worker thread so that they keep working while
- * a cell blocks the main thread's event loop:
+ * The control, heartbeat and iopub channels, served from a worker thread so that they keep
+ * working while a cell blocks the main thread's event loop:
  * - the heartbeat keeps answering, so a front end does not declare a busy kernel dead;
- * - a correctly signed `interrupt_request` raises SIGINT in this process at once, which stops a
- *   synchronous cell (it runs with `breakOnSigint`) — message-mode interrupts for blocking cells.
- *   A signal that lands while the cell is still being compiled is spent before the cell's code
- *   runs, so the signal is repeated every half second until the main thread, free again, reports
- *   that it has handled the request (or ten seconds have passed). On Windows there are no signals
- *   to raise: there the request stops only a cell that is waiting on an `await`.
+ * - iopub carries everything the main thread publishes (posted here in order), and lets this
+ *   thread speak for a main thread that cannot;
+ * - a signed `interrupt_request` is acted on here at once (interruptDriver.ts): by SIGINT while
+ *   the cell compiles or runs synchronous code, by stopping the main thread's JavaScript when the
+ *   cell is busy after an await, and — if neither stops it — by saying so under the cell and
+ *   answering the request itself, so the front end is not left waiting.
  * Every control message is also passed to the main thread, which verifies it again, replies and
- * publishes the status messages; the main thread's replies come back here to be sent.
+ * publishes the status messages; those go out from here.
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import * as zmq from 'zeromq';
 import { endpoint, type ConnectionInfo } from './connection.js';
-import { decode, SignatureHistory } from './wire.js';
+import { serveHeartbeat } from './heartbeat.js';
+import { createInterruptDriver } from './interruptDriver.js';
+import { SendQueue } from './sendQueue.js';
+import { decode, SignatureHistory, type Header } from './wire.js';
 
-export type ToControlThread = { kind: 'send'; frames: Array<Uint8Array | string> } | { kind: 'interrupt-handled' } | { kind: 'close' };
+export type ToControlThread =
+  | { kind: 'send'; channel: 'control' | 'iopub'; frames: Array<Uint8Array | string>; answers?: string }
+  | { kind: 'cell'; parent: Header | undefined }
+  | { kind: 'interrupt-handled' }
+  | { kind: 'close' };
 
-const REPEAT_SIGNAL_MS = 500;
-const MAX_SIGNALS = 20;
 export type FromControlThread = { kind: 'ready' } | { kind: 'message'; frames: Uint8Array[] } | { kind: 'log'; line: string } | { kind: 'failed'; message: string };
 
-const info = (workerData as { connection: ConnectionInfo }).connection;
+export interface ControlThreadData {
+  connection: ConnectionInfo;
+  /** The kernel's session id (for messages this thread writes itself) and iopub topic prefix. */
+  sessionId: string;
+  kernelId: string;
+  /** The main thread's phase flag (kernel/session/phase.ts). */
+  phase: Int32Array;
+}
+
+const data = workerData as ControlThreadData;
+const info = data.connection;
 const port = parentPort!;
 const control = new zmq.Router({ linger: 0 });
 const hb = new zmq.Reply({ linger: 0 });
+const iopub = new zmq.Publisher({ linger: 0 });
 const history = new SignatureHistory();
 let closing = false;
-let repeating: NodeJS.Timeout | undefined;
-
-function stopRepeating(): void {
-  if (repeating) clearInterval(repeating);
-  repeating = undefined;
-}
-
-function raiseInterrupt(): void {
-  stopRepeating();
-  process.kill(process.pid, 'SIGINT');
-  let sent = 1;
-  repeating = setInterval(() => {
-    if (++sent > MAX_SIGNALS) stopRepeating();
-    else process.kill(process.pid, 'SIGINT');
-  }, REPEAT_SIGNAL_MS);
-}
-let sending: Promise<void> = Promise.resolve();
-
 const post = (m: FromControlThread) => port.postMessage(m);
-
-async function heartbeat(): Promise<void> {
-  try {
-    for await (const frames of hb) await hb.send(frames);
-  } catch (err) {
-    if (!closing) post({ kind: 'log', line: `heartbeat stopped: ${String(err)}` });
-  }
-}
+const log = (line: string) => post({ kind: 'log', line });
+const onError = (err: unknown) => log(`send failed: ${String(err)}`);
+const out = { control: new SendQueue(control, onError), iopub: new SendQueue(iopub, onError) };
+const toBuffer = (f: Uint8Array | string) => (typeof f === 'string' ? f : Buffer.from(f.buffer, f.byteOffset, f.byteLength));
+const driver = createInterruptDriver({ ...data, send: (channel, frames) => void out[channel].send(frames), log });
 
 async function listen(): Promise<void> {
   try {
     for await (const frames of control) {
       const msg = decode(frames, info.key, history);
-      if (typeof msg !== 'string' && msg.header.msg_type === 'interrupt_request') {
-        // The main thread may be stuck in a cell: signal it from here. Not on Windows, where
-        // process.kill(pid, 'SIGINT') ends the process instead of signalling it.
-        if (process.platform !== 'win32') raiseInterrupt();
-      }
+      if (typeof msg !== 'string' && msg.header.msg_type === 'interrupt_request') driver.requested(msg);
       // Bad signatures are logged by the main thread, which checks every message again.
       post({ kind: 'message', frames });
     }
   } catch (err) {
-    if (!closing) post({ kind: 'log', line: `control listener stopped: ${String(err)}` });
+    if (!closing) log(`control listener stopped: ${String(err)}`);
   }
 }
 
 port.on('message', (m: ToControlThread) => {
   if (m.kind === 'send') {
-    sending = sending.then(() => control.send(m.frames.map((f) => (typeof f === 'string' ? f : Buffer.from(f.buffer, f.byteOffset, f.byteLength))))).catch((err: unknown) => post({ kind: 'log', line: `control send failed: ${String(err)}` }));
+    // A reply the driver already sent for a stuck main thread is not sent twice.
+    if (m.answers !== undefined && !driver.claimReply(m.answers)) return;
+    void out[m.channel].send(m.frames.map(toBuffer));
+  } else if (m.kind === 'cell') {
+    driver.cell(m.parent);
   } else if (m.kind === 'interrupt-handled') {
-    stopRepeating();
+    driver.handled();
   } else {
     closing = true;
-    stopRepeating();
-    void sending.then(() => {
+    driver.handled();
+    void Promise.all([out.control.drain(), out.iopub.drain()]).then(() => {
       control.close();
       hb.close();
+      iopub.close();
       port.close();
     });
   }
 });
 
-Promise.all([control.bind(endpoint(info, 'control')), hb.bind(endpoint(info, 'hb'))]).then(
+Promise.all([control.bind(endpoint(info, 'control')), hb.bind(endpoint(info, 'hb')), iopub.bind(endpoint(info, 'iopub'))]).then(
   () => {
-    void heartbeat();
+    void serveHeartbeat(hb, () => closing, log);
     void listen();
     post({ kind: 'ready' });
   },

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { fileURLToPath } from 'node:url';
-import { sagittaVersion } from '../cli/version.js';
+import { sagittaVersion } from '../version.js';
 import { PROTOCOL_VERSION } from './wire.js';
 
 /**

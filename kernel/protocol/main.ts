@@ -19,7 +19,7 @@ export async function runKernel(connectionFile: string, parentPid: number = proc
   const server = new KernelServer({
     connection,
     kernelId: kernelIdFromFile(connectionFile),
-    createSession: async () => (await import('../session/session.js')).createSession({ workDir }),
+    createSession: async (phase) => (await import('../session/session.js')).createSession({ workDir, phase }),
   });
   await server.start();
   const parent = parentPid;

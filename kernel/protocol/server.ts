@@ -1,89 +1,64 @@
 /**
- * Our kernel side of the notebook messaging protocol (5.3) over zeromq: five sockets bound to the
- * connection file's address, signed messages, `busy`/`idle` around every request, and the
- * request handlers, which delegate cell work to a `Session` (kernel/session).
+ * Our kernel side of the notebook messaging protocol (5.3) over zeromq: requests in, `busy` /
+ * `idle` around each, replies and iopub messages out. The parts live beside it: the sockets and
+ * the control thread (sockets.ts, controlThread.ts), the execute request (execute.ts), the
+ * history (history.ts); cell work is delegated to a `Session` (kernel/session).
  *
  * Shell requests are handled one at a time, in arrival order. Control requests are handled as
  * they arrive, so `interrupt_request` and `shutdown_request` reach a cell that is waiting on an
- * `await`. A cell blocking the event loop is interrupted by SIGINT: sent by the front end
- * (signal mode), or raised by the control thread (controlThread.ts) when an interrupt_request
- * arrives (message mode); that thread also keeps the heartbeat answering during long cells.
+ * `await`; a cell that blocks the event loop is stopped from the control thread
+ * (interruptDriver.ts) or, in signal mode, by the front end's SIGINT.
  */
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
-import { Worker } from 'node:worker_threads';
-import * as zmq from 'zeromq';
-import type { CellHooks, MimeBundle, Session } from '../session/types.js';
-import { endpoint, type ConnectionInfo } from './connection.js';
-import type { FromControlThread, ToControlThread } from './controlThread.js';
+import { msg } from '../../lib/errors.js';
+import { createPhaseFlag, startTicking } from '../session/phase.js';
+import type { Session } from '../session/types.js';
+import type { ConnectionInfo } from './connection.js';
+import { abortRequest, executeRequest, type ExecuteContext } from './execute.js';
+import { ExecutionHistory } from './history.js';
 import { kernelInfoContent } from './kernelInfo.js';
+import { KernelSockets, type InboundChannel } from './sockets.js';
 import { decode, encode, makeHeader, SignatureHistory, type Header, type Message } from './wire.js';
 
 export interface KernelServerOptions {
   connection: ConnectionInfo;
   /** Makes the execution session; called once, after the first `idle` has been published. */
-  createSession: () => Session | Promise<Session>;
+  createSession: (phase: Int32Array) => Session | Promise<Session>;
   /** Where diagnostics go (default: the process's stderr as it was when the server started). */
   log?: (line: string) => void;
   /** Kernel id used in iopub topics. */
   kernelId?: string;
-  /** Serve control and heartbeat from a worker thread (default true; see controlThread.ts). */
+  /** Serve control, heartbeat and iopub from a worker thread (default true; see controlThread.ts). */
   controlThread?: boolean;
 }
 
-type Sendable = Array<Buffer | string>;
-
-interface FrameSender {
-  send(frames: Sendable): Promise<void>;
-  drain(): Promise<void>;
-}
-
-/** zeromq allows one send at a time per socket; this keeps them in order. */
-class SendQueue implements FrameSender {
-  private tail: Promise<void> = Promise.resolve();
-  constructor(private readonly socket: zmq.Writable, private readonly onError: (err: unknown) => void) {}
-  send(frames: Sendable): Promise<void> {
-    this.tail = this.tail.then(() => this.socket.send(frames)).catch(this.onError);
-    return this.tail;
-  }
-  drain(): Promise<void> {
-    return this.tail;
-  }
-}
-
-const STREAM_FLUSH_MS = 30;
 const WARM_UP_QUIET_MS = 1000;
+/** How long a blocking cell's neighbours get to arrive before the queue is marked for aborting. */
+const ARRIVAL_GRACE_MS = 10;
 
 export class KernelServer {
   private readonly info: ConnectionInfo;
   private readonly log: (line: string) => void;
   private readonly sessionId = randomUUID();
   private readonly kernelId: string;
-  private readonly history = new SignatureHistory();
-  private readonly shell = new zmq.Router({ linger: 0 });
-  private readonly stdin = new zmq.Router({ linger: 0 });
-  private readonly iopub = new zmq.Publisher({ linger: 0 });
-  /** Control and heartbeat sockets when they live on the main thread. */
-  private readonly control?: zmq.Router;
-  private readonly hb?: zmq.Reply;
-  /** The control thread, when control and heartbeat live there. */
-  private worker?: Worker;
-  private readonly out: { shell: FrameSender; control: FrameSender; stdin: FrameSender; iopub: FrameSender };
+  private readonly signatures = new SignatureHistory();
+  private readonly phase = createPhaseFlag();
+  private readonly sockets: KernelSockets;
   private readonly makeSession: KernelServerOptions['createSession'];
   private session: Promise<Session> | undefined;
   private executionCount = 0;
-  /** Cells run with store_history, as [session, line, input] (this kernel's lifetime is session 1). */
-  private readonly inputs: Array<[number, number, string]> = [];
+  private readonly history = new ExecutionHistory();
   private shellQueue: Array<{ msg: Message; seq: number }> = [];
   /** Number of shell messages received so far (their arrival order). */
   private received = 0;
   private shellBusy = false;
-  /**
-   * After a failed cell with stop_on_error: execute requests that had arrived before its reply
-   * went out (sequence number up to this) are aborted; later ones run normally.
-   */
+  /** After a failed cell with stop_on_error: execute requests with sequence numbers up to this are aborted. */
   private abortUpTo = 0;
+  /** input_request msg_id → how to answer the cell waiting for it. */
+  private readonly inputWaiters = new Map<string, (value: string) => void>();
   private stopping = false;
+  private stopTicking: (() => void) | undefined;
   private warmUpTimer: NodeJS.Timeout | undefined;
   private readonly stopped: Promise<void>;
   private resolveStopped!: () => void;
@@ -98,44 +73,23 @@ export class KernelServer {
     const stderrWrite = process.stderr.write.bind(process.stderr);
     this.log = options.log ?? ((line) => void stderrWrite(`[sagitta kernel] ${line}\n`));
     this.kernelId = options.kernelId ?? randomUUID();
-    const onError = (err: unknown) => this.log(`send failed: ${err instanceof Error ? err.message : String(err)}`);
-    let control: FrameSender;
-    if (options.controlThread === false) {
-      this.control = new zmq.Router({ linger: 0 });
-      this.hb = new zmq.Reply({ linger: 0 });
-      control = new SendQueue(this.control, onError);
-    } else {
-      control = {
-        send: (frames) => {
-          this.worker?.postMessage({ kind: 'send', frames } satisfies ToControlThread);
-          return Promise.resolve();
-        },
-        drain: () => Promise.resolve(),
-      };
-    }
-    this.out = {
-      shell: new SendQueue(this.shell, onError),
-      control,
-      stdin: new SendQueue(this.stdin, onError),
-      iopub: new SendQueue(this.iopub, onError),
-    };
+    this.sockets = new KernelSockets({
+      connection: this.info,
+      sessionId: this.sessionId,
+      kernelId: this.kernelId,
+      phase: this.phase,
+      controlThread: options.controlThread !== false,
+      log: this.log,
+      receive: (frames, channel) => this.receive(frames, channel),
+    });
     this.stopped = new Promise((resolve) => (this.resolveStopped = resolve));
   }
 
   /** Binds the sockets, publishes `starting`, and starts serving. */
   async start(): Promise<void> {
-    await Promise.all([
-      this.shell.bind(endpoint(this.info, 'shell')),
-      this.stdin.bind(endpoint(this.info, 'stdin')),
-      this.iopub.bind(endpoint(this.info, 'iopub')),
-      this.control ? this.control.bind(endpoint(this.info, 'control')) : this.startControlThread(),
-      this.hb?.bind(endpoint(this.info, 'hb')),
-    ]);
+    await this.sockets.start();
     process.on('SIGINT', this.onSigint);
-    if (this.hb) void this.heartbeat(this.hb);
-    void this.listen(this.shell, 'shell');
-    if (this.control) void this.listen(this.control, 'control');
-    void this.listen(this.stdin, 'stdin');
+    this.stopTicking = startTicking(this.phase);
     await this.publish('status', { execution_state: 'starting' }, {});
   }
 
@@ -149,17 +103,9 @@ export class KernelServer {
     if (this.stopping) return this.stopped;
     this.stopping = true;
     process.off('SIGINT', this.onSigint);
+    this.stopTicking?.();
     if (this.warmUpTimer) clearTimeout(this.warmUpTimer);
-    await Promise.all(Object.values(this.out).map((q) => q.drain()));
-    for (const s of [this.shell, this.control, this.stdin, this.iopub, this.hb]) s?.close();
-    if (this.worker) {
-      const worker = this.worker;
-      const exited = new Promise<void>((resolve) => worker.once('exit', () => resolve()));
-      worker.postMessage({ kind: 'close' } satisfies ToControlThread);
-      const timer = setTimeout(() => void worker.terminate(), 2000);
-      await exited;
-      clearTimeout(timer);
-    }
+    await this.sockets.close();
     if (this.session) {
       try {
         (await this.session).close();
@@ -188,56 +134,26 @@ export class KernelServer {
   }
 
   private getSession(): Promise<Session> {
-    this.session ??= Promise.resolve().then(() => this.makeSession());
+    this.session ??= Promise.resolve().then(() => this.makeSession(this.phase));
     return this.session;
   }
 
-  private startControlThread(): Promise<void> {
-    const worker = new Worker(new URL('./controlThreadEntry.js', import.meta.url), { workerData: { connection: this.info } });
-    this.worker = worker;
-    return new Promise<void>((resolve, reject) => {
-      worker.on('message', (m: FromControlThread) => {
-        if (m.kind === 'ready') resolve();
-        else if (m.kind === 'failed') reject(new Error(`control thread: ${m.message}`));
-        else if (m.kind === 'log') this.log(m.line);
-        else this.receive(m.frames.map((f) => Buffer.from(f.buffer, f.byteOffset, f.byteLength)), 'control');
-      });
-      worker.once('error', (err) => {
-        this.log(`control thread failed: ${String(err)}`);
-        reject(err);
-      });
-    });
-  }
-
-  private async heartbeat(hb: zmq.Reply): Promise<void> {
-    try {
-      for await (const frames of hb) await hb.send(frames);
-    } catch (err) {
-      if (!this.stopping) this.log(`heartbeat stopped: ${String(err)}`);
-    }
-  }
-
-  private async listen(socket: zmq.Router, channel: 'shell' | 'control' | 'stdin'): Promise<void> {
-    try {
-      for await (const frames of socket) this.receive(frames, channel);
-    } catch (err) {
-      if (!this.stopping) this.log(`${channel} listener stopped: ${String(err)}`);
-    }
-  }
-
-  private receive(frames: Buffer[], channel: 'shell' | 'control' | 'stdin'): void {
-    const msg = decode(frames, this.info.key, this.history);
-    if (typeof msg === 'string') {
-      this.log(`${channel}: dropped a message (${msg === 'bad-signature' ? 'bad signature' : msg})`);
+  private receive(frames: Buffer[], channel: InboundChannel): void {
+    const m = decode(frames, this.info.key, this.signatures);
+    if (typeof m === 'string') {
+      this.log(`${channel}: dropped a message (${m === 'bad-signature' ? 'bad signature' : m})`);
       return;
     }
     if (channel === 'shell') {
-      this.shellQueue.push({ msg, seq: ++this.received });
+      this.shellQueue.push({ msg: m, seq: ++this.received });
       void this.pumpShell();
     } else if (channel === 'control') {
-      void this.handle(msg, 'control');
+      void this.handle(m, 'control');
+    } else if (m.header.msg_type === 'input_reply') {
+      const answer = this.inputWaiters.get(String(m.parent_header.msg_id));
+      this.inputWaiters.delete(String(m.parent_header.msg_id));
+      answer?.(String(m.content.value ?? ''));
     }
-    // stdin carries only replies to input requests, which this kernel does not make.
   }
 
   private async pumpShell(): Promise<void> {
@@ -245,48 +161,75 @@ export class KernelServer {
     this.shellBusy = true;
     try {
       while (this.shellQueue.length > 0 && !this.stopping) {
-        const { msg, seq } = this.shellQueue.shift()!;
-        if (seq <= this.abortUpTo && msg.header.msg_type === 'execute_request') await this.abort(msg);
-        else await this.handle(msg, 'shell');
+        const { msg: m, seq } = this.shellQueue.shift()!;
+        if (seq <= this.abortUpTo && m.header.msg_type === 'execute_request') await abortRequest(this.executeContext('shell'), m);
+        else await this.handle(m, 'shell');
       }
     } finally {
       this.shellBusy = false;
     }
   }
 
-  private async handle(msg: Message, channel: 'shell' | 'control'): Promise<void> {
-    const type = msg.header.msg_type;
-    const parent = msg.header;
+  private executeContext(channel: 'shell' | 'control'): ExecuteContext {
+    return {
+      publish: (type, content, parent) => this.publish(type, content, parent),
+      reply: (request, type, content, metadata) => this.reply(channel, request, type, content, metadata),
+      askFrontEnd: (request, prompt, password) => this.askFrontEnd(request, prompt, password),
+      session: () => this.getSession(),
+      history: this.history,
+      count: (store) => (store ? ++this.executionCount : this.executionCount),
+      abortQueued: async () => {
+        // A blocking cell kept zeromq from handing over what the client sent meanwhile; let it
+        // arrive, then mark everything received so far (before our reply) for aborting.
+        await new Promise((resolve) => setTimeout(resolve, ARRIVAL_GRACE_MS));
+        this.abortUpTo = this.received;
+      },
+      running: (parent) => this.sockets.cell(parent),
+    };
+  }
+
+  private async handle(m: Message, channel: 'shell' | 'control'): Promise<void> {
+    const type = m.header.msg_type;
+    const parent = m.header;
     await this.publish('status', { execution_state: 'busy' }, parent);
     try {
       switch (type) {
         case 'kernel_info_request':
-          await this.reply(channel, msg, 'kernel_info_reply', kernelInfoContent());
+          await this.reply(channel, m, 'kernel_info_reply', kernelInfoContent());
           break;
         case 'execute_request':
-          await this.execute(msg);
+          await executeRequest(this.executeContext(channel), m);
           break;
-        case 'complete_request':
-          await this.complete(msg);
+        case 'complete_request': {
+          const code = String(m.content.code ?? '');
+          const r = await (await this.getSession()).complete(code, Number(m.content.cursor_pos ?? [...code].length));
+          await this.reply(channel, m, 'complete_reply', { status: 'ok', matches: r.matches, cursor_start: r.cursorStart, cursor_end: r.cursorEnd, metadata: {} });
           break;
-        case 'inspect_request':
-          await this.inspect(msg);
+        }
+        case 'inspect_request': {
+          const code = String(m.content.code ?? '');
+          const data = await (await this.getSession()).inspect(code, Number(m.content.cursor_pos ?? [...code].length), Number(m.content.detail_level ?? 0));
+          await this.reply(channel, m, 'inspect_reply', { status: 'ok', found: data !== undefined, data: data ?? {}, metadata: {} });
           break;
-        case 'is_complete_request':
-          await this.isComplete(msg);
+        }
+        case 'is_complete_request': {
+          const code = String(m.content.code ?? '');
+          const status = await (await this.getSession()).isComplete(code);
+          await this.reply(channel, m, 'is_complete_reply', status === 'incomplete' ? { status, indent: nextIndent(code) } : { status });
           break;
+        }
         case 'comm_info_request':
-          await this.reply(channel, msg, 'comm_info_reply', { status: 'ok', comms: {} });
+          await this.reply(channel, m, 'comm_info_reply', { status: 'ok', comms: {} });
           break;
         case 'comm_open':
           // No comm targets exist here; the spec asks for an immediate close.
-          await this.publish('comm_close', { comm_id: msg.content.comm_id, data: {} }, parent);
+          await this.publish('comm_close', { comm_id: m.content.comm_id, data: {} }, parent);
           break;
         case 'comm_msg':
         case 'comm_close':
           break;
         case 'history_request':
-          await this.reply(channel, msg, 'history_reply', { status: 'ok', history: this.historyFor(msg.content) });
+          await this.reply(channel, m, 'history_reply', { status: 'ok', history: this.history.query(m.content) });
           break;
         case 'interrupt_request':
           // Before the session exists there is nothing to interrupt (and no reason to start it).
@@ -294,12 +237,12 @@ export class KernelServer {
             (session) => session.interrupt(),
             () => undefined, // a session that failed to start runs nothing
           );
-          this.worker?.postMessage({ kind: 'interrupt-handled' } satisfies ToControlThread);
-          await this.reply(channel, msg, 'interrupt_reply', { status: 'ok' });
+          this.sockets.interruptHandled();
+          await this.reply(channel, m, 'interrupt_reply', { status: 'ok' });
           break;
         case 'shutdown_request': {
-          const restart = msg.content.restart === true;
-          await this.reply(channel, msg, 'shutdown_reply', { status: 'ok', restart });
+          const restart = m.content.restart === true;
+          await this.reply(channel, m, 'shutdown_reply', { status: 'ok', restart });
           await this.publish('status', { execution_state: 'idle' }, parent);
           await this.stop();
           return;
@@ -312,7 +255,7 @@ export class KernelServer {
       // A request must not go unanswered: the front end would wait for ever.
       if (type.endsWith('_request')) {
         const error = err instanceof Error ? err : new Error(String(err));
-        await this.reply(channel, msg, type.replace(/_request$/, '_reply'), {
+        await this.reply(channel, m, type.replace(/_request$/, '_reply'), {
           status: 'error',
           ename: 'KernelError',
           evalue: error.message,
@@ -325,180 +268,32 @@ export class KernelServer {
     if (!this.session && !this.stopping) this.scheduleWarmUp();
   }
 
-  private async execute(msg: Message): Promise<void> {
-    const c = msg.content as {
-      code?: string;
-      silent?: boolean;
-      store_history?: boolean;
-      stop_on_error?: boolean;
-      user_expressions?: Record<string, unknown>;
-    };
-    const code = c.code ?? '';
-    const silent = c.silent === true;
-    const storeHistory = silent ? false : c.store_history !== false;
-    const stopOnError = c.stop_on_error !== false;
-    if (storeHistory) this.executionCount++;
-    const count = this.executionCount;
-    if (storeHistory) this.inputs.push([1, count, code]);
-    const parent = msg.header;
-    const started = new Date().toISOString();
-    if (!silent) await this.publish('execute_input', { code, execution_count: count }, parent);
-
-    let pending: { name: 'stdout' | 'stderr'; text: string } | undefined;
-    let timer: NodeJS.Timeout | undefined;
-    const flush = () => {
-      if (timer) clearTimeout(timer);
-      timer = undefined;
-      if (pending) void this.publish('stream', { name: pending.name, text: pending.text }, parent);
-      pending = undefined;
-    };
-    const hooks: CellHooks = {
-      stream: (name, text) => {
-        if (silent) return;
-        if (pending && pending.name !== name) flush();
-        pending = pending ? { name, text: pending.text + text } : { name, text };
-        timer ??= setTimeout(flush, STREAM_FLUSH_MS);
-      },
-      display: (bundle, options) => {
-        if (silent) return;
-        flush();
-        const transient = options.displayId === undefined ? {} : { display_id: options.displayId };
-        const type = options.update && options.displayId !== undefined ? 'update_display_data' : 'display_data';
-        void this.publish(type, { data: jsonSafe(bundle), metadata: {}, transient }, parent);
-      },
-    };
-
-    const session = await this.getSession();
-    const outcome = await session.execute(code, hooks);
-    flush();
-    if (outcome.status === 'ok') {
-      if (outcome.result && !silent) {
-        await this.publish('execute_result', { execution_count: count, data: jsonSafe(outcome.result), metadata: {} }, parent);
-      }
-      const userExpressions = await this.evaluateUserExpressions(session, c.user_expressions);
-      await this.reply('shell', msg, 'execute_reply', { status: 'ok', execution_count: count, user_expressions: userExpressions, payload: [] }, { started, status: 'ok' });
-      return;
-    }
-    const error = outcome.error ?? { ename: 'Error', evalue: 'the cell failed', traceback: [] };
-    if (stopOnError) {
-      // A blocking cell kept zeromq from handing over what the client sent meanwhile; let it
-      // arrive, then mark everything received so far (before our reply) for aborting.
-      await new Promise((resolve) => setTimeout(resolve, 10));
-      this.abortUpTo = this.received;
-    }
-    if (!silent) await this.publish('error', { ename: error.ename, evalue: error.evalue, traceback: error.traceback }, parent);
-    await this.reply(
-      'shell',
-      msg,
-      'execute_reply',
-      { status: 'error', execution_count: count, ename: error.ename, evalue: error.evalue, traceback: error.traceback },
-      { started, status: 'error' },
-    );
-  }
-
-  /**
-   * The spec's user_expressions: each expression is evaluated after the cell, quietly, and its
-   * value returned as a MIME bundle (or its error), keyed by the client's names.
-   */
-  private async evaluateUserExpressions(session: Session, expressions: Record<string, unknown> | undefined): Promise<Record<string, unknown>> {
-    const out: Record<string, unknown> = {};
-    const quiet: CellHooks = { stream: () => {}, display: () => {} };
-    for (const [name, expression] of Object.entries(expressions ?? {})) {
-      const r = await session.execute(String(expression), quiet);
-      out[name] =
-        r.status === 'ok'
-          ? { status: 'ok', data: jsonSafe(r.result ?? { 'text/plain': 'undefined' }), metadata: {} }
-          : { status: 'error', ename: r.error?.ename ?? 'Error', evalue: r.error?.evalue ?? '', traceback: r.error?.traceback ?? [] };
-    }
-    return out;
-  }
-
-  /** history_request: 'tail' (last n), 'range' (start ≤ line < stop) or 'search' (glob pattern, * and ?). */
-  private historyFor(content: Record<string, unknown>): Array<[number, number, string]> {
-    const n = typeof content.n === 'number' ? content.n : this.inputs.length;
-    switch (content.hist_access_type) {
-      case 'range': {
-        const start = typeof content.start === 'number' ? content.start : 0;
-        const stop = typeof content.stop === 'number' ? content.stop : Infinity;
-        return this.inputs.filter(([, line]) => line >= start && line < stop);
-      }
-      case 'search': {
-        const re = globToRegExp(String(content.pattern ?? '*'));
-        let found = this.inputs.filter(([, , input]) => re.test(input));
-        if (content.unique === true) found = found.filter(([, , input], i) => found.findIndex(([, , other]) => other === input) === i);
-        return found.slice(-n);
-      }
-      default:
-        return this.inputs.slice(-n);
-    }
-  }
-
-  /** Reply to an execute request that was queued behind a failed cell. */
-  private async abort(msg: Message): Promise<void> {
-    await this.publish('status', { execution_state: 'busy' }, msg.header);
-    await this.reply('shell', msg, 'execute_reply', { status: 'aborted', execution_count: this.executionCount }, { status: 'aborted' });
-    await this.publish('status', { execution_state: 'idle' }, msg.header);
-  }
-
-  private async complete(msg: Message): Promise<void> {
-    const code = String(msg.content.code ?? '');
-    const cursor = Number(msg.content.cursor_pos ?? [...code].length);
-    const r = await (await this.getSession()).complete(code, cursor);
-    await this.reply('shell', msg, 'complete_reply', { status: 'ok', matches: r.matches, cursor_start: r.cursorStart, cursor_end: r.cursorEnd, metadata: {} });
-  }
-
-  private async inspect(msg: Message): Promise<void> {
-    const code = String(msg.content.code ?? '');
-    const cursor = Number(msg.content.cursor_pos ?? [...code].length);
-    const detail = Number(msg.content.detail_level ?? 0);
-    const data = await (await this.getSession()).inspect(code, cursor, detail);
-    await this.reply('shell', msg, 'inspect_reply', { status: 'ok', found: data !== undefined, data: data ?? {}, metadata: {} });
-  }
-
-  private async isComplete(msg: Message): Promise<void> {
-    const code = String(msg.content.code ?? '');
-    const status = await (await this.getSession()).isComplete(code);
-    await this.reply('shell', msg, 'is_complete_reply', status === 'incomplete' ? { status, indent: nextIndent(code) } : { status });
+  /** input_request on stdin (messaging spec, "Messages on the stdin channel"), routed to the front end that sent `request`. */
+  private askFrontEnd(request: Message, prompt: string, password: boolean): Promise<string> {
+    if (this.stopping) return Promise.reject(msg.kernelState('ask for input', 'the kernel is shutting down'));
+    const header = makeHeader('input_request', this.sessionId);
+    return new Promise<string>((resolve) => {
+      this.inputWaiters.set(header.msg_id, resolve);
+      void this.sockets.send('stdin', encode(this.info.key, request.identities, header, request.header, {}, { prompt, password }));
+    });
   }
 
   private reply(channel: 'shell' | 'control', request: Message, type: string, content: Record<string, unknown>, metadata: Record<string, unknown> = {}): Promise<void> {
     const header = makeHeader(type, this.sessionId);
-    return this.out[channel].send(encode(this.info.key, request.identities, header, request.header, metadata, content));
+    return this.sockets.send(channel, encode(this.info.key, request.identities, header, request.header, metadata, content), request.header.msg_id);
   }
 
   private publish(type: string, content: Record<string, unknown>, parent: Partial<Header>): Promise<void> {
     if (this.stopping) return Promise.resolve();
     const header = makeHeader(type, this.sessionId);
-    return this.out.iopub.send(encode(this.info.key, [`kernel.${this.kernelId}.${type}`], header, parent, {}, content));
+    return this.sockets.send('iopub', encode(this.info.key, [`kernel.${this.kernelId}.${type}`], header, parent, {}, content));
   }
-}
-
-/** Bundles go out as JSON; a value JSON cannot carry (a cycle, a BigInt) becomes its text form. */
-function jsonSafe(bundle: MimeBundle): MimeBundle {
-  const out: MimeBundle = {};
-  for (const [mime, value] of Object.entries(bundle)) {
-    try {
-      JSON.stringify(value);
-      out[mime] = value;
-    } catch {
-      out[mime] = String(value);
-    }
-  }
-  return out;
 }
 
 /** The kernel id a front end put in the connection file's name ("kernel-<id>.json"), if any. */
 export function kernelIdFromFile(file: string): string | undefined {
   const m = /^kernel-(.+)\.json$/.exec(path.basename(file));
   return m?.[1];
-}
-
-/** A shell-style glob (`*` any run, `?` one character) as an anchored regular expression. */
-function globToRegExp(glob: string): RegExp {
-  const body = [...glob]
-    .map((ch) => (ch === '*' ? '[\\s\\S]*' : ch === '?' ? '[\\s\\S]' : ch.replace(/[.+^${}()|[\]\\]/g, (c) => `\\${c}`)))
-    .join('');
-  return new RegExp(`^${body}$`);
 }
 
 /** Indentation for the line after an unfinished one: its own, plus two spaces after an opening bracket. */

@@ -1,7 +1,7 @@
-/** Escapes text for HTML element content and double- or single-quoted attribute values. */
-export function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => (c === '&' ? '&amp;' : c === '<' ? '&lt;' : c === '>' ? '&gt;' : c === '"' ? '&quot;' : '&#39;'));
-}
+/**
+ * Escaping for the report's page. HTML text and attributes use the library's one `escapeHtml`
+ * (lib/display.ts); what is particular to a page with inline scripts lives here.
+ */
 
 /**
  * JSON for a `<script type="application/json">` block: `<` is written as \u003c so no data can

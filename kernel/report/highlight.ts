@@ -1,4 +1,4 @@
-import { escapeHtml } from './escape.js';
+import { escapeHtml } from '../../lib/display.js';
 
 /**
  * Light TypeScript colouring for the report's code panels: comments, strings, numbers and

@@ -1,24 +1,29 @@
 import { createHash } from 'node:crypto';
-import { basename, dirname, resolve } from 'node:path';
+import { escapeHtml } from '../../lib/display.js';
 import type { Cell, SagittaCellMeta } from '../notebook/types.js';
 import { joinSource } from '../notebook/source.js';
+import type { RunRecord } from '../runner/runRecord.js';
 import { plotlySource } from './assets.js';
-import { escapeHtml, jsonForScript } from './escape.js';
+import { jsonForScript } from './escape.js';
+import { withRichLabels } from './figureLabels.js';
+import { formatMs } from './formatNumbers.js';
 import { highlightTypeScript } from './highlight.js';
 import { renderMarkdown } from './markdown.js';
 import { FigureStore, renderOutput } from './outputs.js';
+import { provenanceCard } from './provenanceCard.js';
 import { REPORT_CSS } from './style.js';
-import type { ReportInput, ReportRun } from './types.js';
+import type { ReportInput } from './types.js';
 
 /**
- * The page's own script: draws each figure from its JSON block, marks the body
+ * The page's own script: draws each figure from its JSON block with a slim toolbar (save as
+ * image, zoom, pan, reset — what a reader of a record needs), marks the body
  * `data-figures="drawn"` when all are drawn (the PDF printer and the tests wait for it), wires
  * the show/hide-code switch and redraws figures at print width.
  */
 const BOOT = `(function () {
   var body = document.body;
   var nodes = Array.prototype.slice.call(document.querySelectorAll('[data-sg-figure]'));
-  var config = { displaylogo: false, modeBarButtonsToRemove: ['sendDataToCloud', 'select2d', 'lasso2d'] };
+  var config = { displaylogo: false, modeBarButtons: [['toImage', 'zoom2d', 'pan2d', 'resetScale2d']] };
   var drawing = nodes.map(function (node) {
     var spec = JSON.parse(document.getElementById(node.getAttribute('data-sg-figure')).textContent);
     node.textContent = '';
@@ -48,21 +53,21 @@ function cspHash(js: string): string {
 /**
  * Renders an executed notebook as one self-contained HTML page: no request leaves the page
  * (a Content-Security-Policy allows only its own two scripts, inline styles and data: images),
- * plotly.js is inlined once and every figure is drawn from its JSON.
+ * plotly.js is inlined once and every figure is drawn from its JSON. Code cells are numbered as
+ * steps (step N is the cell the executed notebook counts N); hidden code (`codeOpen: false`) is
+ * the page's own hidden state, so the HTML and its PDF look as after pressing "Hide code".
  */
 export function renderReport(input: ReportInput): string {
   const { notebook, run } = input;
   const figures = new FigureStore();
   const metaTitle = typeof notebook.metadata.title === 'string' && notebook.metadata.title.trim() ? notebook.metadata.title.trim() : undefined;
-  const title = input.title ?? metaTitle ?? firstHeading(notebook.cells) ?? basename(run.source.path).replace(/\.ipynb$/i, '');
+  const title = input.title ?? metaTitle ?? firstHeading(notebook.cells) ?? run.source.path.replace(/\.ipynb$/i, '');
   // The masthead shows the title; the notebook's own first heading saying the same is not repeated.
   let headingShown = false;
   const codeOpen = input.codeOpen ?? true;
-  const imageDir = input.imageDir ?? dirname(resolve(run.source.path));
   const entries: string[] = [];
-  let codeNo = 0;
+  let step = 0;
   notebook.cells.forEach((cell, i) => {
-    const meta = (cell.metadata.sagitta ?? {}) as SagittaCellMeta;
     if (cell.cell_type === 'markdown') {
       let text = joinSource(cell.source);
       if (!headingShown) {
@@ -70,28 +75,27 @@ export function renderReport(input: ReportInput): string {
         if (m && m[1].replace(/[*_`]/g, '') === title) text = text.slice(m[0].length);
         headingShown = true;
       }
-      if (text.trim()) entries.push(`<section class="sg-entry sg-prose">${renderMarkdown(text, cell.attachments, imageDir)}</section>`);
+      if (text.trim()) entries.push(`<section class="sg-entry sg-prose">${renderMarkdown(text, cell.attachments, input.imageDir)}</section>`);
     } else if (cell.cell_type === 'raw') {
       const text = joinSource(cell.source);
       if (text.trim()) entries.push(`<section class="sg-entry"><pre class="sg-out">${escapeHtml(text)}</pre></section>`);
     } else {
-      codeNo++;
+      step++;
+      const meta = (cell.metadata.sagitta ?? {}) as SagittaCellMeta;
       const outs = cell.outputs.map((o) => renderOutput(o, figures)).join('\n');
       const classes = ['sg-entry', 'sg-code'];
-      if (meta.injected) classes.push('sg-injected');
       if (meta.outcome === 'not-run') classes.push('sg-skipped');
-      const label = meta.injected ? 'values set for this run' : `code · cell ${i + 1}`;
       entries.push(
-        `<section class="${classes.join(' ')}" id="cell-${escapeHtml(cell.id ?? String(i + 1))}">` +
-          `<aside class="sg-note"><b>[${codeNo}]</b>${noteText(meta)}</aside>` +
-          `<details${codeOpen ? ' open' : ''}><summary>${escapeHtml(label)}</summary><pre><code>${highlightTypeScript(joinSource(cell.source))}</code></pre></details>` +
+        `<section class="${classes.join(' ')}" id="step-${step}" data-cell-id="${escapeHtml(cell.id ?? String(i + 1))}">` +
+          `<aside class="sg-note"><b>step ${step}</b>${noteText(meta)}</aside>` +
+          `<details open><summary>code</summary><pre><code>${highlightTypeScript(joinSource(cell.source))}</code></pre></details>` +
           (outs ? `<div class="sg-outputs">${outs}</div>` : '') +
           '</section>',
       );
     }
   });
 
-  const figureBlocks = figures.specs.map((spec, k) => `<script type="application/json" id="sg-fig-${k}">${jsonForScript(spec)}</script>`).join('\n');
+  const figureBlocks = figures.specs.map((spec, k) => `<script type="application/json" id="sg-fig-${k}">${jsonForScript(withRichLabels(spec))}</script>`).join('\n');
   const scripts: string[] = [];
   if (figures.specs.length > 0) scripts.push(scriptText(plotlySource()));
   scripts.push(scriptText(figures.specs.length > 0 ? BOOT : BOOT.replace(/Plotly\.newPlot[^;]*;/, 'null;')));
@@ -112,13 +116,14 @@ export function renderReport(input: ReportInput): string {
     '<meta charset="utf-8">',
     `<meta http-equiv="Content-Security-Policy" content="${escapeHtml(csp)}">`,
     '<meta name="viewport" content="width=device-width, initial-scale=1">',
-    `<meta name="generator" content="Sagitta ${escapeHtml(run.versions.sagitta)}">`,
+    `<meta name="generator" content="Sagitta ${escapeHtml(run.library.version)}">`,
     `<title>${escapeHtml(title)}</title>`,
     `<style>${REPORT_CSS}</style>`,
     '</head>',
-    `<body data-figures="${figures.specs.length > 0 ? 'pending' : 'drawn'}" data-figure-count="${figures.specs.length}">`,
+    `<body${codeOpen ? '' : ' class="sg-hide-code"'} data-figures="${figures.specs.length > 0 ? 'pending' : 'drawn'}" data-figure-count="${figures.specs.length}">`,
     '<div class="sg-sheet">',
     masthead(title, run, notebook.cells, codeOpen),
+    cautions(run),
     `<main>\n${entries.join('\n')}\n</main>`,
     provenanceCard(run, notebook.cells),
     '</div>',
@@ -147,17 +152,20 @@ function noteText(meta: SagittaCellMeta): string {
   return parts.map((p) => `<span>${p}</span>`).join(' ');
 }
 
-export function formatMs(ms: number): string {
-  if (ms < 1000) return `${Math.round(ms)} ms`;
-  if (ms < 60_000) return `${(ms / 1000).toFixed(2)} s`;
-  return `${Math.floor(ms / 60_000)} min ${((ms % 60_000) / 1000).toFixed(0)} s`;
+/** Banners a reader must see before the results: simulated inputs, and the clinical caution for ranges and stopping powers. */
+function cautions(run: RunRecord): string {
+  const out: string[] = [];
+  const simulated = run.inputs.filter((f) => f.simulated);
+  if (simulated.length > 0) {
+    out.push(`<p class="sg-banner sg-sim-banner"><b>Simulated data.</b> ${simulated.map((f) => escapeHtml(f.path)).join(', ')} ${simulated.length === 1 ? 'was' : 'were'} made by Sagitta's seeded simulator, not recorded by a detector; the results describe the simulation.</p>`);
+  }
+  if (run.usesStoppingPower) {
+    out.push('<p class="sg-banner sg-caution"><b>Caution.</b> This record uses computed ranges or stopping powers. They are for analysis and teaching of track data, not for treatment planning, dosimetry or any clinical decision; such use needs validated clinical tools, local codes and licensed medical-physics practice.</p>');
+  }
+  return out.join('\n');
 }
 
-function formatBytes(n: number): string {
-  return n < 1024 ? `${n} B` : n < 1024 ** 2 ? `${(n / 1024).toFixed(1)} KiB` : `${(n / 1024 ** 2).toFixed(2)} MiB`;
-}
-
-function masthead(title: string, run: ReportRun, cells: readonly Cell[], codeOpen: boolean): string {
+function masthead(title: string, run: RunRecord, cells: readonly Cell[], codeOpen: boolean): string {
   const code = cells.filter((c) => c.cell_type === 'code');
   const ran = code.filter((c) => ((c.metadata.sagitta ?? {}) as SagittaCellMeta).outcome !== 'not-run').length;
   const ok = run.status === 'complete';
@@ -168,47 +176,14 @@ function masthead(title: string, run: ReportRun, cells: readonly Cell[], codeOpe
 <h1>${escapeHtml(title)}</h1>
 <dl class="sg-runline">
 <div><dd><span class="sg-state${ok ? '' : ' sg-bad'}">${escapeHtml(state)}</span></dd></div>
-${item('Notebook', escapeHtml(basename(run.source.path)))}
+${item('Notebook', escapeHtml(run.source.path))}
 ${item('Started', escapeHtml(run.startedAt))}
 ${item('Wall time', formatMs(run.wallMs))}
-${item('Cells run', `${ran} of ${code.length}`)}
+${item('Steps run', `${ran} of ${code.length}`)}
 </dl>
 ${run.reason ? `<p class="sg-reason">${escapeHtml(run.reason)}</p>` : ''}
 <div class="sg-tools"><button type="button" id="sg-code-switch">${codeOpen ? 'Hide code' : 'Show code'}</button></div>
 </header>`;
 }
 
-function provenanceCard(run: ReportRun, cells: readonly Cell[]): string {
-  const rows = (r: string[][]) => r.map((cols) => `<tr>${cols.join('')}</tr>`).join('');
-  const td = (v: string, cls = '') => `<td${cls ? ` class="${cls}"` : ''}>${v}</td>`;
-  const params = Object.entries(run.parameters);
-  const inputs = run.provenance.inputs;
-  const seeds = run.provenance.seeds;
-  const timing = cells
-    .map((c, i) => ({ c, i, m: (c.metadata.sagitta ?? {}) as SagittaCellMeta }))
-    .filter(({ c }) => c.cell_type === 'code');
-  return `<section class="sg-card" aria-label="Provenance">
-<h2>Provenance</h2>
-<table><tbody>${rows([
-    [td('Notebook'), td(`${escapeHtml(run.source.path)} (${formatBytes(run.source.sizeBytes)})`)],
-    [td('Notebook SHA-256'), td(escapeHtml(run.source.sha256), 'sg-hash')],
-    [td('Started'), td(escapeHtml(run.startedAt))],
-    [td('Wall time'), td(formatMs(run.wallMs))],
-    [td('Versions'), td(`Sagitta ${escapeHtml(run.versions.sagitta)} · Node ${escapeHtml(run.versions.node)} · TypeScript ${escapeHtml(run.versions.typescript)}`)],
-  ])}</tbody></table>
-<h3>Parameters set for this run</h3>
-${params.length === 0 ? '<p>None: the notebook ran with its own defaults.</p>' : `<table><thead><tr><th>name</th><th>value</th></tr></thead><tbody>${rows(params.map(([k, v]) => [td(escapeHtml(k)), td(escapeHtml(JSON.stringify(v)), 'sg-hash')]))}</tbody></table>`}
-<h3>Data files read</h3>
-${inputs.length === 0 ? '<p>None recorded.</p>' : `<table><thead><tr><th>file</th><th>size</th><th>SHA-256</th></tr></thead><tbody>${rows(inputs.map((f) => [td(escapeHtml(f.name)), td(formatBytes(f.sizeBytes), 'sg-num'), td(escapeHtml(f.sha256), 'sg-hash')]))}</tbody></table>`}
-<h3>Seeds</h3>
-${seeds.length === 0 ? '<p>None recorded.</p>' : `<table><thead><tr><th>used by</th><th>seed</th></tr></thead><tbody>${rows(seeds.map((s) => [td(escapeHtml(s.label)), td(escapeHtml(String(s.seed)), 'sg-hash')]))}</tbody></table>`}
-<h3>Cells</h3>
-<table><thead><tr><th>cell</th><th>started</th><th>wall time</th><th>outcome</th></tr></thead><tbody>${rows(timing.map(({ i, m }) => [
-    td(String(i + 1), 'sg-num'),
-    td(escapeHtml(m.startedAt ?? '—')),
-    td(m.wallMs !== undefined ? formatMs(m.wallMs) : '—', 'sg-num'),
-    td(escapeHtml(m.outcome ?? '—') + (m.injected ? ' (injected values)' : '')),
-  ]))}</tbody></table>
-<p class="sg-foot">Written by Sagitta ${escapeHtml(run.versions.sagitta)}. Hashes let a reader check that the same notebook and the same data files give this record.</p>
-</section>`;
-}
+

@@ -2,21 +2,12 @@ import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
 import { extname, resolve, sep } from 'node:path';
 import katex from 'katex';
 import MarkdownIt, { type StateBlock, type StateInline } from 'markdown-it';
-import { escapeHtml } from './escape.js';
+import { escapeHtml } from '../../lib/display.js';
 import { sanitize } from './sanitize.js';
 
 /**
  * Markdown cells to HTML: CommonMark (markdown-it) with tables and strikethrough, TeX math
- * between `$…import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
-import { extname, resolve, sep } from 'node:path';
-import katex from 'katex';
-import MarkdownIt, { type StateBlock, type StateInline } from 'markdown-it';
-import { escapeHtml } from './escape.js';
-import { sanitize } from './sanitize.js';
-
-/**
- * Markdown cells to HTML: CommonMark (markdown-it) with tables and strikethrough, TeX math
- (inline) and `$…$` (display) typeset to MathML by KaTeX (no fonts or styles to
+ * between `$…$` (inline) and `$$…$$` (display) typeset to MathML by KaTeX (no fonts or styles to
  * ship: the browser lays MathML out itself), images embedded as data URLs (`attachment:` images
  * from the cell, and image files given by a relative path inside `imageDir`, the notebook's
  * folder), and the result — including any raw HTML the author wrote — passed through the

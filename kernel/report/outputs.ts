@@ -1,10 +1,10 @@
 import type { Output } from '../notebook/types.js';
 import { joinSource } from '../notebook/source.js';
-import { escapeHtml, stripAnsi } from './escape.js';
+import { escapeHtml } from '../../lib/display.js';
+import { PLOTLY_MIME } from '../../lib/plot/figure.js';
+import { stripAnsi } from './escape.js';
 import { renderMarkdown, renderTex } from './markdown.js';
 import { sanitize } from './sanitize.js';
-
-const PLOTLY_MIME = 'application/vnd.plotly.v1+json';
 
 /** Collects the plotly figures of a report; each is written once as JSON and drawn by the page. */
 export class FigureStore {

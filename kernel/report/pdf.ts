@@ -1,5 +1,5 @@
 import { pathToFileURL } from 'node:url';
-import { writeFileAtomic } from '../notebook/write.js';
+import { writeFileAtomic } from '../../lib/io/writeFileAtomic.js';
 import { openChromium } from './chromium.js';
 
 /**

@@ -41,7 +41,8 @@ body { margin: 0; font: 16px/1.55 var(--serif); }
 .sg-html caption { caption-side: bottom; text-align: left; color: var(--muted); font-size: 0.8rem; padding-top: 0.3rem; }
 .sg-html { overflow-x: auto; }
 .sg-prose blockquote { margin: 0.8rem 0; padding: 0.4rem 1rem; border-left: 3px solid var(--copper); background: #f6efe6; }
-.sg-math { overflow-x: auto; margin: 0.6rem 0; }
+.sg-math { overflow-x: auto; overflow-y: hidden; margin: 0.6rem 0; padding: 0.15rem 0; }
+.sg-math math[display="block"] { margin: 0; }
 math { font-size: 1.08em; }
 .sg-code > details { background: var(--code-bg); color: var(--code-ink); border-radius: 0.3rem; }
 .sg-code > details > summary { font: 0.75rem/1 var(--sans); letter-spacing: 0.06em; text-transform: uppercase; color: #a9b1c3; padding: 0.55rem 0.8rem; cursor: pointer; user-select: none; }
@@ -70,6 +71,11 @@ pre.sg-stderr { border-left-color: var(--copper); color: #7a3a12; }
 .sg-card h3 { font: 600 0.9rem/1.2 var(--sans); margin: 1.1rem 0 0.4rem; }
 .sg-card table { border-collapse: collapse; width: 100%; }
 .sg-card th, .sg-card td { text-align: left; padding: 0.2rem 0.6rem 0.2rem 0; border-bottom: 1px solid var(--rule); vertical-align: top; }
+.sg-banner { font: 0.92rem/1.45 var(--sans); padding: 0.6rem 0.9rem; margin: 0 0 1.2rem; border-left: 4px solid var(--teal); background: #eef4f3; }
+.sg-caution { border-left-color: var(--copper); background: #f6efe6; }
+.sg-sim { color: var(--teal); }
+.sg-muted { color: var(--muted); }
+.js-plotly-plot .modebar { opacity: 0.6; }
 .sg-card td.sg-num { text-align: right; font-variant-numeric: tabular-nums; }
 .sg-hash { font: 0.78rem var(--mono); word-break: break-all; }
 .sg-foot { margin-top: 1.4rem; font: 0.78rem/1.4 var(--sans); color: var(--muted); }
@@ -79,6 +85,8 @@ pre.sg-stderr { border-left-color: var(--copper); color: #7a3a12; }
   .sg-note { position: static; width: auto; margin: 0 0 0.3rem; display: flex; gap: 0.6rem; }
   .sg-note b { display: inline; }
   .sg-entry, .sg-figure, .sg-image { break-inside: avoid; }
-  .sg-code > details > pre { white-space: pre-wrap; }
+  .sg-code > details > pre { white-space: pre-wrap; overflow-wrap: anywhere; overflow: visible; }
+  pre.sg-out, .sg-error pre { overflow-wrap: anywhere; }
+  .js-plotly-plot .modebar { display: none !important; }
 }
 `;

@@ -3,15 +3,23 @@
  * its own process is what lets the runner stop a cell that never ends (SIGKILL) or survive a cell
  * that ends the process, without losing what earlier cells produced.
  */
+import { createHash } from 'node:crypto';
+import { existsSync, readFileSync } from 'node:fs';
+import path from 'node:path';
+import { msg } from '../../lib/errors.js';
+import { knobSnapshot, supplyKnobs } from '../../lib/knob.js';
 import { provenanceSnapshot } from '../../lib/provenance.js';
+import { tslabTs } from '../session/compilerShim.js';
 import { createSession } from '../session/index.js';
-import { tslabTs } from '../session/moduleRoot.js';
 import type { Session } from '../session/types.js';
+import { checkSuppliedKnobs, findKnobs } from './findKnobs.js';
 import type { FromChild, ToChild } from './messages.js';
+import type { ModuleRecord } from './runRecord.js';
 
 const t0 = performance.now();
 
 let session: Session | undefined;
+let workDir = process.cwd();
 let current = -1;
 
 function send(m: FromChild): void {
@@ -35,33 +43,49 @@ process.on('message', (raw) => {
 // Without this, an idle child whose parent died would wait forever.
 process.on('disconnect', () => process.exit(0));
 
+const noInput = () => Promise.reject(msg.inputUnavailable('a headless run (sagitta run) has no one to answer', 'declare a knob and give the value with --set'));
+
 async function handle(m: ToChild): Promise<void> {
   if (m.kind === 'start') {
-    session = createSession({ workDir: m.workDir });
+    workDir = m.workDir;
+    // Knob values are checked against the notebook's knob(…) calls before anything runs.
+    const problems = checkSuppliedKnobs(findKnobs(m.cells), new Map(m.knobs));
+    if (problems.length > 0) {
+      send({ kind: 'refused', problems });
+      return;
+    }
+    supplyKnobs(new Map(m.knobs));
+    session = createSession({ workDir });
     // Compile and run an empty cell so the compiler is built before the first timed cell. (The
     // session's warmUp() is not called: it builds completion lists for the whole library, which
     // measured ~4 s here against ~0.5 s for a first cell that imports "sagitta".)
-    await session.execute('', { stream() {}, display() {} });
+    await session.execute('', { stream() {}, display() {}, clear() {}, ask: noInput });
     send({ kind: 'ready', typescript: tslabTs.version, startMs: performance.now() - t0 });
   } else if (m.kind === 'cell') {
-    if (!session) throw new Error('cell before start');
+    if (!session) throw msg.kernelState('run a cell', 'the notebook process has not started');
     current = m.index;
     const index = m.index;
     const c0 = performance.now();
     const outcome = await session.execute(m.code, {
       stream: (name, text) => send({ kind: 'stream', index, name, text }),
-      display: (bundle, options) => send({ kind: 'display', index, bundle: toJson(bundle), displayId: options.displayId, update: options.update }),
-    });
+      display: (bundle, options) => send({ kind: 'display', index, bundle, displayId: options.displayId, update: options.update }),
+      clear: (wait) => send({ kind: 'clear', index, wait }),
+      ask: noInput,
+    }, { label: `step ${m.step}` });
     const execMs = performance.now() - c0;
-    if (outcome.result) outcome.result = toJson(outcome.result);
-    send({ kind: 'done', index, outcome, provenance: provenanceSnapshot(), execMs });
+    send({ kind: 'done', index, outcome, provenance: provenanceSnapshot(), knobs: knobSnapshot(), modules: localModules(session), execMs });
   } else {
     session?.close();
     process.disconnect?.();
   }
 }
 
-/** Bundles cross the IPC channel and land in a JSON file: keep only what JSON can hold. */
-function toJson<T>(value: T): T {
-  return JSON.parse(JSON.stringify(value, (_k, v: unknown) => (typeof v === 'bigint' ? v.toString() : v))) as T;
+/** The local .ts modules the cells imported so far, hashed, by path relative to the notebook's folder. */
+function localModules(s: Session): ModuleRecord[] {
+  return (s.localModules?.() ?? []).flatMap((compiled) => {
+    const source = ['.ts', '.tsx', '.mts', '.js'].map((ext) => compiled.replace(/\.js$/, ext)).find((f) => existsSync(f));
+    if (!source) return [];
+    const bytes = readFileSync(source);
+    return [{ path: path.relative(workDir, source).replace(/\\/g, '/'), sha256: createHash('sha256').update(bytes).digest('hex'), sizeBytes: bytes.length }];
+  });
 }

@@ -1,17 +1,24 @@
+import type { MimeBundle } from '../../lib/display.js';
+import type { KnobRecord } from '../../lib/knob.js';
 import type { ProvenanceSnapshot } from '../../lib/provenance.js';
-import type { CellOutcome, MimeBundle } from '../session/types.js';
+import type { CellOutcome } from '../session/types.js';
+import type { ModuleRecord } from './runRecord.js';
 
 /** Messages from the runner to its child process (over Node's IPC channel, JSON). */
 export type ToChild =
-  | { kind: 'start'; workDir: string }
-  | { kind: 'cell'; index: number; code: string }
+  /** `cells`: every code cell (index, source), for finding knobs; `knobs`: supplied values as [name, text]. */
+  | { kind: 'start'; workDir: string; cells: Array<{ index: number; code: string }>; knobs: Array<[string, string]> }
+  | { kind: 'cell'; index: number; step: number; code: string }
   | { kind: 'close' };
 
 /** Messages from the child back to the runner. */
 export type FromChild =
   | { kind: 'ready'; typescript: string; startMs: number }
+  /** The supplied knob values do not fit the notebook's knobs; nothing ran. */
+  | { kind: 'refused'; problems: string[] }
   | { kind: 'stream'; index: number; name: 'stdout' | 'stderr'; text: string }
   | { kind: 'display'; index: number; bundle: MimeBundle; displayId?: string; update?: boolean }
+  | { kind: 'clear'; index: number; wait: boolean }
   /** `execMs`: time the session spent on the cell inside the child (compile + run). */
-  | { kind: 'done'; index: number; outcome: CellOutcome; provenance: ProvenanceSnapshot; execMs: number }
+  | { kind: 'done'; index: number; outcome: CellOutcome; provenance: ProvenanceSnapshot; knobs: readonly KnobRecord[]; modules: ModuleRecord[]; execMs: number }
   | { kind: 'fault'; message: string };

@@ -20,6 +20,7 @@ import { existsSync } from 'node:fs';
 import Module, { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
+import { tslabTs } from './compilerShim.js';
 
 export const PACKAGE_NAME = 'sagitta';
 
@@ -28,63 +29,7 @@ export const packageRoot: string = path.resolve(fileURLToPath(new URL('../../', 
 
 const requireHere = createRequire(path.join(packageRoot, 'package.json'));
 
-/** tslab's bundled TypeScript (the compiler that checks and compiles cells). */
-export type TslabTs = typeof import('@tslab/typescript-for-tslab');
-const requireFromTslab = createRequire(requireHere.resolve('tslab/package.json'));
-export const tslabTs: TslabTs = requireFromTslab('@tslab/typescript-for-tslab') as TslabTs;
-
-/** True for compiler paths inside a node_modules folder (the library and its dependencies). */
-function isPackageFile(fileName: string): boolean {
-  return /[\\/]node_modules[\\/]/.test(fileName);
-}
-
-/**
- * Cells are checked against the library's types, but the library's own sources are not
- * re-checked by tslab's older compiler with its older module resolution: that was done by the
- * package's own type check, and an error there would otherwise block every cell. Nor are they
- * "emitted" (which type-checks a file in full, for seconds, though nothing is written for a
- * package file). tslab's converter reads the compiler through `require`, so it gets a copy of
- * the compiler module in which `getPreEmitDiagnosticsOfFiles` and the builder's
- * `getAllDependencies` leave out files under node_modules. Must run before
- * tslab/dist/converter is first loaded (session.ts imports this module first).
- */
-function shieldLibraryDiagnostics(): void {
-  const file = requireFromTslab.resolve('@tslab/typescript-for-tslab');
-  const entry = requireFromTslab.cache[file];
-  if (!entry || (entry.exports as { __sagittaShim?: boolean }).__sagittaShim) return;
-  const real = tslabTs as unknown as Record<string, unknown>;
-  const shim: Record<string, unknown> = {};
-  for (const key of Object.keys(real)) {
-    Object.defineProperty(shim, key, { enumerable: true, configurable: true, get: () => real[key] });
-  }
-  const original = tslabTs.getPreEmitDiagnosticsOfFiles;
-  Object.defineProperty(shim, 'getPreEmitDiagnosticsOfFiles', {
-    enumerable: true,
-    value: (program: unknown, files: ReadonlyArray<{ fileName: string }>, token?: unknown) =>
-      (original as (p: unknown, f: unknown, t?: unknown) => unknown)(program, files.filter((f) => !isPackageFile(f.fileName)), token),
-  });
-  type Builder = { getAllDependencies(sourceFile: unknown): readonly string[] };
-  type WatchHost = { createProgram: (...args: unknown[]) => Builder };
-  const createWatchCompilerHost = tslabTs.createWatchCompilerHost as unknown as (...args: unknown[]) => WatchHost;
-  Object.defineProperty(shim, 'createWatchCompilerHost', {
-    enumerable: true,
-    value: (...args: unknown[]) => {
-      const host = createWatchCompilerHost(...args);
-      const createProgram = host.createProgram;
-      host.createProgram = (...programArgs: unknown[]) => {
-        const builder = createProgram(...programArgs);
-        const getAllDependencies = builder.getAllDependencies.bind(builder);
-        builder.getAllDependencies = (sourceFile) => getAllDependencies(sourceFile).filter((f) => !isPackageFile(f));
-        return builder;
-      };
-      return host;
-    },
-  });
-  Object.defineProperty(shim, '__esModule', { value: true });
-  Object.defineProperty(shim, '__sagittaShim', { value: true });
-  entry.exports = shim;
-}
-shieldLibraryDiagnostics();
+export { tslabTs, type TslabTs } from './compilerShim.js';
 
 const virtualRoots = new Set<string>();
 

@@ -3,9 +3,7 @@
  * and the in-process execution session (kernel/session/session.ts). Plain data in, plain data out:
  * nothing here knows about sockets or child processes.
  */
-
-/** One output in several representations, keyed by MIME type (the notebook format's "data"). */
-export type MimeBundle = Record<string, unknown>;
+import type { MimeBundle } from '../../lib/display.js';
 
 /** Callbacks a running cell uses to emit output while it runs. */
 export interface CellHooks {
@@ -13,6 +11,10 @@ export interface CellHooks {
   stream(name: 'stdout' | 'stderr', text: string): void;
   /** A rich output; `update: true` replaces the earlier output carrying the same `displayId`. */
   display(bundle: MimeBundle, options: { displayId?: string; update?: boolean }): void;
+  /** Clears the cell's outputs so far; with `wait`, only once the next output arrives. */
+  clear(wait: boolean): void;
+  /** Asks the person running the notebook for a line of text; rejects where no one can answer. */
+  ask(prompt: string, password: boolean): Promise<string>;
 }
 
 /** A failed cell: the exception's class name, message and a readable traceback (one line per entry). */
@@ -38,15 +40,22 @@ export interface CompletionReply {
 
 export type Completeness = 'complete' | 'incomplete' | 'invalid' | 'unknown';
 
+export interface ExecuteOptions {
+  /** How stack traces name this cell, e.g. "cell 3" (default "cell run N"). */
+  readonly label?: string;
+}
+
 /** An execution context that keeps variables between cells. `cursorPos` values are code points. */
 export interface Session {
-  execute(code: string, hooks: CellHooks): Promise<CellOutcome>;
+  execute(code: string, hooks: CellHooks, options?: ExecuteOptions): Promise<CellOutcome>;
   complete(code: string, cursorPos: number): Promise<CompletionReply>;
   inspect(code: string, cursorPos: number, detailLevel: number): Promise<MimeBundle | undefined>;
   isComplete(code: string): Promise<Completeness>;
   /** Asks the running cell to stop (resolves a pending await with an error; see session.ts). */
   interrupt(): void;
   close(): void;
+  /** Compiled files of the local modules (.ts next to the notebook) the cells have loaded. */
+  localModules?(): string[];
   /**
    * Optional: loads the library and builds the compiler's view of it ahead of the first cell
    * (the kernel calls it while the front end is idle). Changes no state a cell can see.
@@ -57,4 +66,6 @@ export interface Session {
 export interface SessionOptions {
   /** Folder of the notebook: relative imports and files resolve from here. */
   workDir: string;
+  /** Shared flag the session keeps up to date with the cell's phase (kernel/session/phase.ts). */
+  phase?: Int32Array;
 }

@@ -1,4 +1,3 @@
-import { writeFileSync, renameSync } from 'node:fs';
 import type { DataFrame } from 'danfojs-node';
 import { loadDanfo } from './hitsToDataFrame.js';
 
@@ -107,11 +106,4 @@ export function columnTableToDataFrame(table: ColumnTable): DataFrame {
   for (const c of table.columns) data[c.name] = Array.from(c.values as ArrayLike<number | string>);
   const { DataFrame: Frame } = loadDanfo();
   return new Frame(data);
-}
-
-/** Writes text or bytes atomically: to a temporary file beside the target, then rename. */
-export function writeFileAtomic(path: string, text: string | Uint8Array): void {
-  const tmp = `${path}.${process.pid}.tmp`;
-  writeFileSync(tmp, text);
-  renameSync(tmp, path);
 }

@@ -62,6 +62,8 @@ export function formatRunRecord(result: SimulationResult, files: Readonly<Record
   for (const s of t.species) bySpecies[s] = (bySpecies[s] ?? 0) + 1;
   const record = {
     format: 'sagitta-run/1',
+    // Said in the record itself, so a report that reads these hits can mark its results simulated.
+    simulated: true,
     scenario: result.name,
     seed: result.seed,
     events: result.events,

@@ -41,7 +41,13 @@ function signature(key: string, parts: string[]): string {
 export class ProtocolClient {
   readonly key = randomUUID();
   readonly session = randomUUID();
-  private readonly shell = new zmq.Dealer({ routingId: `client-${randomUUID()}`, linger: 0 });
+  private readonly routingId = `client-${randomUUID()}`;
+  private readonly shell = new zmq.Dealer({ routingId: this.routingId, linger: 0 });
+  /** Spec: the stdin socket has the same identity as the shell socket, so input_request finds it. */
+  private readonly stdin = new zmq.Dealer({ routingId: this.routingId, linger: 0 });
+  /** Answers input_request messages; every request seen is kept in `inputRequests`. */
+  answerInput: (prompt: string, password: boolean) => string = () => '';
+  readonly inputRequests: WireMessage[] = [];
   private readonly control = new zmq.Dealer({ routingId: `client-${randomUUID()}`, linger: 0 });
   private readonly iopub = new zmq.Subscriber({ linger: 0 });
   private readonly hb = new zmq.Request({ linger: 0, receiveTimeout: 3000 });
@@ -83,6 +89,8 @@ export class ProtocolClient {
     this.iopub.connect(at(info.iopub_port));
     this.iopub.subscribe();
     this.hb.connect(at(info.hb_port));
+    this.stdin.connect(at(info.stdin_port));
+    void this.readStdin();
     void this.read(this.shell);
     void this.read(this.control);
     void this.read(this.iopub);
@@ -107,6 +115,24 @@ export class ProtocolClient {
           if (done) done(msg);
           else this.earlyReplies.set(parent_header.msg_id, msg);
         }
+      }
+    } catch {
+      // Socket closed at the end of the test.
+    }
+  }
+
+  private async readStdin(): Promise<void> {
+    try {
+      for await (const frames of this.stdin) {
+        const i = frames.findIndex((f) => f.toString() === '<IDS|MSG>');
+        const [sig, ...json] = frames.slice(i + 1, i + 6).map((f) => f.toString('utf8'));
+        if (sig !== signature(this.key, json)) throw new Error(`kernel sent a badly signed message: ${json[0]}`);
+        const [header, parent_header, metadata, content] = json.map((s) => JSON.parse(s));
+        const request: WireMessage = { header, parent_header, metadata, content };
+        this.inputRequests.push(request);
+        const reply = { msg_id: randomUUID(), session: this.session, username: 'test', date: new Date().toISOString(), msg_type: 'input_reply', version: '5.3' };
+        const body = [JSON.stringify(reply), JSON.stringify(header), '{}', JSON.stringify({ value: this.answerInput(String(content.prompt), content.password === true) })];
+        await this.stdin.send(['<IDS|MSG>', signature(this.key, body), ...body]);
       }
     } catch {
       // Socket closed at the end of the test.
@@ -187,7 +213,7 @@ export class ProtocolClient {
   }
 
   close(): void {
-    for (const s of [this.shell, this.control, this.iopub, this.hb]) s.close();
+    for (const s of [this.shell, this.control, this.iopub, this.hb, this.stdin]) s.close();
     if (this.kernel && this.kernel.exitCode === null) this.kernel.kill('SIGKILL');
   }
 }

@@ -172,7 +172,8 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     const failing = await client.send('shell', 'execute_request', { code: 'throw new Error("first fails")', stop_on_error: true });
     const queued = await client.send('shell', 'execute_request', { code: '"never runs"' });
     expect((await withTimeout(failing.reply, 60_000, 'reply')).content.status).toBe('error');
-    expect((await withTimeout(queued.reply, 60_000, 'reply')).content.status).toBe('aborted');
+    const aborted = await withTimeout(queued.reply, 60_000, 'reply');
+    expect(aborted.content).toEqual({ status: 'aborted' }); // no execution_count: front ends would label the skipped cell with it
     const tolerant = await client.send('shell', 'execute_request', { code: 'throw new Error("fails quietly")', stop_on_error: false });
     const after = await client.send('shell', 'execute_request', { code: '"runs anyway"' });
     expect((await withTimeout(tolerant.reply, 60_000, 'reply')).content.status).toBe('error');
@@ -229,6 +230,31 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     expect(range.history).toEqual(tail.history);
   });
 
+  it('history with output=True gives (session, line, (input, output)), the output being the result text or null', async () => {
+    const { reply: r1 } = await run('const outputMarker = 6;\noutputMarker * 7');
+    await run('const quietMarker = 1;');
+    const tail = (await client.request('shell', 'history_request', { output: true, raw: true, hist_access_type: 'tail', n: 2 })).reply.content;
+    expect(tail.history).toEqual([[1, r1.content.execution_count, ['const outputMarker = 6;\noutputMarker * 7', '42']], [1, r1.content.execution_count + 1, ['const quietMarker = 1;', null]]]);
+  });
+
+  it('clearOutput publishes clear_output (with wait); ask sends input_request on stdin when the front end allows input, and refuses when it does not', async () => {
+    client.answerInput = (prompt) => `typed after ${prompt}`;
+    const { reply, iopub } = await run('import { ask, clearOutput } from "sagitta";\nconsole.log("old");\nclearOutput({ wait: true });\nawait ask("Run label? ")', { allow_stdin: true });
+    expect(reply.content.status).toBe('ok');
+    expect(iopub.find((m) => m.header.msg_type === 'clear_output')!.content).toEqual({ wait: true });
+    const asked = client.inputRequests.at(-1)!;
+    expect(asked.content).toEqual({ prompt: 'Run label? ', password: false });
+    expect(asked.parent_header.msg_id).toBe(reply.parent_header.msg_id);
+    expect(iopub.find((m) => m.header.msg_type === 'execute_result')!.content.data['text/plain']).toBe('typed after Run label? ');
+    const refused = await run('await ask("again? ")', { allow_stdin: false });
+    expect(refused.reply.content.evalue).toMatch(/^a cell asked for input, but this front end does not allow input/);
+  });
+
+  it('a run-time error points at the line and column in the cell', async () => {
+    const { reply } = await run('const a = 1;\nfunction fail(): never {\n  throw new Error("here");\n}\nfail();');
+    expect(reply.content.traceback[1]).toBe(`    at fail (cell ${reply.content.execution_count}, line 3, column 9)`);
+  });
+
   it('comm_info answers with no comms', async () => {
     const { reply } = await client.request('shell', 'comm_info_request', {});
     expect(reply.content).toEqual({ status: 'ok', comms: {} });
@@ -282,6 +308,16 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     await client.waitFor((m) => m.parent_header.msg_id === long.id && m.header.msg_type === 'execute_input', 60_000);
     await client.send('control', 'interrupt_request', {});
     expect((await withTimeout(long.reply, 15_000, 'reply of the interrupted cell')).content.ename).toBe('Interrupted');
+  });
+
+  it('interrupt_request stops a synchronous loop that starts after an await (stopped from the control thread)', async () => {
+    const long = await client.send('shell', 'execute_request', { code: 'await new Promise((r) => setTimeout(r, 50));\nlet turns = 0;\nwhile (true) { turns++; }' });
+    await client.waitFor((m) => m.parent_header.msg_id === long.id && m.header.msg_type === 'execute_input', 60_000);
+    await new Promise((r) => setTimeout(r, 1500));
+    await client.send('control', 'interrupt_request', {});
+    const reply = await withTimeout(long.reply, 20_000, 'reply of the interrupted cell');
+    expect(reply.content.ename).toBe('Interrupted');
+    expect((await run('"alive after"')).reply.content.status).toBe('ok');
   });
 
   it('shutdown_request on control: replies, goes idle and the process exits with code 0', async () => {

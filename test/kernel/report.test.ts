@@ -8,7 +8,6 @@ import { inflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { collapseCarriageReturns, highlightTypeScript, openChromium, printReportPdf, renderMarkdown, renderReport, type HeadlessChromium } from '../../kernel/report/index.js';
 import { executedFixture, XSS } from './reportFixture.js';
-import { plotlySource } from '../../kernel/report/assets.js';
 
 const OUT = mkdtempSync(join(tmpdir(), 'sagitta-report-'));
 
@@ -32,22 +31,44 @@ describe('renderReport (static checks)', () => {
     expect(body).toContain('&lt;script&gt;');
   });
 
-  it('carries the provenance block: notebook hash, data files, seeds, versions, parameters, per-cell times', () => {
-    expect(html).toContain('a'.repeat(64));
-    expect(html).toContain('b'.repeat(64));
-    expect(html).toContain("Sagitta 0.1.0 · Node 20.19.0 · TypeScript 5.9.3");
-    expect(html).toContain('fieldT');
-    expect(html).toContain('<td>simulate</td>');
-    expect(html).toContain('40 ms');
+  it('carries the provenance card: notebook hash, library commit and lockfile, cell compiler, knobs, data files (simulated marked, with the run record seed), modules, seeds, per-step times', () => {
+    const card = html.slice(html.indexOf('aria-label="Provenance"'));
+    expect(card).toContain('a'.repeat(64));
+    expect(card).toContain('b'.repeat(64));
+    expect(card).toContain(`Sagitta 0.1.0 · commit <span class="sg-hash">${'e'.repeat(40)}</span>`);
+    expect(card).toContain('f'.repeat(64));
+    expect(card).toContain('<td>Cells compiled by</td><td>TypeScript 5.0.4 · run on Node.js 20.19.0</td>');
+    expect(card).toContain('<td>field</td><td class="sg-hash">0.5 T <span class="sg-muted">(used in T)</span></td><td class="sg-hash">1.5 T</td><td>this run (--set)</td>');
+    expect(card).toMatch(/<td>data\/hits&lt;script&gt;.*<b class="sg-sim">simulated<\/b> \(check\)/);
+    expect(card).toContain('<td>helpers.ts</td>');
+    expect(card).toContain('<td>simulate</td>');
+    expect(card).toContain('20260401');
+    expect(card).toContain('40 ms');
   });
 
-  it('matches its golden file (plotly.js and its hash replaced by placeholders)', () => {
-    const plotly = plotlySource();
-    const at = html.indexOf(plotly.slice(0, 200));
-    expect(at).toBeGreaterThan(0);
-    const golden = (html.slice(0, at) + '/* plotly.min.js inlined here */' + html.slice(at + plotly.length))
-      .replace(/'sha256-[A-Za-z0-9+/=]+'/, "'sha256-(plotly)'");
-    expectGolden(join(import.meta.dirname, 'report-golden', 'fixture.html'), golden);
+  it('numbers code cells one way: step 1 … step 6 in the notes, the provenance steps and the reason line', () => {
+    expect([...html.matchAll(/<aside class="sg-note"><b>(step \d+)<\/b>/g)].map((m) => m[1])).toEqual(['step 1', 'step 2', 'step 3', 'step 4', 'step 5', 'step 6']);
+    const body = html.slice(html.indexOf("<body"), html.indexOf("<script type=\"application/json\""));
+    expect(body).not.toMatch(/CELL \d|cell \d|\[\d\]/);
+    expect(html).toContain('step 5 failed: RangeError');
+  });
+
+  it('banners simulated inputs and carries the clinical caution when ranges or stopping powers were used', () => {
+    expect(html).toContain('<b>Simulated data.</b>');
+    expect(html).toMatch(/<b>Caution\.<\/b>.*not for treatment planning/);
+    const plain = renderReport({ ...executedFixture(), run: { ...executedFixture().run, usesStoppingPower: false, inputs: [] } });
+    expect(plain).not.toContain('<b>Caution.</b>');
+    expect(plain).not.toContain('Simulated data.');
+  });
+
+  it('writes no absolute path and renders subscripts in figure labels (p_T → p<sub>T</sub>)', () => {
+    expect(html).not.toMatch(/"\/(x|tmp|home|work)\//);
+    expect(html).toContain('p\\u003csub>T\\u003c/sub> [GeV/c]');
+  });
+
+  it('matches its golden file (the page body, without the stylesheet and scripts)', () => {
+    const body = html.slice(html.indexOf('<body'), html.indexOf('<script type="application/json"'));
+    expectGolden(join(import.meta.dirname, 'report-golden', 'fixture-body.html'), body);
   });
 
   it('renderMarkdown embeds attachment: images and image files in the notebook folder as data URLs; names the rest', () => {
@@ -128,13 +149,40 @@ describe.skipIf(!chromiumAvailable())('report in headless Chromium', () => {
     process.stdout.write(`report screenshot: ${join(OUT, 'report.png')}\n`);
   });
 
-  it('the code switch hides and shows code', async () => {
+  it('the code switch hides and shows code; --hide-code gives the same page (screen and print) as pressing it', async () => {
     const page = await browser.context.newPage();
     await page.goto(pathToFileURL(file).href);
     await page.click('#sg-code-switch');
     expect(await page.locator('.sg-code > details').first().isVisible()).toBe(false);
+    const pressed = { body: await page.evaluate(() => document.body.className), button: await page.textContent('#sg-code-switch') };
+    await page.waitForSelector('body[data-figures="drawn"]', { state: 'attached' });
+    await page.emulateMedia({ media: 'print' });
+    const pressedShot = await page.screenshot({ fullPage: true });
+    await page.emulateMedia({ media: 'screen' });
     await page.click('#sg-code-switch');
     expect(await page.locator('.sg-code > details').first().isVisible()).toBe(true);
+    const hiddenFile = join(OUT, 'hidden.html');
+    writeFileSync(hiddenFile, renderReport({ ...executedFixture(), codeOpen: false }));
+    const hidden = await browser.context.newPage();
+    await hidden.goto(pathToFileURL(hiddenFile).href);
+    await hidden.waitForSelector('body[data-figures="drawn"]', { state: 'attached' });
+    expect({ body: await hidden.evaluate(() => document.body.className), button: await hidden.textContent('#sg-code-switch') }).toEqual(pressed);
+    await hidden.emulateMedia({ media: 'print' });
+    expect(Buffer.compare(await hidden.screenshot({ fullPage: true }), pressedShot)).toBe(0);
+  });
+
+  it('display math shows no scrollbar and long code lines wrap in print; the figure toolbar is slim', async () => {
+    const page = await browser.context.newPage();
+    await page.goto(pathToFileURL(file).href);
+    await page.waitForSelector('body[data-figures="drawn"]', { state: 'attached' });
+    const math = await page.evaluate(() => Array.from(document.querySelectorAll('.sg-math'), (n) => [n.scrollWidth - n.clientWidth, n.scrollHeight - n.clientHeight]));
+    expect(math.length).toBeGreaterThan(0);
+    expect(math.every(([w, h]) => w <= 0 && h <= 0)).toBe(true);
+    const buttons = await page.evaluate(() => Array.from(document.querySelectorAll('.modebar-btn'), (b) => b.getAttribute('data-title')));
+    expect(buttons).toEqual(['Download plot as a png', 'Zoom', 'Pan', 'Reset axes']);
+    await page.emulateMedia({ media: 'print' });
+    const overflow = await page.evaluate(() => Array.from(document.querySelectorAll('.sg-code pre'), (n) => n.scrollWidth - n.clientWidth));
+    expect(overflow.every((d) => d <= 0)).toBe(true);
   });
 
   it('--pdf: prints a PDF whose pages carry the drawn figure (vector paths in the page content)', async () => {

@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { runCommand } from '../../kernel/cli/commands/run.js';
 import type { Notebook } from '../../kernel/notebook/types.js';
 import { nbformatValidator } from './nbSchema.js';
+import { checkLine, EXAMPLE_CHECKS } from './exampleChecks.js';
 
 const NOTEBOOKS = resolve(import.meta.dirname, '..', '..', 'notebooks');
 const examples = readdirSync(NOTEBOOKS).filter((f) => f.endsWith('.ipynb')).sort();
@@ -31,7 +32,14 @@ describe.each(examples)('example notebook %s', (name) => {
     expect(errors).toEqual([]);
     const page = readFileSync(html, 'utf8');
     // Provenance: the data files the notebook read are listed with their SHA-256.
-    expect(page).toMatch(/[\w-]+-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td class="sg-hash">[0-9a-f]{64}/);
+    expect(page).toMatch(/[\w.-]+\.(csv|json)<\/td><td class="sg-num">[\d.]+ (B|KiB|MiB)<\/td><td class="sg-hash">[0-9a-f]{64}/);
+    // A notebook with its own check (its results against published values) passes it.
+    const check = EXAMPLE_CHECKS[name];
+    if (check) {
+      const results = checkLine(nb.cells);
+      expect(results, `${name} prints no sagitta-check line`).toBeDefined();
+      check(results!);
+    }
     if (!chromiumAvailable()) return;
     const report = await openReport(html);
     try {

@@ -9,7 +9,8 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createSession } from '../../kernel/session/session.js';
-import type { CellHooks, MimeBundle, Session } from '../../kernel/session/types.js';
+import type { MimeBundle } from '../../lib/display.js';
+import type { CellHooks, Session } from '../../kernel/session/types.js';
 
 const startDir = process.cwd();
 const notebookDir = mkdtempSync(path.join(tmpdir(), 'sagitta-session-'));
@@ -18,6 +19,7 @@ let session: Session;
 interface Recorded {
   streams: Array<{ name: string; text: string }>;
   displays: Array<{ bundle: MimeBundle; options: { displayId?: string; update?: boolean } }>;
+  cleared: boolean[];
   hooks: CellHooks;
 }
 
@@ -25,9 +27,12 @@ function recorder(): Recorded {
   const r: Recorded = {
     streams: [],
     displays: [],
+    cleared: [],
     hooks: {
       stream: (name, text) => r.streams.push({ name, text }),
       display: (bundle, options) => r.displays.push({ bundle, options }),
+      clear: (wait) => r.cleared.push(wait),
+      ask: (prompt) => Promise.resolve(`answer to ${prompt}`),
     },
   };
   return r;
@@ -121,6 +126,39 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
     expect(out.error?.traceback[0]).toBe('TypeError: no hits on track 7');
     const thrownString = await session.execute('throw "plain string"', recorder().hooks);
     expect(thrownString.error?.ename).toBe('Thrown');
+  });
+
+  it('a cell that throws part-way keeps the imports and declarations made before the throw; names after it are gone', async () => {
+    const failed = await session.execute('import { PROTON as P } from "sagitta";\nconst before = 2;\nfunction twice(x: number) { return before * x; }\nthrow new Error("half way");\nconst after = 3;', recorder().hooks);
+    expect(failed.error?.evalue).toBe('half way');
+    const later = await session.execute('[twice(P.charge), before]', recorder().hooks);
+    expect(later.status).toBe('ok');
+    expect(later.result?.['text/plain']).toBe('[ 2, 2 ]');
+    const missing = await session.execute('after', recorder().hooks);
+    expect(missing.error?.ename).toBe('CompileError');
+    expect(missing.error?.evalue).toMatch(/Cannot find name 'after'/);
+  });
+
+  it('an earlier value survives a later cell that fails before redeclaring it', async () => {
+    await session.execute('let seedRun = 7;', recorder().hooks);
+    await session.execute('throw new Error("stop");\nlet seedRun = 8;', recorder().hooks);
+    expect((await session.execute('seedRun', recorder().hooks)).result?.['text/plain']).toBe('7');
+  });
+
+  it('a run-time error names the cell, line and column of each frame in the cell', async () => {
+    const out = await session.execute('interface Hit { x: number }\nfunction deep(h: Hit): never {\n  throw new RangeError(`no field at x = ${h.x}`);\n}\ndeep({ x: 0.5 });', recorder().hooks, { label: 'cell 9' });
+    expect(out.error?.traceback.slice(0, 3)).toEqual([
+      'RangeError: no field at x = 0.5',
+      '    at deep (cell 9, line 3, column 9)',
+      '    at cell 9, line 5, column 1',
+    ]);
+  });
+
+  it('clearOutput and ask reach the cell hooks', async () => {
+    const r = recorder();
+    const out = await session.execute('import { ask, clearOutput } from "sagitta";\nclearOutput({ wait: true });\nclearOutput();\nawait ask("Run label: ")', r.hooks);
+    expect(r.cleared).toEqual([true, false]);
+    expect(out.result?.['text/plain']).toBe('answer to Run label: ');
   });
 
   it('interrupt() stops a cell waiting on an await', async () => {

@@ -1,6 +1,7 @@
 import { Command } from 'commander';
 import { existsSync } from 'node:fs';
 import { basename, dirname, resolve } from 'node:path';
+import type { RunProgress } from '../../runner/runNotebook.js';
 
 export interface RunCommandOptions {
   html?: string;
@@ -12,6 +13,8 @@ export interface RunCommandOptions {
   keepGoing?: boolean;
   set: string[];
   hideCode?: boolean;
+  /** Per-step progress lines (the command passes one when stderr is a terminal). */
+  progress?: (event: RunProgress) => void;
 }
 
 /**
@@ -33,13 +36,13 @@ export function registerRun(program: Command): void {
     .option('--write-back', 'write the executed notebook over the source notebook (the source is otherwise never changed)')
     .option('--cell-timeout <duration>', 'longest one cell may run, e.g. 120s, 2min, 500ms; 0 for no limit', '120s')
     .option('--keep-going', 'run the remaining cells after a cell raises an error')
-    .option('--set <name=value>', 'replace a default of the cell tagged "sagitta-knobs" (value read as JSON, else as text); repeatable', (v: string, acc: string[]) => [...acc, v], [] as string[])
+    .option('--set <name=value>', 'give a knob of the notebook a value for this run, e.g. --set field="1.2 T"; repeatable', (v: string, acc: string[]) => [...acc, v], [] as string[])
     .option('--hide-code', 'start the report with code folded away')
     .addHelpText('after', `
-Knobs: tag the code cell that holds a notebook's adjustable defaults "sagitta-knobs". Values given
-with --set are placed in a new cell right after it, tagged "sagitta-knobs-set", which redeclares
-them (const name = value;); each name must be one the knobs cell declares. The report's
-provenance card lists the values set.
+Knobs: a notebook declares the values a run may change with the library call knob(name, default),
+e.g. const fieldT = knob('field', '1.5 T'). --set field="1.2 T" gives it a value for this run; every
+value is checked against its knob's type and unit (a field needs a field unit, a number a number,
+a list the same length) before any cell runs. The report lists each knob with the value used.
 
 Cells run in order in a separate Node process. A cell that raises gets an error output; with
 --keep-going the later cells still run. A cell that exceeds --cell-timeout, or that ends the
@@ -51,9 +54,10 @@ Exit codes: 0 every cell ran without error; 1 a cell failed, timed out or ended 
 the notebook could not be read; 2 bad usage.
 
 Example:
-  sagitta run notebooks/01-brindlemoor-bending.ipynb --html report.html --set fieldT=1.2 --cell-timeout 60s`)
+  sagitta run notebooks/01-brindlemoor-bending.ipynb --html report.html --set field="1.2 T" --cell-timeout 60s`)
     .action(async (notebook: string, options: RunCommandOptions) => {
-      const result = await runCommand(notebook, options);
+      const progress = process.stderr.isTTY ? terminalProgress() : undefined;
+      const result = await runCommand(notebook, { ...options, progress });
       process.stderr.write(`${result.summary}\n`);
       if (result.exitCode !== 0) {
         process.stderr.write(`sagitta: ${result.reason}\n`);
@@ -74,9 +78,10 @@ export interface RunCommandResult {
 /** Runs the command (also used by `sagitta demo` and by tests). */
 export async function runCommand(notebook: string, options: RunCommandOptions): Promise<RunCommandResult> {
   const { parseDuration, parseSetArguments, runNotebook } = await import('../../runner/index.js');
-  const { writeNotebook, writeFileAtomic } = await import('../../notebook/write.js');
+  const { writeNotebook } = await import('../../notebook/write.js');
+  const { writeFileAtomic } = await import('../../../lib/io/writeFileAtomic.js');
   const cellTimeoutMs = parseDuration(options.cellTimeout);
-  const parameters = parseSetArguments(options.set ?? []);
+  const knobs = parseSetArguments(options.set ?? []);
   const executedPath = options.writeBack ? notebook : options.executed === false ? undefined : (options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`);
   if (!options.writeBack && executedPath !== undefined && resolve(executedPath) === resolve(notebook)) {
     const { msg } = await import('../../../lib/errors.js');
@@ -89,7 +94,7 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
     if (path !== undefined && !existsSync(dirname(resolve(path)))) throw msg.badArgument(flag, path, 'a file in an existing folder');
   }
   // Start the notebook process first; the report modules load while it boots.
-  const running = runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, parameters });
+  const running = runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, knobs, onProgress: options.progress });
   const wantReport = options.html !== undefined || options.pdf !== undefined;
   const report = wantReport ? import('../../report/index.js') : undefined;
   report?.catch(() => undefined);
@@ -103,7 +108,7 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
   let pdfPath: string | undefined;
   if (report !== undefined) {
     const { renderReport, printReportPdf } = await report;
-    const html = renderReport({ notebook: result.notebook, run: result.run, codeOpen: !options.hideCode });
+    const html = renderReport({ notebook: result.notebook, run: result.run, codeOpen: !options.hideCode, imageDir: dirname(resolve(notebook)) });
     htmlPath = options.html ?? `${options.pdf!.replace(/\.pdf$/i, '')}.html`;
     writeFileAtomic(htmlPath, html);
     written.push(`report: ${resolve(htmlPath)}`);
@@ -116,6 +121,24 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
   const code = result.notebook.cells.filter((c) => c.cell_type === 'code');
   const ran = code.filter((c) => (c.metadata.sagitta as { outcome?: string } | undefined)?.outcome !== 'not-run').length;
   const startup = Number.isFinite(result.startMs) ? ` (start-up ${(result.startMs / 1000).toFixed(2)} s)` : '';
-  const summary = `ran ${ran} of ${code.length} code cells in ${(result.run.wallMs / 1000).toFixed(2)} s${startup}\n${written.join('\n')}`;
+  const summary = `ran ${ran} of ${code.length} steps in ${(result.run.wallMs / 1000).toFixed(2)} s${startup}\n${written.join('\n')}`;
   return { exitCode: result.exitCode, reason: result.reason, summary, executedPath, htmlPath, pdfPath };
+}
+
+/**
+ * Progress on a terminal: one line per step, redrawn in place ("step 3/9 … 1.24 s"), so a long
+ * start-up or a slow cell is visible. Only used when stderr is a terminal.
+ */
+export function terminalProgress(write: (text: string) => void = (t) => void process.stderr.write(t)): (event: RunProgress) => void {
+  let started = 0;
+  return (event) => {
+    if (event.kind === 'started') write(`notebook process ready; running ${event.steps} steps\n`);
+    else if (event.kind === 'step') {
+      started = Date.now();
+      write(`\r\u001b[2Kstep ${event.step}/${event.steps} …`);
+    } else {
+      const s = ((event.wallMs || Date.now() - started) / 1000).toFixed(2);
+      write(`\r\u001b[2Kstep ${event.step}/${event.steps} ${event.outcome === 'done' ? 'done' : 'FAILED'} in ${s} s${event.step === event.steps || event.outcome !== 'done' ? '\n' : ''}`);
+    }
+  };
 }
