@@ -8,6 +8,7 @@ export * from './provenance.js';
 export * from './display.js';
 export { knob, knobSnapshot, readKnobValue, type KnobKind, type KnobRecord } from './knob.js';
 export * from './io/index.js';
+export * from './find/index.js';
 export * from './fit/index.js';
 export * from './track/index.js';
 export * from './analysis/index.js';

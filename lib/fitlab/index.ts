@@ -4,3 +4,6 @@ export { fitLabSampleFromRun, type SampleFromRunOptions } from './sampleFromRun.
 export { compareFitters, type FitLabReport, type FitMerit, type BinnedMerit, type FitterTrackColumns, type CompareOptions } from './compare.js';
 export { pullFigure, pValueFigure, meritFigure } from './figures.js';
 export { fitLabTables } from './tables.js';
+export { withNoiseHits } from './withNoiseHits.js';
+export { findingLab, type FindingLabOptions, type FindingLabReport, type FindingBin, type FindingSummary } from './findingLab.js';
+export { findingFigure } from './findingFigure.js';

@@ -26,7 +26,7 @@ const COMMA = 44, SEMICOLON = 59, TAB = 9, CR = 13, LF = 10, SPACE = 32;
  * bytes hold the whole file; when false and no line end was found yet, returns undefined (the
  * caller reads more).
  */
-export function readCsvLayout(bytes: Uint8Array, file: string, lengthUnit: string, complete = true): CsvLayout | undefined {
+export function readCsvLayout(bytes: Uint8Array, file: string, lengthUnit: string, complete = true, trackOptional = false): CsvLayout | undefined {
   const n = bytes.length;
   let i = 0;
   if (n >= 3 && bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf) i = 3;
@@ -49,7 +49,7 @@ export function readCsvLayout(bytes: Uint8Array, file: string, lengthUnit: strin
     throw msg.badRow(file, line, 'the header holds control characters: this does not look like a CSV text file (a binary or compressed file?)');
   }
   const delimiter = headerText.includes(',') ? COMMA : headerText.includes('\t') ? TAB : headerText.includes(';') ? SEMICOLON : COMMA;
-  const fields = parseHeader(splitHeader(headerText, String.fromCharCode(delimiter)), file, lengthUnit, line);
+  const fields = parseHeader(splitHeader(headerText, String.fromCharCode(delimiter)), file, lengthUnit, line, trackOptional);
   return { fields, delimiter, headerText, bodyStart: Math.min(n, headerEnd + 1), bodyLine: line + 1, lengthUnit };
 }
 

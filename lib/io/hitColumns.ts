@@ -5,7 +5,7 @@ import { metresPerUnit } from '../units.js';
  * The columns a hit file may carry, shared by the CSV and JSON Lines readers.
  * A header name may carry a length unit in brackets: `x[cm]`, `sigma [um]`.
  */
-export const HIT_COLUMNS = ['event', 'track', 'x', 'y', 'z', 'sigma', 'sigma_x', 'sigma_y', 'sigma_z'] as const;
+export const HIT_COLUMNS = ['event', 'track', 'x', 'y', 'z', 'sigma', 'sigma_x', 'sigma_y', 'sigma_z', 'hit_order'] as const;
 export type HitColumn = (typeof HIT_COLUMNS)[number];
 
 export const REQUIRED_HIT_COLUMNS: readonly HitColumn[] = ['event', 'track', 'x', 'y'];
@@ -34,9 +34,10 @@ export function columnOf(name: string): HitColumn | undefined {
 
 /**
  * Reads a header into fields, checks duplicates and required columns, and resolves units
- * (header unit, else `defaultLengthUnit`).
+ * (header unit, else `defaultLengthUnit`). `trackOptional`: a header without `track` is
+ * accepted (for hits not yet sorted into tracks; the reader then marks every row −1).
  */
-export function parseHeader(names: readonly string[], file: string, defaultLengthUnit: string, line = 1): HeaderField[] {
+export function parseHeader(names: readonly string[], file: string, defaultLengthUnit: string, line = 1, trackOptional = false): HeaderField[] {
   const defaultScale = metresPerUnit(defaultLengthUnit, { file });
   const seen = new Set<string>();
   const fields = names.map((name): HeaderField => {
@@ -56,7 +57,7 @@ export function parseHeader(names: readonly string[], file: string, defaultLengt
   });
   const present = new Set(fields.map((f) => f.column));
   for (const required of REQUIRED_HIT_COLUMNS) {
-    if (!present.has(required)) throw msg.missingColumn(file, required, fields.map((f) => f.raw), line);
+    if (!present.has(required) && !(trackOptional && required === 'track')) throw msg.missingColumn(file, required, fields.map((f) => f.raw), line);
   }
   if (present.has('sigma') && (present.has('sigma_x') || present.has('sigma_y'))) {
     throw msg.badRow(file, line, "give either 'sigma' or 'sigma_x'/'sigma_y', not both");

@@ -23,6 +23,12 @@ export interface HitTable {
   readonly sigmaY?: Float64Array;
   /** Per-hit error along z [m]. */
   readonly sigmaZ?: Float64Array;
+  /**
+   * Place of each hit along its track in the direction of travel (0 = first), when the file has
+   * a `hit_order` column (as `sagitta find` writes): the rows of a track are then taken in this
+   * order, whatever their order in the file.
+   */
+  readonly hitOrder?: Float64Array;
   /** Where the rows came from, for messages and provenance. */
   readonly source: HitTableSource;
 }
@@ -46,6 +52,8 @@ export interface HitTableSource {
    * these labels give the exact ids (lib/io/hitIds.ts). Absent in the usual file.
    */
   readonly idLabels?: { readonly event?: IdLabels; readonly track?: IdLabels };
+  /** Columns a reader was allowed to miss (`track`, with `trackOptional`: every row then −1). */
+  readonly absentColumns?: readonly string[];
 }
 
 /**

@@ -113,7 +113,8 @@ export class HitTableBuilder {
     const cut = <T extends Float64Array | Int32Array>(a: T): T => (trim ? a.subarray(0, n) : a.slice(0, n)) as T;
     const take = (c: HitColumn): Float64Array | undefined => (this.present.has(c) ? cut(this.cols[c]) : undefined);
     const event = take('event')!;
-    const track = take('track')!;
+    // A file read without a track column: every row on no track (−1), said in the source.
+    const track = take('track') ?? new Float64Array(n).fill(-1);
     let idLabels: { event?: IdLabels; track?: IdLabels } | undefined;
     if (this.wide.event) (idLabels ??= {}).event = encodeWideIds(event, this.wide.event);
     if (this.wide.track) (idLabels ??= {}).track = encodeWideIds(track, this.wide.track);
@@ -122,11 +123,13 @@ export class HitTableBuilder {
       file, units, line: cut(this.lines), ignoredColumns,
       ...(this.positions ? { position: cut(this.positions) } : {}),
       ...(idLabels ? { idLabels } : {}),
+      ...(this.present.has('track') ? {} : { absentColumns: ['track'] }),
     };
     return {
       length: n, event, track,
       x: take('x')!, y: take('y')!, z: take('z'),
       sigmaX: sigma ?? take('sigma_x'), sigmaY: sigma ?? take('sigma_y'), sigmaZ: take('sigma_z'),
+      ...(this.present.has('hit_order') ? { hitOrder: take('hit_order') } : {}),
       source,
     };
   }

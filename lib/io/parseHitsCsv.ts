@@ -9,6 +9,8 @@ import { scanNumber, scanEnd } from './scanNumber.js';
 export interface ReadHitsOptions {
   /** Unit of length columns whose header carries none. Default 'mm'. */
   readonly lengthUnit?: string;
+  /** Accept a file without a `track` column (every row then gets track −1, on no track). Default false. */
+  readonly trackOptional?: boolean;
 }
 
 export const READ_HITS_DEFAULTS = Object.freeze({ lengthUnit: 'mm' });
@@ -48,7 +50,7 @@ const STRICT_DECIMAL = /^\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?\s*$/;
  * The loop works on bytes and never splits a row into strings (110 MB in well under a second).
  */
 export function parseHitsCsv(bytes: Uint8Array, file: string, options: ReadHitsOptions = {}): HitTable {
-  const layout = readCsvLayout(bytes, file, options.lengthUnit ?? READ_HITS_DEFAULTS.lengthUnit)!;
+  const layout = readCsvLayout(bytes, file, options.lengthUnit ?? READ_HITS_DEFAULTS.lengthUnit, true, options.trackOptional)!;
   return parseCsvRows(bytes, layout, file, { start: layout.bodyStart, end: bytes.length, firstLine: layout.bodyLine });
 }
 

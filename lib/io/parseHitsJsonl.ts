@@ -49,7 +49,7 @@ export function parseJsonlRows(bytes: Uint8Array, file: string, rows: CsvRows, o
     const raw = decoder.decode(bytes.subarray(lineStart, e)).trim();
     if (raw === '') continue;
     const record = parseObject(raw, file, lineNo);
-    if (fields === undefined) fields = parseHeader(Object.keys(record), file, lengthUnit, lineNo);
+    if (fields === undefined) fields = parseHeader(Object.keys(record), file, lengthUnit, lineNo, options.trackOptional);
     if (builder === undefined) {
       builder = new HitTableBuilder(fields, Math.ceil((rows.end - rows.start) / Math.max(16, raw.length) * 1.1) + 16, rows.positions === true);
       used = new Set(fields.filter((f) => f.column !== undefined).map((f) => f.raw));

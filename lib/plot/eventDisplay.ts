@@ -1,6 +1,6 @@
 import { msg } from '../errors.js';
 import { asMime, escapeHtml, type MimeBundle, type Presentable } from '../display.js';
-import { PALETTE, chargeColour } from './palette.js';
+import { PALETTE, TRACK_COLOURS, chargeColour } from './palette.js';
 
 /** Hits in the bending plane, metres; `track[i]` is the index of the track hit i belongs to (−1: none). */
 export interface DisplayHits {
@@ -27,6 +27,11 @@ export interface EventDisplayOptions {
   readonly extentM?: { readonly xMin: number; readonly xMax: number; readonly yMin: number; readonly yMax: number };
   /** Width of the picture in CSS pixels; the height follows the extent (equal scales on x and y). */
   readonly widthPx?: number;
+  /**
+   * 'charge' (default): arcs copper for q > 0, teal for q < 0, hits grey. 'track': each track's
+   * hits and arc in a colour of its own (TRACK_COLOURS), e.g. to show what a track finder grouped.
+   */
+  readonly colourBy?: 'charge' | 'track';
 }
 
 const DEFAULTS = Object.freeze({ title: 'Event display (bending plane)', widthPx: 640 });
@@ -55,6 +60,7 @@ export class EventDisplay implements Presentable {
  */
 export function eventDisplay(hits: DisplayHits, tracks: readonly DisplayTrack[], options: EventDisplayOptions = {}): EventDisplay {
   const o = { ...DEFAULTS, ...options };
+  const byTrack = o.colourBy === 'track';
   const n = hits.xM.length;
   if (hits.yM.length !== n) throw msg.badArgument('hits.yM.length', hits.yM.length, `the same length as hits.xM (${n})`);
   if (hits.track && hits.track.length !== n) throw msg.badArgument('hits.track.length', hits.track.length, `the same length as hits.xM (${n})`);
@@ -84,12 +90,14 @@ export function eventDisplay(hits: DisplayHits, tracks: readonly DisplayTrack[],
   for (let i = 0; i < n; i++) {
     const x = hits.xM[i], y = hits.yM[i];
     if (!Number.isFinite(x) || !Number.isFinite(y)) continue;
-    const assigned = hits.track ? hits.track[i] >= 0 : true;
-    parts.push(`<circle cx="${px(x)}" cy="${py(y)}" r="1.9" fill="${assigned ? PALETTE.hit : 'none'}" stroke="${PALETTE.hit}" stroke-width="0.8"/>`);
+    const k = hits.track ? hits.track[i] : 0;
+    const assigned = k >= 0;
+    const ink = byTrack && assigned ? TRACK_COLOURS[k % TRACK_COLOURS.length] : PALETTE.hit;
+    parts.push(`<circle cx="${px(x)}" cy="${py(y)}" r="1.9" fill="${assigned ? ink : 'none'}" stroke="${ink}" stroke-width="0.8"/>`);
   }
   tracks.forEach((t, k) => {
     if (!(t.radiusM > 0) || !Number.isFinite(t.centerXM) || !Number.isFinite(t.centerYM)) return;
-    const colour = chargeColour(t.charge);
+    const colour = byTrack ? TRACK_COLOURS[k % TRACK_COLOURS.length] : chargeColour(t.charge);
     const span = hits.track ? arcSpan(hits, k, t) : undefined;
     if (span === undefined) {
       parts.push(`<circle cx="${px(t.centerXM)}" cy="${py(t.centerYM)}" r="${r2(t.radiusM * scale)}" fill="none" stroke="${colour}" stroke-width="1.6" stroke-opacity="0.9"/>`);
@@ -105,10 +113,10 @@ export function eventDisplay(hits: DisplayHits, tracks: readonly DisplayTrack[],
     const ends = span.map((a) => [t.centerXM + t.radiusM * Math.cos(a), t.centerYM + t.radiusM * Math.sin(a)]);
     const [x, y] = Math.hypot(ends[0][0], ends[0][1]) > Math.hypot(ends[1][0], ends[1][1]) ? ends[0] : ends[1];
     const right = px(x) > MARGIN.left + plotW / 2;
-    parts.push(`<text x="${r2(px(x) + (right ? -6 : 6))}" y="${r2(py(y) + (y > (ext.yMin + ext.yMax) / 2 ? 14 : -6))}" text-anchor="${right ? 'end' : 'start'}" fill="${chargeColour(t.charge)}">${escapeHtml(t.label)}</text>`);
+    parts.push(`<text x="${r2(px(x) + (right ? -6 : 6))}" y="${r2(py(y) + (y > (ext.yMin + ext.yMax) / 2 ? 14 : -6))}" text-anchor="${right ? 'end' : 'start'}" fill="${byTrack ? TRACK_COLOURS[k % TRACK_COLOURS.length] : chargeColour(t.charge)}">${escapeHtml(t.label)}</text>`);
   });
   parts.push('</g>');
-  parts.push(legend(W - MARGIN.right, H - 14));
+  parts.push(byTrack ? trackLegend(W - MARGIN.right, H - 14) : legend(W - MARGIN.right, H - 14));
   parts.push('</svg>');
   const assignedHits = hits.track ? Array.from(hits.track).filter((t) => t >= 0).length : n;
   const summary = `Event display: ${n} hits (${assignedHits} on tracks), ${tracks.length} track${tracks.length === 1 ? '' : 's'}` +
@@ -183,6 +191,10 @@ function axisTicks(ext: { xMin: number; xMax: number; yMin: number; yMax: number
   out.push(`<text x="${r2(px((ext.xMin + ext.xMax) / 2))}" y="${r2(bottom + 36)}" text-anchor="middle" fill="${PALETTE.ink}">x [mm]</text>`);
   out.push(`<text x="14" y="${r2(py((ext.yMin + ext.yMax) / 2))}" text-anchor="middle" fill="${PALETTE.ink}" transform="rotate(-90 14 ${r2(py((ext.yMin + ext.yMax) / 2))})">y [mm]</text>`);
   return out;
+}
+
+function trackLegend(right: number, y: number): string {
+  return `<g font-size="11" fill="${PALETTE.ink}"><text x="${right}" y="${y}" text-anchor="end">● a colour per track  ○ hit on no track</text></g>`;
 }
 
 function legend(right: number, y: number): string {

@@ -50,6 +50,15 @@ export function seriesStyle(i: number): SeriesStyle {
   });
 }
 
+/**
+ * Colours that tell neighbouring tracks apart in an event display coloured by track (our own
+ * set of twelve, dark enough on the paper colour; the list repeats past twelve tracks).
+ */
+export const TRACK_COLOURS: readonly string[] = Object.freeze([
+  '#c2571a', '#2f6f73', '#6d4a7e', '#b8902a', '#3d5a98', '#9c3d54',
+  '#4f7d3a', '#d0782f', '#1f8a8a', '#8a5a2b', '#7a6fb0', '#5b6b1f',
+]);
+
 /** Colour for a track of charge sign `q` (+1 copper, −1 teal, 0 or unknown ink). */
 export function chargeColour(q: number): string {
   return q > 0 ? PALETTE.copper : q < 0 ? PALETTE.teal : PALETTE.ink;

@@ -14,7 +14,7 @@ export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays.js';
 export {
   simulateChamber,
   type SimulationConfig, type SimulationResult, type MeasurementModel, type TransportSettings, type Source,
-  type BeamSource, type CosmicSource, type StoppingSource, type TruthTable, type HitTruth,
+  type BeamSource, type BurstSource, type CosmicSource, type StoppingSource, type TruthTable, type HitTruth,
 } from './simulate.js';
 export { SCENARIO_SCHEMA } from './scenarioSchema.js';
 export { readScenario, parseScenario, resolveScenario, SCENARIO_DEFAULTS } from './scenario.js';

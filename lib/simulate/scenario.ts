@@ -202,12 +202,15 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
       if (!insideChamber(box, o[0], o[1], o[2])) throw msg.badScenario(file, `${p}/origin: the point lies outside the chamber (${size.map((x) => `${x} m`).join(' × ')} centred on the origin)`);
       return o;
     };
+    const speciesOf = (v: unknown, path: string): { particle: Particle; weight: number }[] =>
+      typeof v === 'string'
+        ? [{ particle: at(`${path}/species`, () => particle(v)), weight: 1 }]
+        : Object.entries(v as Record<string, number>).map(([name, w]) => ({ particle: at(`${path}/species/${name}`, () => particle(name)), weight: w }));
     const type = s.type as string;
     if (type === 'beam' || type === 'neutral-decay') {
-      let species: { particle: Particle; weight: number }[];
-      if (type === 'neutral-decay') species = [{ particle: at(`${p}/parent`, () => particle(s.parent as string)), weight: 1 }];
-      else if (typeof s.species === 'string') species = [{ particle: at(`${p}/species`, () => particle(s.species as string)), weight: 1 }];
-      else species = Object.entries(s.species as Record<string, number>).map(([name, w]) => ({ particle: at(`${p}/species/${name}`, () => particle(name)), weight: w }));
+      const species = type === 'neutral-decay'
+        ? [{ particle: at(`${p}/parent`, () => particle(s.parent as string)), weight: 1 }]
+        : speciesOf(s.species, p);
       return {
         kind: 'beam',
         events: s.events as number,
@@ -219,6 +222,24 @@ export function resolveScenario(doc: unknown, file = '(scenario)'): SimulationCo
         spotSigmaM: s.spot !== undefined ? len(s.spot, `${p}/spot`) : SCENARIO_DEFAULTS.spotM,
         divergenceRad: s.divergence !== undefined ? angle(s.divergence, `${p}/divergence`) : SCENARIO_DEFAULTS.divergenceRad,
         process: type === 'neutral-decay' ? 'neutral-beam' : 'beam',
+      };
+    }
+    if (type === 'burst') {
+      const [mLo, mHi] = s.multiplicity as [number, number];
+      if (!(mHi >= mLo)) throw msg.badScenario(file, `${p}/multiplicity: need fewest ≤ most, got [${mLo}, ${mHi}]`);
+      const [ptLo, ptHi] = (s.ptRange as string[]).map((t, k) => at(`${p}/ptRange/${k}`, () => momentumGeV(t, { what: 'the transverse momentum range' })));
+      if (!(ptLo > 0 && ptHi >= ptLo)) throw msg.badScenario(file, `${p}/ptRange: need 0 < low ≤ high, got ${ptLo} and ${ptHi} GeV/c`);
+      const [tlLo, tlHi] = (s.tanLambdaRange as [number, number] | undefined) ?? [0, 0];
+      if (!(tlHi >= tlLo)) throw msg.badScenario(file, `${p}/tanLambdaRange: need low ≤ high, got [${tlLo}, ${tlHi}]`);
+      return {
+        kind: 'burst',
+        events: s.events as number,
+        multiplicity: [mLo, mHi],
+        species: speciesOf(s.species, p),
+        ptRangeGeV: [ptLo, ptHi],
+        tanLambdaRange: [tlLo, tlHi],
+        originM: origin(s.origin),
+        spotSigmaM: s.spot !== undefined ? len(s.spot, `${p}/spot`) : SCENARIO_DEFAULTS.spotM,
       };
     }
     if (type === 'cosmic') {

@@ -19,6 +19,14 @@ const beamLike = {
   divergence: { ...quantity, description: 'Gaussian σ of the projected direction, e.g. "3 mrad"' },
 };
 
+const speciesField = {
+  oneOf: [
+    { type: 'string' },
+    { type: 'object', minProperties: 1, additionalProperties: { type: 'number', exclusiveMinimum: 0 } },
+  ],
+  description: 'one species ("pi-") or weights ({"pi-": 0.7, "proton": 0.3})',
+};
+
 export const SCENARIO_SCHEMA = Object.freeze({
   $schema: 'http://json-schema.org/draft-07/schema#',
   $id: 'https://sagitta.invalid/schema/scenario-1.json',
@@ -87,7 +95,7 @@ export const SCENARIO_SCHEMA = Object.freeze({
       items: {
         type: 'object',
         required: ['type'],
-        properties: { type: { enum: ['beam', 'neutral-decay', 'cosmic', 'stopping'] } },
+        properties: { type: { enum: ['beam', 'neutral-decay', 'burst', 'cosmic', 'stopping'] } },
         allOf: [
           {
             if: { properties: { type: { const: 'beam' } } },
@@ -97,13 +105,7 @@ export const SCENARIO_SCHEMA = Object.freeze({
               properties: {
                 type: {},
                 ...beamLike,
-                species: {
-                  oneOf: [
-                    { type: 'string' },
-                    { type: 'object', minProperties: 1, additionalProperties: { type: 'number', exclusiveMinimum: 0 } },
-                  ],
-                  description: 'one species ("pi-") or weights ({"pi-": 0.7, "proton": 0.3})',
-                },
+                species: speciesField,
               },
             },
           },
@@ -113,6 +115,23 @@ export const SCENARIO_SCHEMA = Object.freeze({
               additionalProperties: false,
               required: ['type', 'events', 'parent', 'momentum', 'origin', 'direction'],
               properties: { type: {}, ...beamLike, parent: { enum: ['K0S', 'Lambda'] } },
+            },
+          },
+          {
+            if: { properties: { type: { const: 'burst' } } },
+            then: {
+              additionalProperties: false,
+              required: ['type', 'events', 'multiplicity', 'species', 'ptRange', 'origin'],
+              properties: {
+                type: {},
+                events,
+                multiplicity: { type: 'array', items: { type: 'integer', minimum: 1, maximum: 500 }, minItems: 2, maxItems: 2, description: 'particles per event [fewest, most], drawn uniformly' },
+                species: speciesField,
+                ptRange: { type: 'array', items: quantity, minItems: 2, maxItems: 2, description: 'transverse momentum (across z) range, drawn log-uniformly, e.g. ["0.1 GeV/c", "2 GeV/c"]' },
+                tanLambdaRange: { type: 'array', items: { type: 'number', minimum: -100, maximum: 100 }, minItems: 2, maxItems: 2, description: 'dip tan λ = p_z/p_T range, drawn uniformly; default [0, 0]' },
+                origin: beamLike.origin,
+                spot: { ...quantity, description: 'Gaussian σ of the common start point in x, y and z' },
+              },
             },
           },
           {

@@ -9,14 +9,15 @@ import { HitRecorder } from './hitRecorder.js';
 import { decayAtRest, flyNeutral, type Pending } from './secondaries.js';
 import { seededRandom, type SeededRandom } from './rng.js';
 import { beamEvent, type BeamSource } from './sources/beam.js';
+import { burstEvent, type BurstSource } from './sources/burst.js';
 import { cosmicEvent, type CosmicSource } from './sources/cosmic.js';
 import { stoppingEvent, type StoppingSource } from './sources/stopping.js';
 import { transportTrack } from './transport.js';
 import { TRANSPORT_DEFAULTS, type EnergyLossMode, type Sampling, type TransportOptions } from './transportOptions.js';
 import { twoBodyDecay } from './twoBodyDecay.js';
 
-export type { BeamSource, CosmicSource, StoppingSource };
-export type Source = BeamSource | CosmicSource | StoppingSource;
+export type { BeamSource, BurstSource, CosmicSource, StoppingSource };
+export type Source = BeamSource | BurstSource | CosmicSource | StoppingSource;
 
 /** How hits are measured: where they are taken, Gaussian smearing per coordinate, losses, noise. */
 export interface MeasurementModel {
@@ -60,7 +61,7 @@ export interface TruthTable {
   readonly parent: Float64Array;
   readonly species: readonly string[];
   readonly charge: Float64Array;
-  /** 'beam', 'cosmic', 'stopping', 'decay', 'decay-at-rest', 'delta'. */
+  /** 'beam', 'burst', 'cosmic', 'stopping', 'decay', 'decay-at-rest', 'delta'. */
   readonly process: readonly string[];
   readonly vx: Float64Array;
   readonly vy: Float64Array;
@@ -135,6 +136,7 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
     for (let e = 0; e < src.events; e++) {
       event++;
       const primaries = src.kind === 'beam' ? beamEvent(src, rng)
+        : src.kind === 'burst' ? burstEvent(src, rng)
         : src.kind === 'cosmic' ? cosmicEvent(src, chamber, rng)
         : stoppingEvent(src, chamber, rng);
       addNoise(hits, event, chamber, measurement, rng);
@@ -228,8 +230,8 @@ function expectedHitRows(config: SimulationConfig): number {
   const diagonal = Math.hypot(c.xMaxM - c.xMinM, c.yMaxM - c.yMinM, c.zMaxM - c.zMinM);
   const s = config.measurement.sampling;
   const perTrack = s.kind === 'spacing' ? Math.ceil(diagonal / s.spacingM) : s.positionsM.length;
-  const events = config.sources.reduce((sum, src) => sum + src.events, 0);
-  const rows = events * (perTrack + Math.ceil(config.measurement.noiseHitsPerEvent)) + 1024;
+  const events = config.sources.reduce((sum, src) => sum + src.events * (src.kind === 'burst' ? 0.5 * (src.multiplicity[0] + src.multiplicity[1]) : 1), 0);
+  const rows = Math.ceil(events) * (perTrack + Math.ceil(config.measurement.noiseHitsPerEvent)) + 1024;
   return Math.min(1 << 24, Math.max(1 << 12, rows));
 }
 

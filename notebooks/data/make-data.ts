@@ -8,7 +8,7 @@
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, simulateChamber } from 'sagitta';
+import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, seededRandom, simulateChamber, type SimulationResult } from 'sagitta';
 import { benchFiles } from './benchSeries.js';
 import { overlayEvents } from './overlay.js';
 
@@ -20,6 +20,7 @@ export const DEMO_SEEDS: Readonly<Record<string, number>> = Object.freeze({
   'brindlemoor-planes': 20260402,
   cinderfell: 20260403,
   larkspur: 20260404,
+  ashgrove: 20260416,
 });
 
 /**
@@ -30,6 +31,13 @@ export const DEMO_SEEDS: Readonly<Record<string, number>> = Object.freeze({
 export const DEMO_OVERLAYS: Readonly<Record<string, { readonly base: string; readonly extra: string; readonly perEvent: number }>> = Object.freeze({
   cinderfell: { base: 'cinderfell-decays', extra: 'cinderfell-prompt', perEvent: 2 },
 });
+
+/**
+ * Scenarios written as unlabelled hits for the track-finding notebook: no track column, each
+ * event's rows in a shuffled order (seed + 1), and the truth of every row in a labels file
+ * beside them (`true_track`, `true_order` = place along the true track, −1 for noise).
+ */
+const UNLABELLED: ReadonlySet<string> = new Set(['ashgrove']);
 
 export function makeDemoFiles(name: string): Record<string, string> {
   const overlay = DEMO_OVERLAYS[name];
@@ -50,11 +58,52 @@ export function makeDemoFiles(name: string): Record<string, string> {
     truth: `${name}-truth.csv`,
     scenario: `${name}.scenario.json`,
   };
+  if (UNLABELLED.has(name)) {
+    const { hits, labels } = unlabelled(result, DEMO_SEEDS[name] + 1);
+    return {
+      [files.hits]: hits,
+      [`${name}-labels.csv`]: labels,
+      [files.truth]: formatTruthCsv(result),
+      [`${name}.run.json`]: formatRunRecord(result, files),
+    };
+  }
   return {
     [files.hits]: formatHitsCsv(result),
     [files.truth]: formatTruthCsv(result),
     [`${name}.run.json`]: formatRunRecord(result, files),
   };
+}
+
+/** The simulator's hit rows without the track column, shuffled within each event, and their labels. */
+function unlabelled(result: SimulationResult, seed: number): { hits: string; labels: string } {
+  const lines = formatHitsCsv(result).split('\n');
+  const header = lines[0].split(',');
+  const trackAt = header.indexOf('track');
+  const rng = seededRandom(seed, 'make-data shuffle');
+  const h = result.hits;
+  const place = new Float64Array(h.length);
+  for (let i = 0, k = 0; i < h.length; i++) {
+    k = i > 0 && h.event[i] === h.event[i - 1] && h.track[i] === h.track[i - 1] ? k + 1 : 0;
+    place[i] = h.track[i] < 0 ? -1 : k;
+  }
+  const hitLines = [header.filter((_, j) => j !== trackAt).join(',')];
+  const labelLines = ['true_track,true_order'];
+  for (let a = 0; a < h.length;) {
+    let b = a;
+    while (b < h.length && h.event[b] === h.event[a]) b++;
+    const rows = Array.from({ length: b - a }, (_, j) => a + j);
+    // Fisher–Yates shuffle (Knuth, TAOCP vol. 2, §3.4.2) from the seeded stream.
+    for (let j = rows.length - 1; j > 0; j--) {
+      const r = Math.floor(rng.uniform() * (j + 1));
+      [rows[j], rows[r]] = [rows[r], rows[j]];
+    }
+    for (const i of rows) {
+      hitLines.push(lines[i + 1].split(',').filter((_, j) => j !== trackAt).join(','));
+      labelLines.push(`${h.track[i]},${place[i]}`);
+    }
+    a = b;
+  }
+  return { hits: hitLines.join('\n') + '\n', labels: labelLines.join('\n') + '\n' };
 }
 
 /** The JSON Schema of scenario files, kept beside them so that editors can check them. */

@@ -10,6 +10,7 @@ type Register = (program: Command) => void;
  * it here.
  */
 const COMMANDS: Readonly<Record<string, () => Promise<Register>>> = {
+  find: async () => (await import('./find.js')).registerFind,
   fit: async () => (await import('./fit.js')).registerFit,
   vertices: async () => (await import('./vertices.js')).registerVertices,
   merge: async () => (await import('./merge.js')).registerMerge,
