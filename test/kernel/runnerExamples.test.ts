@@ -30,8 +30,13 @@ describe.each(examples)('example notebook %s', (name) => {
     const errors = nb.cells.flatMap((c) => (c.cell_type === 'code' ? c.outputs.filter((o) => o.output_type === 'error') : []));
     expect(errors).toEqual([]);
     const page = readFileSync(html, 'utf8');
-    // Provenance: the data files the notebook read are listed with their SHA-256.
-    expect(page).toMatch(/brindlemoor-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td class="sg-hash">[0-9a-f]{64}/);
+    // Provenance: the data files the notebook read, relative to it, marked simulated (their run
+    // record says so) with its seed; the knobs with the values used; no absolute path.
+    expect(page).toMatch(/<td>data\/brindlemoor-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td><b class="sg-sim">simulated<\/b> \(brindlemoor\)<\/td><td class="sg-hash">[0-9a-f]{64}/);
+    expect(page).toContain('<b>Simulated data.</b>');
+    expect(page).toContain('<td class="sg-hash">20260401</td>');
+    expect(page).toContain('<td>field</td><td class="sg-hash">1.5 T <span class="sg-muted">(used in T)</span></td>');
+    expect(page).not.toContain(NOTEBOOKS);
     if (!chromiumAvailable()) return;
     const report = await openReport(html);
     try {
