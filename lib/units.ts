@@ -148,3 +148,23 @@ export function metresPerUnit(unit: string, where: SourceLocation = {}): number 
   if (!u.equalBase(math.unit('m'))) throw msg.unknownUnit(unit, 'a length', 'um, mm, cm, m', where);
   return u.toNumber('m');
 }
+
+/**
+ * A point in space [m] from text: three numbers and one length unit ("-55 0 0 cm", "0,0,0 m"),
+ * or three lengths each with its unit ("-55 cm 2 mm 0 m"). A bare number without a unit is
+ * refused (MISSING_UNIT), as everywhere else.
+ * @example pointMetres('-55 0 10 cm') // [-0.55, 0, 0.1]
+ */
+export function pointMetres(text: string, options: QuantityOptions = {}): [number, number, number] {
+  const what = options.what ?? 'a point';
+  const parts = String(text).trim().split(/[\s,;]+/).filter((p) => p !== '');
+  const number = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+  if (parts.length === 4 && parts.slice(0, 3).every((p) => number.test(p))) {
+    const f = metresPerUnit(parts[3]);
+    return [Number(parts[0]) * f, Number(parts[1]) * f, Number(parts[2]) * f];
+  }
+  if (parts.length === 6) return [0, 1, 2].map((k) => lengthMetres(`${parts[2 * k]} ${parts[2 * k + 1]}`, { ...options, what })) as [number, number, number];
+  if (parts.length === 3 && !parts.every((p) => number.test(p))) return parts.map((p) => lengthMetres(p, { ...options, what })) as [number, number, number];
+  if (parts.length === 3) throw msg.missingUnit(text, what, '-55 0 0 cm', options.where ?? {});
+  throw msg.badQuantity(text, what, '-55 0 0 cm', options.where ?? {});
+}

@@ -15,6 +15,7 @@ export const WARNING_CODES = Object.freeze({
   RANGE_TABLE_CLAMPED: 'a requested table range was narrowed to where the formula holds',
   APPROXIMATION: 'a result rests on an approximation beyond its stated accuracy',
   SIM_TRACK_LIMIT: 'the simulator dropped particles beyond its per-event limit',
+  SPARSE_BINS: 'a χ² fit to a histogram uses bins with fewer than 5 entries, where it is biased; a Poisson likelihood fit is not',
 } as const);
 
 export type SagittaWarningCode = keyof typeof WARNING_CODES;

@@ -6,6 +6,7 @@ import type { BatchJob } from './batchJob.js';
  */
 export const BATCH_JOBS: Readonly<Record<string, () => Promise<BatchJob<never>>>> = {
   fit: async () => (await import('./fitJob.js')).FIT_JOB as BatchJob<never>,
+  vertices: async () => (await import('./verticesJob.js')).VERTICES_JOB as BatchJob<never>,
 };
 
 export async function loadBatchJob(name: string): Promise<BatchJob<unknown>> {

@@ -4,6 +4,7 @@ export { parseHitsCsv, READ_HITS_DEFAULTS, type ReadHitsOptions } from './parseH
 export { parseHitsJsonl } from './parseHitsJsonl.js';
 export { readHits, HIT_FILE_FORMATS } from './readHits.js';
 export { indexTracks, gatherRows } from './indexTracks.js';
+export { readNumberColumns } from './readNumberColumns.js';
 export { hitsToDataFrame, loadDanfo } from './hitsToDataFrame.js';
 export { formatCsv, formatCsvBytes, rowObjects, columnTableToDataFrame, type Column, type ColumnTable } from './columnTable.js';
 export { writeFileAtomic } from './writeFileAtomic.js';

@@ -13,9 +13,33 @@ export interface PlotSpec {
   readonly layout: Readonly<Record<string, unknown>>;
 }
 
-/** The layout every Sagitta figure starts from (our own look; callers add titles and axes). */
+/** Height in pixels of the bottom margin with a one-row legend under the x-axis title. */
+const LEGEND_MARGIN = 96;
+
+/**
+ * The layout every Sagitta figure starts from (our own look; callers add traces and axes).
+ * The title sits in the top margin (container coordinates) and the legend in the bottom margin,
+ * under the x-axis title, so a legend of any length never covers the title or the data; a
+ * test checks both positions in the spec.
+ */
 export function baseLayout(title: string, xTitle: string, yTitle: string): Record<string, unknown> {
-  const axis = (text: string) => ({
+  return {
+    title: { text: title, x: 0, xanchor: 'left', xref: 'paper', y: 1, yanchor: 'top', yref: 'container', pad: { t: 14 }, font: { size: 16, color: PALETTE.ink } },
+    font: { family: 'Source Sans 3, Segoe UI, Helvetica, Arial, sans-serif', color: PALETTE.ink, size: 13 },
+    paper_bgcolor: PALETTE.paper,
+    plot_bgcolor: '#ffffff',
+    margin: { l: 64, r: 24, t: 56, b: LEGEND_MARGIN },
+    bargap: 0.04,
+    xaxis: axisStyle(xTitle),
+    yaxis: axisStyle(yTitle),
+    legend: { orientation: 'h', x: 0.01, xanchor: 'left', xref: 'container', y: 0.01, yanchor: 'bottom', yref: 'container', bgcolor: 'rgba(0,0,0,0)' },
+    height: 400,
+  };
+}
+
+/** The look of one axis (title, grid, ticks). */
+export function axisStyle(text: string): Record<string, unknown> {
+  return {
     title: { text },
     gridcolor: PALETTE.grid,
     zerolinecolor: PALETTE.grid,
@@ -23,18 +47,6 @@ export function baseLayout(title: string, xTitle: string, yTitle: string): Recor
     ticks: 'outside',
     tickcolor: PALETTE.muted,
     mirror: true,
-  });
-  return {
-    title: { text: title, x: 0, xanchor: 'left', font: { size: 16, color: PALETTE.ink } },
-    font: { family: 'Source Sans 3, Segoe UI, Helvetica, Arial, sans-serif', color: PALETTE.ink, size: 13 },
-    paper_bgcolor: PALETTE.paper,
-    plot_bgcolor: '#ffffff',
-    margin: { l: 64, r: 24, t: 56, b: 56 },
-    bargap: 0.04,
-    xaxis: axis(xTitle),
-    yaxis: axis(yTitle),
-    legend: { orientation: 'h', x: 1, xanchor: 'right', y: 1.02, yanchor: 'bottom' },
-    height: 380,
   };
 }
 

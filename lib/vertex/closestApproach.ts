@@ -14,7 +14,7 @@ export interface ClosestApproach {
 export const CLOSEST_APPROACH_DEFAULTS = Object.freeze({
   maxIterations: 30,
   /** Stop when both arc-length steps are below this [m]. */
-  toleranceM: 1e-10,
+  toleranceM: 1e-9,
 });
 
 /** Scratch of `closestApproach`: nothing is allocated per call. */
@@ -37,11 +37,6 @@ export function newClosestApproachScratch(): ClosestApproachScratch {
 export function circleCrossings(a: HelixParameters, b: HelixParameters, out: Float64Array): number {
   const lineA = Math.abs(a.kappa) < 1e-12, lineB = Math.abs(b.kappa) < 1e-12;
   let n = 0;
-  const push = (x: number, y: number) => {
-    out[2 * n] = arcLengthNear(a, x, y);
-    out[2 * n + 1] = arcLengthNear(b, x, y);
-    n++;
-  };
   if (lineA || lineB) {
     const [l, c] = lineA ? [a, b] : [b, a];
     const ux = Math.cos(l.phi0), uy = Math.sin(l.phi0);
@@ -51,7 +46,7 @@ export function circleCrossings(a: HelixParameters, b: HelixParameters, out: Flo
       if (Math.abs(den) < 1e-15) return 0;
       const qx = c.xRef + c.d0 * Math.sin(c.phi0), qy = c.yRef - c.d0 * Math.cos(c.phi0);
       const t = ((qx - px) * Math.sin(c.phi0) - (qy - py) * Math.cos(c.phi0)) / den;
-      push(px + t * ux, py + t * uy);
+      n = pushStart(a, b, out, n, px + t * ux, py + t * uy);
       return n;
     }
     const [cx, cy] = helixCentre(c);
@@ -59,13 +54,15 @@ export function circleCrossings(a: HelixParameters, b: HelixParameters, out: Flo
     const t0 = (cx - px) * ux + (cy - py) * uy;
     const fx = px + t0 * ux - cx, fy = py + t0 * uy - cy;
     const d2 = fx * fx + fy * fy;
-    if (d2 >= r * r) { push(px + t0 * ux, py + t0 * uy); return n; }
+    if (d2 >= r * r) { n = pushStart(a, b, out, n, px + t0 * ux, py + t0 * uy); return n; }
     const h = Math.sqrt(r * r - d2);
-    push(px + (t0 - h) * ux, py + (t0 - h) * uy);
-    push(px + (t0 + h) * ux, py + (t0 + h) * uy);
+    n = pushStart(a, b, out, n, px + (t0 - h) * ux, py + (t0 - h) * uy);
+    n = pushStart(a, b, out, n, px + (t0 + h) * ux, py + (t0 + h) * uy);
     return n;
   }
-  const [x1, y1] = helixCentre(a), [x2, y2] = helixCentre(b);
+  const arm1 = 1 / a.kappa - a.d0, arm2 = 1 / b.kappa - b.d0;
+  const x1 = a.xRef - arm1 * Math.sin(a.phi0), y1 = a.yRef + arm1 * Math.cos(a.phi0);
+  const x2 = b.xRef - arm2 * Math.sin(b.phi0), y2 = b.yRef + arm2 * Math.cos(b.phi0);
   const r1 = 1 / Math.abs(a.kappa), r2 = 1 / Math.abs(b.kappa);
   const dx = x2 - x1, dy = y2 - y1;
   const d = Math.hypot(dx, dy);
@@ -77,16 +74,32 @@ export function circleCrossings(a: HelixParameters, b: HelixParameters, out: Flo
     const sb = d >= r1 + r2 ? -1 : r1 > r2 ? 1 : -1;
     const ax = x1 + sa * r1 * ex, ay = y1 + sa * r1 * ey;
     const bx = x2 + sb * r2 * ex, by = y2 + sb * r2 * ey;
-    out[0] = arcLengthNear(a, ax, ay);
-    out[1] = arcLengthNear(b, bx, by);
+    out[0] = arcOnCircle(a, x1, y1, ax, ay);
+    out[1] = arcOnCircle(b, x2, y2, bx, by);
     return 1;
   }
   const along = (d * d + r1 * r1 - r2 * r2) / (2 * d);
   const h = Math.sqrt(Math.max(0, r1 * r1 - along * along));
   const mx = x1 + along * ex, my = y1 + along * ey;
-  push(mx - h * ey, my + h * ex);
-  push(mx + h * ey, my - h * ex);
-  return n;
+  out[0] = arcOnCircle(a, x1, y1, mx - h * ey, my + h * ex);
+  out[1] = arcOnCircle(b, x2, y2, mx - h * ey, my + h * ex);
+  out[2] = arcOnCircle(a, x1, y1, mx + h * ey, my - h * ex);
+  out[3] = arcOnCircle(b, x2, y2, mx + h * ey, my - h * ex);
+  return 2;
+}
+
+/** Arc length of the point (x, y) of the circle of `h` with centre (cx, cy), on the branch |κs| ≤ π (as arcLengthNear). */
+function arcOnCircle(h: HelixParameters, cx: number, cy: number, x: number, y: number): number {
+  let d = Math.atan2(h.kappa * (x - cx), -h.kappa * (y - cy)) - h.phi0;
+  d -= 2 * Math.PI * Math.round(d / (2 * Math.PI));
+  return d / h.kappa;
+}
+
+/** Stores the arc lengths of the point (x, y) on both circles as start n; returns n + 1. */
+function pushStart(a: HelixParameters, b: HelixParameters, out: Float64Array, n: number, x: number, y: number): number {
+  out[2 * n] = arcLengthNear(a, x, y);
+  out[2 * n + 1] = arcLengthNear(b, x, y);
+  return n + 1;
 }
 
 /**
@@ -159,7 +172,7 @@ export function closestApproach(
   let bestStatus: ClosestApproach['status'] = 'no-start';
   const s0 = scratch.starts[0], s1 = scratch.starts[1], s2 = scratch.starts[2], s3 = scratch.starts[3];
   for (let i = 0; i < n; i++) {
-    const [u, v] = i === 0 ? [s0, s1] : [s2, s3];
+    const u = i === 0 ? s0 : s2, v = i === 0 ? s1 : s3;
     if (options.prefer && !options.prefer(u, v)) continue;
     refineClosestApproach(a, b, u, v, out, scratch);
     if (options.prefer && !options.prefer(out.s1, out.s2)) continue;

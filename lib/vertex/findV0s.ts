@@ -3,8 +3,8 @@ import { msg } from '../errors.js';
 import type { Medium } from '../matter/medium.js';
 import { ANTIPROTON, ELECTRON, KAON_SHORT, LAMBDA, PION_MINUS, PION_PLUS, POSITRON, PROTON, type Particle } from '../particles.js';
 import { armenteros } from './armenteros.js';
-import { closestApproach, newClosestApproachScratch, type ClosestApproach } from './closestApproach.js';
-import { newHelixParameters } from './helixParameters.js';
+import { circleCrossings, newClosestApproachScratch, refineClosestApproach, type ClosestApproach, type ClosestApproachScratch } from './closestApproach.js';
+import { helixPoint, newHelixParameters, type HelixParameters } from './helixParameters.js';
 import { newTrackState, trackStateAt, type TrackState } from './trackState.js';
 import { newV0MassScratch, v0Masses } from './v0Masses.js';
 import { fitTwoTrackVertex, newTwoTrackVertex, newVertexScratch } from './twoTrackVertex.js';
@@ -84,7 +84,7 @@ export function findV0s(tracks: VertexTracks, options: V0FinderOptions = {}): V0
     rad[k] = 1 / Math.abs(tracks.kappa[k]);
   }
   const order = eventOrder(tracks.event);
-  const hPos = newHelixParameters(), hNeg = newHelixParameters();
+  const pool: HelixParameters[] = [];
   const scratch = newClosestApproachScratch();
   const ca: ClosestApproach = { s1: NaN, s2: NaN, distanceM: NaN, status: 'no-start' };
   const vertex = newTwoTrackVertex(), vScratch = newVertexScratch();
@@ -94,14 +94,13 @@ export function findV0s(tracks: VertexTracks, options: V0FinderOptions = {}): V0
   const out = new V0CandidateBuilder();
   const rejected = { circles: 0, closestApproach: 0, flight: 0, pointing: 0, chi2: 0 };
   let pairsTried = 0;
-  const maxDown = cut.maxDownstreamM;
-  const upstream = (s1: number, s2: number) => s1 <= maxDown && s2 <= maxDown;
-  const upstreamStart = (s1: number, s2: number) => s1 <= 3 * maxDown + cut.maxDcaM && s2 <= 3 * maxDown + cut.maxDcaM;
   const cosMax = Math.cos(cut.maxPointingRad);
 
   for (let a = 0; a < order.length;) {
     let b = a;
     while (b < order.length && tracks.event[order[b]] === tracks.event[order[a]]) b++;
+    while (pool.length < b - a) pool.push(newHelixParameters());
+    for (let i = a; i < b; i++) if (tracks.usable[order[i]]) loadHelix(tracks, order[i], pool[i - a]);
     for (let i = a; i < b; i++) {
       const ki = order[i];
       if (!tracks.usable[ki]) continue;
@@ -109,19 +108,21 @@ export function findV0s(tracks: VertexTracks, options: V0FinderOptions = {}): V0
         const kj = order[j];
         if (!tracks.usable[kj] || tracks.charge[ki] * tracks.charge[kj] >= 0) continue;
         pairsTried++;
-        const [kp, kn] = tracks.charge[ki] > 0 ? [ki, kj] : [kj, ki];
+        const iPos = tracks.charge[ki] > 0;
+        const kp = iPos ? ki : kj, kn = iPos ? kj : ki;
         const d = Math.hypot(xc[kp] - xc[kn], yc[kp] - yc[kn]);
         if (d > rad[kp] + rad[kn] + cut.maxDcaM || d < Math.abs(rad[kp] - rad[kn]) - cut.maxDcaM) { rejected.circles++; continue; }
-        loadHelix(tracks, kp, hPos);
-        loadHelix(tracks, kn, hNeg);
-        closestApproach(hPos, hNeg, { prefer: upstreamStart, out: ca, scratch });
-        if (!(ca.distanceM <= cut.maxDcaM) || !upstream(ca.s1, ca.s2)) { rejected.closestApproach++; continue; }
+        const hPos = pool[(iPos ? i : j) - a], hNeg = pool[(iPos ? j : i) - a];
+        const found = pairApproach(hPos, hNeg, primary, cut, ca, scratch);
+        if (found === 'flight') { rejected.flight++; continue; }
+        if (found === 'pointing') { rejected.pointing++; continue; }
+        if (found === 'none') { rejected.closestApproach++; continue; }
         // Flight and pointing from the midpoint and the helix directions (no loss correction yet).
         const p1 = scratch.p1, p2 = scratch.p2;
         const mx = 0.5 * (p1[0] + p2[0]) - primary[0], my = 0.5 * (p1[1] + p2[1]) - primary[1], mz = 0.5 * (p1[2] + p2[2]) - primary[2];
         const flight = Math.hypot(mx, my, mz);
         if (!(flight >= cut.minFlightM)) { rejected.flight++; continue; }
-        const px = sumDirection(hPos, ca.s1, hNeg, ca.s2, fieldT);
+        const px = sumDirection(hPos, ca.s1, hNeg, ca.s2);
         if (!(cosine(mx, my, mz, px[0], px[1], px[2]) >= cosMax)) { rejected.pointing++; continue; }
         fitTwoTrackVertex(hPos, hNeg, ca.s1, ca.s2, vertex, vScratch);
         if (vertex.status === 'ok' && !(vertex.chi2 <= cut.maxChi2)) { rejected.chi2++; continue; }
@@ -169,6 +170,64 @@ export function findV0s(tracks: VertexTracks, options: V0FinderOptions = {}): V0
   return { candidates: out.finish(), pairsTried, rejected };
 }
 
+/**
+ * The pair's closest approach for the finder, from the crossings of the circles. A crossing
+ * where the helices also meet in z (|Δz| below the DCA cut, so the 3-D closest approach lies
+ * within about that of it) is judged at once: nearer the primary than the flight cut less twice
+ * the DCA cut, or pointing away by more than the pointing cut plus the angle twice the DCA cut
+ * subtends, it cannot pass, and it is not refined (most pairs of tracks from the primary vertex
+ * go this way). Starts downstream of a first hit, and starts whose straight-line estimate of
+ * the distance exceeds twice the cut (with the estimate valid), are not refined either.
+ * Returns 'ok' with the best approach in `ca` and its two points in `scratch.p1`, `scratch.p2`;
+ * otherwise the cut that removed every start ('flight', 'pointing', or 'none' for the
+ * closest-approach cut).
+ */
+function pairApproach(
+  a: HelixParameters, b: HelixParameters, primary: readonly number[],
+  cut: { readonly maxDcaM: number; readonly minFlightM: number; readonly maxDownstreamM: number; readonly maxPointingRad: number },
+  ca: ClosestApproach, scratch: ClosestApproachScratch,
+): 'flight' | 'pointing' | 'none' | 'ok' {
+  const starts = scratch.starts, p = scratch.p1;
+  const n = circleCrossings(a, b, starts);
+  const { maxDcaM, minFlightM, maxDownstreamM, maxPointingRad } = cut;
+  const startLimit = 3 * maxDownstreamM + maxDcaM;
+  const s0 = starts[0], s1 = starts[1], s2 = starts[2], s3 = starts[3];
+  let best1 = NaN, best2 = NaN, bestD = Infinity;
+  let flightFails = 0, pointingFails = 0;
+  for (let i = 0; i < n; i++) {
+    const u = i === 0 ? s0 : s2, v = i === 0 ? s1 : s3;
+    if (u > startLimit || v > startLimit) continue;
+    const z1 = a.z0 + a.tanLambda * u, z2 = b.z0 + b.tanLambda * v;
+    const dz = Math.abs(z1 - z2);
+    const f1 = a.phi0 + a.kappa * u, f2 = b.phi0 + b.kappa * v;
+    const c1 = Math.cos(f1), n1 = Math.sin(f1), c2 = Math.cos(f2), n2 = Math.sin(f2);
+    if (dz <= maxDcaM) {
+      helixPoint(a, u, p);
+      const fx = p[0] - primary[0], fy = p[1] - primary[1], fz = 0.5 * (z1 + z2) - primary[2];
+      const flight = Math.hypot(fx, fy, fz);
+      if (flight < minFlightM - 2 * maxDcaM) { flightFails++; continue; }
+      const w1 = 1 / Math.abs(a.kappa), w2 = 1 / Math.abs(b.kappa);
+      const cos = cosine(fx, fy, fz, w1 * c1 + w2 * c2, w1 * n1 + w2 * n2, w1 * a.tanLambda + w2 * b.tanLambda);
+      if (flight > 4 * maxDcaM && cos < Math.cos(Math.min(Math.PI, maxPointingRad + (4 * maxDcaM) / flight))) { pointingFails++; continue; }
+    } else {
+      // Straight-line estimate at the crossing: two lines meeting in x–y with a z offset δ are
+      // |δ (t₁ × t₂)_z| / |t₁ × t₂| apart, reached after a shift of about δ / |t₁ × t₂| along them.
+      const cx = n1 * b.tanLambda - a.tanLambda * n2, cy = a.tanLambda * c2 - c1 * b.tanLambda, cz = c1 * n2 - n1 * c2;
+      const cross = Math.hypot(cx, cy, cz);
+      if (cross > 0 && (dz * Math.abs(cz)) / cross > 2 * maxDcaM && (dz / cross) * Math.max(Math.abs(a.kappa), Math.abs(b.kappa)) < 0.1) continue;
+    }
+    refineClosestApproach(a, b, u, v, ca, scratch);
+    if (ca.s1 <= maxDownstreamM && ca.s2 <= maxDownstreamM && ca.distanceM <= maxDcaM && ca.distanceM < bestD) {
+      bestD = ca.distanceM; best1 = ca.s1; best2 = ca.s2;
+    }
+  }
+  if (bestD === Infinity) return flightFails > 0 ? 'flight' : pointingFails > 0 ? 'pointing' : 'none';
+  ca.s1 = best1; ca.s2 = best2; ca.distanceM = bestD; ca.status = 'ok';
+  helixPoint(a, best1, scratch.p1);
+  helixPoint(b, best2, scratch.p2);
+  return 'ok';
+}
+
 /** Rows in event order (stable), so that each event's tracks are one run. */
 function eventOrder(event: Float64Array): Int32Array {
   const order = Int32Array.from({ length: event.length }, (_, i) => i);
@@ -179,8 +238,7 @@ function eventOrder(event: Float64Array): Int32Array {
 }
 
 /** Summed momentum direction (unnormalised, p_T-weighted) of the two helices at their arc lengths. */
-function sumDirection(a: ReturnType<typeof newHelixParameters>, s1: number, b: ReturnType<typeof newHelixParameters>, s2: number, fieldT: number): [number, number, number] {
-  void fieldT;
+function sumDirection(a: HelixParameters, s1: number, b: HelixParameters, s2: number): [number, number, number] {
   const w1 = 1 / Math.abs(a.kappa), w2 = 1 / Math.abs(b.kappa);
   const f1 = a.phi0 + a.kappa * s1, f2 = b.phi0 + b.kappa * s2;
   return [w1 * Math.cos(f1) + w2 * Math.cos(f2), w1 * Math.sin(f1) + w2 * Math.sin(f2), w1 * a.tanLambda + w2 * b.tanLambda];

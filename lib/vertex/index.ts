@@ -12,4 +12,7 @@ export { trackStateAt, energyLossFactor, newTrackState, type TrackState, type Tr
 export { v0Masses, newV0MassScratch, type V0MassContext, type DaughterHypotheses } from './v0Masses.js';
 export { findV0s, V0_FINDER_DEFAULTS, type V0FinderOptions, type V0FinderResult } from './findV0s.js';
 export type { V0Candidates } from './v0Candidates.js';
+export { v0CandidateColumns } from './v0CandidateColumns.js';
+export { fitLifetime, decayWindowInBox, type LifetimeFit } from './fitLifetime.js';
+export { fitMassPeak, type MassPeakFit } from './fitMassPeak.js';
 export { findKinks, KINK_FINDER_DEFAULTS, type KinkFinderOptions, type KinkFinderResult, type KinkCandidates } from './findKinks.js';

@@ -30,10 +30,12 @@ export interface VertexScratch {
   readonly w2: Float64Array;
   readonly p1: Float64Array;
   readonly p2: Float64Array;
+  readonly c3: Float64Array;
 }
 
 export function newVertexScratch(): VertexScratch {
   return {
+    c3: new Float64Array(9),
     jac: new Float64Array(15), point: new Float64Array(3), weight: new Float64Array(9), sumW: new Float64Array(9),
     sumWP: new Float64Array(3), w1: new Float64Array(9), w2: new Float64Array(9), p1: new Float64Array(3), p2: new Float64Array(3),
   };
@@ -45,12 +47,12 @@ export function newVertexScratch(): VertexScratch {
  * track freely, so only the two transverse directions carry information). Writes W into
  * `out` and the point into `point`.
  */
-function trackWeight(h: HelixParameters, s: number, out: Float64Array, point: Float64Array, jac: Float64Array): boolean {
+function trackWeight(h: HelixParameters, s: number, out: Float64Array, point: Float64Array, jac: Float64Array, scratchC3: Float64Array): boolean {
   helixPoint(h, s, point);
   helixPointJacobian(h, s, jac);
   const c = h.cov;
   // C3 = J C Jᵀ (3×3).
-  const c3 = [0, 0, 0, 0, 0, 0, 0, 0, 0];
+  const c3 = scratchC3;
   for (let r = 0; r < 3; r++) for (let q = r; q < 3; q++) {
     let v = 0;
     for (let i = 0; i < 5; i++) {
@@ -66,17 +68,21 @@ function trackWeight(h: HelixParameters, s: number, out: Float64Array, point: Fl
   const tx = Math.cos(phi) / norm, ty = Math.sin(phi) / norm, tz = h.tanLambda / norm;
   const ux = -Math.sin(phi), uy = Math.cos(phi), uz = 0;
   const vx = ty * uz - tz * uy, vy = tz * ux - tx * uz, vz = tx * uy - ty * ux;
-  const q = (ax: number, ay: number, az: number, bx: number, by: number, bz: number) =>
-    ax * (c3[0] * bx + c3[1] * by + c3[2] * bz) + ay * (c3[3] * bx + c3[4] * by + c3[5] * bz) + az * (c3[6] * bx + c3[7] * by + c3[8] * bz);
-  const cuu = q(ux, uy, uz, ux, uy, uz), cuv = q(ux, uy, uz, vx, vy, vz), cvv = q(vx, vy, vz, vx, vy, vz);
+  const cuu = quadratic(c3, ux, uy, uz, ux, uy, uz), cuv = quadratic(c3, ux, uy, uz, vx, vy, vz), cvv = quadratic(c3, vx, vy, vz, vx, vy, vz);
   const det = cuu * cvv - cuv * cuv;
   if (!(det > 0)) return false;
   const wuu = cvv / det, wuv = -cuv / det, wvv = cuu / det;
-  const U = [ux, uy, uz], V = [vx, vy, vz];
   for (let r = 0; r < 3; r++) for (let k = 0; k < 3; k++) {
-    out[3 * r + k] = U[r] * wuu * U[k] + U[r] * wuv * V[k] + V[r] * wuv * U[k] + V[r] * wvv * V[k];
+    const ur = r === 0 ? ux : r === 1 ? uy : uz, vr = r === 0 ? vx : r === 1 ? vy : vz;
+    const uk = k === 0 ? ux : k === 1 ? uy : uz, vk = k === 0 ? vx : k === 1 ? vy : vz;
+    out[3 * r + k] = ur * wuu * uk + ur * wuv * vk + vr * wuv * uk + vr * wvv * vk;
   }
   return true;
+}
+
+/** aᵀ C b for a row-major 3×3 C. */
+function quadratic(c: ArrayLike<number>, ax: number, ay: number, az: number, bx: number, by: number, bz: number): number {
+  return ax * (c[0] * bx + c[1] * by + c[2] * bz) + ay * (c[3] * bx + c[4] * by + c[5] * bz) + az * (c[6] * bx + c[7] * by + c[8] * bz);
 }
 
 /** Arc length on `h` of the point nearest `(x, y, z)`, by Newton from `s`. */
@@ -91,7 +97,7 @@ export function nearestArcLength(h: HelixParameters, xM: number, yM: number, zM:
     const hh = tx * tx + ty * ty + tz * tz + h.kappa * (-dx * ty + dy * tx);
     const step = Math.max(-maxStep, Math.min(maxStep, -g / (hh > 0.1 ? hh : 1)));
     s += step;
-    if (Math.abs(step) < 1e-11) break;
+    if (Math.abs(step) < 1e-9) break;
   }
   return s;
 }
@@ -111,7 +117,7 @@ function invert3(m: Float64Array, out: Float64Array): boolean {
  * Fits the common vertex of two tracks from their closest approach (s1, s2): each track is
  * linearised at its point nearest the vertex, with the weight of its position covariance across
  * the track (`trackWeight`), and the vertex V minimises χ² = Σᵢ (V − Pᵢ)ᵀ Wᵢ (V − Pᵢ); then the
- * points are moved to the tracks' nearest points to V and the fit repeated (three passes; the
+ * points are moved to the tracks' nearest points to V and the fit repeated once (two passes; the
  * linearised "perigee" vertex fit of common practice, e.g. Billoir & Qian, NIM A311 (1992)
  * 139). cov(V) = (ΣWᵢ)⁻¹, ndf = 2·2 − 3 = 1. The track covariances are the fit's: multiple
  * scattering between the vertex and the first hit is not in them.
@@ -123,8 +129,8 @@ export function fitTwoTrackVertex(
 ): TwoTrackVertex {
   const { jac, sumW, sumWP, w1, w2, p1, p2 } = scratch;
   out.status = 'singular';
-  for (let pass = 0; pass < 3; pass++) {
-    if (!trackWeight(a, s1, w1, p1, jac) || !trackWeight(b, s2, w2, p2, jac)) return fail(out);
+  for (let pass = 0; pass < 2; pass++) {
+    if (!trackWeight(a, s1, w1, p1, jac, scratch.c3) || !trackWeight(b, s2, w2, p2, jac, scratch.c3)) return fail(out);
     for (let i = 0; i < 9; i++) sumW[i] = w1[i] + w2[i];
     for (let r = 0; r < 3; r++) {
       sumWP[r] = w1[3 * r] * p1[0] + w1[3 * r + 1] * p1[1] + w1[3 * r + 2] * p1[2]
@@ -136,17 +142,13 @@ export function fitTwoTrackVertex(
     out.yM = inv[3] * sumWP[0] + inv[4] * sumWP[1] + inv[5] * sumWP[2];
     out.zM = inv[6] * sumWP[0] + inv[7] * sumWP[1] + inv[8] * sumWP[2];
     out.cov[0] = inv[0]; out.cov[1] = inv[1]; out.cov[2] = inv[2]; out.cov[3] = inv[4]; out.cov[4] = inv[5]; out.cov[5] = inv[8];
-    if (pass < 2) {
+    if (pass < 1) {
       s1 = nearestArcLength(a, out.xM, out.yM, out.zM, s1, scratch.point);
       s2 = nearestArcLength(b, out.xM, out.yM, out.zM, s2, scratch.point);
     }
   }
-  let chi2 = 0;
-  for (const [w, p] of [[w1, p1], [w2, p2]] as const) {
-    const dx = out.xM - p[0], dy = out.yM - p[1], dz = out.zM - p[2];
-    chi2 += dx * (w[0] * dx + w[1] * dy + w[2] * dz) + dy * (w[3] * dx + w[4] * dy + w[5] * dz) + dz * (w[6] * dx + w[7] * dy + w[8] * dz);
-  }
-  out.chi2 = chi2;
+  out.chi2 = quadratic(w1, out.xM - p1[0], out.yM - p1[1], out.zM - p1[2], out.xM - p1[0], out.yM - p1[1], out.zM - p1[2])
+    + quadratic(w2, out.xM - p2[0], out.yM - p2[1], out.zM - p2[2], out.xM - p2[0], out.yM - p2[1], out.zM - p2[2]);
   out.s1 = s1;
   out.s2 = s2;
   out.status = 'ok';

@@ -3,6 +3,7 @@ import type { Particle } from '../particles.js';
 import { refineClosestApproach, type ClosestApproach, type ClosestApproachScratch } from './closestApproach.js';
 import type { HelixParameters } from './helixParameters.js';
 import { newTrackState, trackStateAt, type TrackState } from './trackState.js';
+import { transverseMomentumMeV } from './vertexTracks.js';
 
 /** The daughter mass hypotheses of a V⁰, positive first. */
 export type DaughterHypotheses = readonly (readonly [Particle, Particle])[];
@@ -18,39 +19,43 @@ export interface V0MassContext {
 
 /** Scratch for `v0Masses`: allocated once per finder run. */
 export interface V0MassScratch {
-  readonly states: readonly [TrackState, TrackState];
+  readonly state: TrackState;
   readonly plus: Float64Array;
   readonly minus: Float64Array;
   readonly grad: Float64Array;
+  /** Energy-loss factor of the positive and negative daughter under each hypothesis. */
+  readonly lossPos: Float64Array;
+  readonly lossNeg: Float64Array;
   readonly ca: ClosestApproach;
   readonly caScratch: ClosestApproachScratch;
 }
 
 export function newV0MassScratch(hypotheses: number, caScratch: ClosestApproachScratch): V0MassScratch {
   return {
-    states: [newTrackState(), newTrackState()], plus: new Float64Array(hypotheses), minus: new Float64Array(hypotheses),
-    grad: new Float64Array(10 * hypotheses), ca: { s1: NaN, s2: NaN, distanceM: NaN, status: 'ok' }, caScratch,
+    state: newTrackState(), plus: new Float64Array(hypotheses), minus: new Float64Array(hypotheses), grad: new Float64Array(10 * hypotheses),
+    lossPos: new Float64Array(hypotheses), lossNeg: new Float64Array(hypotheses), ca: { s1: NaN, s2: NaN, distanceM: NaN, status: 'ok' }, caScratch,
   };
 }
 
 const FIELDS = ['kappa', 'phi0', 'd0', 'z0', 'tanLambda'] as const;
 
 /**
- * Masses [MeV] of the pair under each hypothesis with both daughters taken at their closest
- * approach (s₁, s₂); returns false if a daughter ranges out.
+ * Masses [MeV] of the pair under each hypothesis with the daughters taken at arc lengths
+ * (s₁, s₂) and their momenta scaled by the given energy-loss factors.
  */
-function massesAt(hp: HelixParameters, hn: HelixParameters, s1: number, s2: number, ctx: V0MassContext, states: readonly [TrackState, TrackState], out: Float64Array): boolean {
-  let ok = true;
-  ctx.hypotheses.forEach(([sp, sn], k) => {
-    const a = trackStateAt(hp, s1, { fieldT: ctx.fieldT, species: sp, medium: ctx.medium, momentumArcM: ctx.momentumArcPosM }, states[0]);
-    const b = trackStateAt(hn, s2, { fieldT: ctx.fieldT, species: sn, medium: ctx.medium, momentumArcM: ctx.momentumArcNegM }, states[1]);
-    ok = ok && a.status === 'ok' && b.status === 'ok';
-    const ea = Math.sqrt(a.pMeV[0] ** 2 + a.pMeV[1] ** 2 + a.pMeV[2] ** 2 + sp.massMeV ** 2);
-    const eb = Math.sqrt(b.pMeV[0] ** 2 + b.pMeV[1] ** 2 + b.pMeV[2] ** 2 + sn.massMeV ** 2);
-    const x = a.pMeV[0] + b.pMeV[0], y = a.pMeV[1] + b.pMeV[1], z = a.pMeV[2] + b.pMeV[2], e = ea + eb;
+function massesAt(hp: HelixParameters, hn: HelixParameters, s1: number, s2: number, ctx: V0MassContext, lossPos: Float64Array, lossNeg: Float64Array, out: Float64Array): void {
+  const ptp = transverseMomentumMeV(hp.kappa, ctx.fieldT), ptn = transverseMomentumMeV(hn.kappa, ctx.fieldT);
+  const fp = hp.phi0 + hp.kappa * s1, fn = hn.phi0 + hn.kappa * s2;
+  const cp = Math.cos(fp), sp = Math.sin(fp), cn = Math.cos(fn), sn = Math.sin(fn);
+  for (let k = 0; k < ctx.hypotheses.length; k++) {
+    const [a, b] = ctx.hypotheses[k];
+    const pp = ptp * lossPos[k], pn = ptn * lossNeg[k];
+    const ax = pp * cp, ay = pp * sp, az = pp * hp.tanLambda;
+    const bx = pn * cn, by = pn * sn, bz = pn * hn.tanLambda;
+    const e = Math.sqrt(ax * ax + ay * ay + az * az + a.massMeV * a.massMeV) + Math.sqrt(bx * bx + by * by + bz * bz + b.massMeV * b.massMeV);
+    const x = ax + bx, y = ay + by, z = az + bz;
     out[k] = Math.sqrt(Math.max(0, e * e - x * x - y * y - z * z));
-  });
-  return ok;
+  }
 }
 
 /**
@@ -58,8 +63,11 @@ function massesAt(hp: HelixParameters, hn: HelixParameters, s1: number, s2: numb
  * first-order propagation of both tracks' 5×5 helix covariances: the mass depends on each
  * track's parameters directly (momentum, direction) and through the closest-approach point
  * (where along each helix the momentum is taken), so the gradient is taken numerically, each
- * parameter moved by ±1 % of its error with the closest approach solved again; then
- * σ_m² = g₊ᵀ C₊ g₊ + g₋ᵀ C₋ g₋ (tracks independent).
+ * parameter moved by ±1 % of its error with the closest approach solved again (one Newton step
+ * from the unperturbed solution, exact to second order in the step); then
+ * σ_m² = g₊ᵀ C₊ g₊ + g₋ᵀ C₋ g₋ (tracks independent). The energy-loss factor of each daughter
+ * (`trackStateAt`) is evaluated once at the vertex and held fixed in the gradient (its own
+ * variation is a relative 10⁻³ of the momentum's for centimetres of liquid hydrogen).
  * Writes masses and errors; returns 'ok' or 'ranged-out'.
  */
 export function v0Masses(
@@ -67,8 +75,16 @@ export function v0Masses(
   massMeV: Float64Array, sigmaMeV: Float64Array, scratch: V0MassScratch,
 ): 'ok' | 'ranged-out' {
   const nh = ctx.hypotheses.length;
-  const ok = massesAt(hp, hn, s1, s2, ctx, scratch.states, massMeV);
-  const { plus, minus, grad, ca, caScratch } = scratch;
+  const { plus, minus, grad, ca, caScratch, lossPos, lossNeg, state } = scratch;
+  let ok = true;
+  for (let k = 0; k < nh; k++) {
+    const [a, b] = ctx.hypotheses[k];
+    lossPos[k] = trackStateAt(hp, s1, { fieldT: ctx.fieldT, species: a, medium: ctx.medium, momentumArcM: ctx.momentumArcPosM }, state).lossFactor;
+    ok = ok && state.status === 'ok';
+    lossNeg[k] = trackStateAt(hn, s2, { fieldT: ctx.fieldT, species: b, medium: ctx.medium, momentumArcM: ctx.momentumArcNegM }, state).lossFactor;
+    ok = ok && state.status === 'ok';
+  }
+  massesAt(hp, hn, s1, s2, ctx, lossPos, lossNeg, massMeV);
   for (let t = 0; t < 2; t++) {
     const h = t === 0 ? hp : hn;
     for (let i = 0; i < 5; i++) {
@@ -78,11 +94,11 @@ export function v0Masses(
       if (!(sigma > 0) || !Number.isFinite(sigma)) { for (let k = 0; k < nh; k++) grad[nh * (5 * t + i) + k] = 0; continue; }
       const d = 0.01 * sigma;
       h[key] = v0 + d;
-      refineClosestApproach(hp, hn, s1, s2, ca, caScratch, 8);
-      massesAt(hp, hn, ca.s1, ca.s2, ctx, scratch.states, plus);
+      refineClosestApproach(hp, hn, s1, s2, ca, caScratch, 1);
+      massesAt(hp, hn, ca.s1, ca.s2, ctx, lossPos, lossNeg, plus);
       h[key] = v0 - d;
-      refineClosestApproach(hp, hn, s1, s2, ca, caScratch, 8);
-      massesAt(hp, hn, ca.s1, ca.s2, ctx, scratch.states, minus);
+      refineClosestApproach(hp, hn, s1, s2, ca, caScratch, 1);
+      massesAt(hp, hn, ca.s1, ca.s2, ctx, lossPos, lossNeg, minus);
       h[key] = v0;
       for (let k = 0; k < nh; k++) grad[nh * (5 * t + i) + k] = (plus[k] - minus[k]) / (2 * d);
     }

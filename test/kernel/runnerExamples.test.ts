@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { runCommand } from '../../kernel/cli/commands/run.js';
 import type { Notebook } from '../../kernel/notebook/types.js';
 import { nbformatValidator } from './nbSchema.js';
+import { checkLine, EXAMPLE_CHECKS } from './exampleChecks.js';
 
 const NOTEBOOKS = resolve(import.meta.dirname, '..', '..', 'notebooks');
 const examples = readdirSync(NOTEBOOKS).filter((f) => f.endsWith('.ipynb')).sort();
@@ -30,13 +31,24 @@ describe.each(examples)('example notebook %s', (name) => {
     const errors = nb.cells.flatMap((c) => (c.cell_type === 'code' ? c.outputs.filter((o) => o.output_type === 'error') : []));
     expect(errors).toEqual([]);
     const page = readFileSync(html, 'utf8');
-    // Provenance: the data files the notebook read, relative to it, marked simulated (their run
-    // record says so) with its seed; the knobs with the values used; no absolute path.
-    expect(page).toMatch(/<td>data\/brindlemoor-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td><b class="sg-sim">simulated<\/b> \(brindlemoor\)<\/td><td class="sg-hash">[0-9a-f]{64}/);
-    expect(page).toContain('<b>Simulated data.</b>');
-    expect(page).toContain('<td class="sg-hash">20260401</td>');
-    expect(page).toContain('<td>field</td><td class="sg-hash">1.5 T <span class="sg-muted">(used in T)</span></td>');
+    // Provenance: the data files the notebook read, relative to it, with their SHA-256 and origin
+    // (simulated when a run record beside them says so); no absolute path.
+    expect(page).toMatch(/[\w./-]+\.(csv|json)<\/td><td class="sg-num">[\d.]+ (B|KiB|MiB)<\/td><td>(<b class="sg-sim">simulated<\/b>[^<]*|as given)<\/td><td class="sg-hash">[0-9a-f]{64}/);
     expect(page).not.toContain(NOTEBOOKS);
+    if (name.startsWith('01-')) {
+      // Its hits come from the simulator (the run record says so), with the record's seed; its knobs are listed.
+      expect(page).toMatch(/<td>data\/brindlemoor-hits\.csv<\/td><td class="sg-num">[\d.]+ (KiB|MiB)<\/td><td><b class="sg-sim">simulated<\/b> \(brindlemoor\)<\/td>/);
+      expect(page).toContain('<b>Simulated data.</b>');
+      expect(page).toContain('<td class="sg-hash">20260401</td>');
+      expect(page).toContain('<td>field</td><td class="sg-hash">1.5 T <span class="sg-muted">(used in T)</span></td>');
+    }
+    // A notebook with its own check (its results against published values) passes it.
+    const check = EXAMPLE_CHECKS[name];
+    if (check) {
+      const results = checkLine(nb.cells);
+      expect(results, `${name} prints no sagitta-check line`).toBeDefined();
+      check(results!);
+    }
     if (!chromiumAvailable()) return;
     const report = await openReport(html);
     try {

@@ -11,6 +11,7 @@ type Register = (program: Command) => void;
  */
 const COMMANDS: Readonly<Record<string, () => Promise<Register>>> = {
   fit: async () => (await import('./fit.js')).registerFit,
+  vertices: async () => (await import('./vertices.js')).registerVertices,
   merge: async () => (await import('./merge.js')).registerMerge,
   range: async () => (await import('./range.js')).registerRange,
   simulate: async () => (await import('./simulate.js')).registerSimulate,
