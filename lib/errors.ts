@@ -25,6 +25,7 @@ export type SagittaErrorCode =
   | 'UNKNOWN_FORMAT'
   | 'BAD_SCENARIO'
   | 'BAD_NOTEBOOK'
+  | 'BAD_MATERIAL_FILE'
   | 'OUTSIDE_VALIDITY'
   | 'CANNOT_WRITE'
   | 'CANNOT_READ'
@@ -115,6 +116,10 @@ export const msg = {
 
   badScenario: (file: string, detail: string) =>
     new SagittaError('BAD_SCENARIO', `${file}: ${detail}`, { file }),
+
+  /** A user material file (lib/matter/materialFile.ts) that cannot be read as one: file:line and what to write. */
+  badMaterialFile: (file: string, line: number, detail: string) =>
+    new SagittaError('BAD_MATERIAL_FILE', located({ file, line }, detail), { file, line }),
 
   badNotebook: (file: string, detail: string) =>
     new SagittaError('BAD_NOTEBOOK', `${file}: ${detail}`, { file }),

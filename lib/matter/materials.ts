@@ -62,6 +62,13 @@ function M(m: Material): Material {
  * string. Water uses I = 75.0 eV (ICRU Report 49, the value NIST PSTAR/ESTAR use) so that the
  * PSTAR comparison tests the formula, not a different I; PDG ≥ 2019 lists 79.7 eV.
  */
+const PDG_MEMORY = `${PDG}; values recalled from the PDG table (memory), checked by the C̄ identity and the minimum dE/dx test`;
+
+const ARGON_GAS = M({ name: 'argon-gas', state: 'gas', densityGcm3: 1.662e-3, zOverA: 0.45059, meanExcitationEV: 188.0, radiationLengthGcm2: 19.55,
+  densityEffect: DE(11.948, 1.7635, 4.4855, 0.19714, 2.9618), composition: byMass({ Ar: 1 }), approximate: false, source: `${PDG}; 20 °C, 1 atm; X₀ (memory)` });
+const CO2_GAS = M({ name: 'carbon-dioxide-gas', state: 'gas', densityGcm3: 1.842e-3, zOverA: 0.49989, meanExcitationEV: 85.0, radiationLengthGcm2: 36.2,
+  densityEffect: DE(10.1537, 1.6294, 4.1825, 0.11768, 3.3227), composition: byFormula({ C: 1, O: 2 }), approximate: false, source: `${PDG_MEMORY}; CO₂ at 20 °C, 1 atm` });
+
 export const MATERIALS: readonly Material[] = Object.freeze([
   M({ name: 'liquid-hydrogen', state: 'liquid', densityGcm3: 0.0708, zOverA: 0.99212, meanExcitationEV: 21.8, radiationLengthGcm2: 63.04,
     densityEffect: DE(3.0977, 0.44, 1.8856, 0.1348, 5.6249), composition: byMass({ H: 1 }), approximate: false, source: PDG }),
@@ -75,8 +82,7 @@ export const MATERIALS: readonly Material[] = Object.freeze([
   M({ name: 'air', state: 'gas', densityGcm3: 1.205e-3, zOverA: 0.49919, meanExcitationEV: 85.7, radiationLengthGcm2: 36.62,
     densityEffect: DE(10.5961, 1.7418, 4.2759, 0.10914, 3.3994), composition: byMass({ C: 0.000124, N: 0.755267, O: 0.231781, Ar: 0.012827 }), approximate: false,
     source: `${PDG}; dry air near sea level, 20 °C (memory)` }),
-  M({ name: 'argon-gas', state: 'gas', densityGcm3: 1.662e-3, zOverA: 0.45059, meanExcitationEV: 188.0, radiationLengthGcm2: 19.55,
-    densityEffect: DE(11.948, 1.7635, 4.4855, 0.19714, 2.9618), composition: byMass({ Ar: 1 }), approximate: false, source: `${PDG}; 20 °C, 1 atm; X₀ (memory)` }),
+  ARGON_GAS,
   M({ name: 'liquid-propane', state: 'liquid', densityGcm3: 0.43, zOverA: 0.58962, meanExcitationEV: 52.0, radiationLengthGcm2: 45.37,
     densityEffect: DE(3.5529, 0.2861, 2.6568, 0.10329, 3.562), composition: byFormula({ C: 3, H: 8 }), approximate: false,
     source: `${PDG}; C₃H₈ at ρ = 0.430 g/cm³, the density the tabulated C̄ belongs to (bubble-chamber liquid) (memory)` }),
@@ -94,6 +100,29 @@ export const MATERIALS: readonly Material[] = Object.freeze([
     densityEffect: DE(5.3319, 0.1009, 3.4866, 0.12399, 3.0094),
     composition: byMass({ H: 0.0141, C: 0.072261, N: 0.01932, O: 0.066101, S: 0.00189, Br: 0.349103, Ag: 0.474105, I: 0.00312 }), approximate: false,
     source: `${PDG}; standard nuclear (photographic) emulsion, composition by mass (memory)` }),
+  M({ name: 'aluminium', state: 'solid', densityGcm3: 2.699, zOverA: 0.48181, meanExcitationEV: 166.0, radiationLengthGcm2: 24.01,
+    densityEffect: DE(4.2395, 0.1708, 3.0127, 0.08024, 3.6345, 0.12), composition: byMass({ Al: 1 }), approximate: false, source: PDG_MEMORY }),
+  M({ name: 'iron', state: 'solid', densityGcm3: 7.874, zOverA: 0.46557, meanExcitationEV: 286.0, radiationLengthGcm2: 13.84,
+    densityEffect: DE(4.2911, -0.0012, 3.1531, 0.1468, 2.9632, 0.12), composition: byMass({ Fe: 1 }), approximate: false, source: PDG_MEMORY }),
+  M({ name: 'copper', state: 'solid', densityGcm3: 8.96, zOverA: 0.45636, meanExcitationEV: 322.0, radiationLengthGcm2: 12.86,
+    densityEffect: DE(4.419, -0.0254, 3.2792, 0.14339, 2.9044, 0.08), composition: byMass({ Cu: 1 }), approximate: false, source: PDG_MEMORY }),
+  M({ name: 'tungsten', state: 'solid', densityGcm3: 19.3, zOverA: 0.4025, meanExcitationEV: 727.0, radiationLengthGcm2: 6.76,
+    densityEffect: DE(5.4059, 0.2167, 3.496, 0.15509, 2.8447, 0.14), composition: byMass({ W: 1 }), approximate: false, source: PDG_MEMORY }),
+  M({ name: 'lead', state: 'solid', densityGcm3: 11.35, zOverA: 0.39575, meanExcitationEV: 823.0, radiationLengthGcm2: 6.37,
+    densityEffect: DE(6.2018, 0.3776, 3.8073, 0.09359, 3.1608, 0.14), composition: byMass({ Pb: 1 }), approximate: false, source: PDG_MEMORY }),
+  M({ name: 'pmma', state: 'solid', densityGcm3: 1.19, zOverA: 0.53937, meanExcitationEV: 74.0, radiationLengthGcm2: 40.55,
+    densityEffect: DE(3.3297, 0.1824, 2.6681, 0.11433, 3.3836), composition: byFormula({ C: 5, H: 8, O: 2 }), approximate: false,
+    source: `${PDG_MEMORY}; polymethyl methacrylate (C₅H₈O₂)ₙ` }),
+  M({ name: 'pvt-scintillator', state: 'solid', densityGcm3: 1.032, zOverA: 0.54141, meanExcitationEV: 64.7, radiationLengthGcm2: 43.83,
+    densityEffect: DE(3.1997, 0.1464, 2.4855, 0.16101, 3.2393), composition: byFormula({ C: 9, H: 10 }), approximate: false,
+    source: `${PDG_MEMORY}; plastic scintillator, polyvinyltoluene base (C₉H₁₀)ₙ` }),
+  M({ name: 'nitrogen-gas', state: 'gas', densityGcm3: 1.165e-3, zOverA: 0.49976, meanExcitationEV: 82.0, radiationLengthGcm2: 37.99,
+    densityEffect: DE(10.54, 1.7378, 4.1323, 0.15349, 3.2125), composition: byMass({ N: 1 }), approximate: false, source: `${PDG_MEMORY}; N₂ at 20 °C, 1 atm` }),
+  CO2_GAS,
+  // Ar/CO₂ 70/30 by volume at 20 °C, 1 atm: mass fractions 0.6793/0.3207 from the molar masses,
+  // ρ = 0.7·ρ_Ar + 0.3·ρ_CO₂ (ideal gases); I, X₀ and δ by the mixture rules (approximate).
+  Object.freeze({ ...mixture('ar-co2-70-30', [{ of: ARGON_GAS, massFraction: 0.6793 }, { of: CO2_GAS, massFraction: 0.3207 }], { densityGcm3: 0.7 * 1.662e-3 + 0.3 * 1.842e-3, state: 'gas' }),
+    source: 'Ar/CO₂ 70/30 by volume, 20 °C, 1 atm, from the PDG argon and CO₂ entries by Bragg additivity and the Sternheimer–Peierls density effect (approximate)' }),
 ]);
 
 const ALIASES: Readonly<Record<string, string>> = Object.freeze({
@@ -102,6 +131,10 @@ const ALIASES: Readonly<Record<string, string>> = Object.freeze({
   ar: 'argon-gas', argon: 'argon-gas', propane: 'liquid-propane', c3h8: 'liquid-propane',
   ne: 'neon-gas', neon: 'neon-gas', lne: 'liquid-neon', si: 'silicon', scintillator: 'polystyrene',
   'polystyrene-scintillator': 'polystyrene', emulsion: 'nuclear-emulsion',
+  al: 'aluminium', aluminum: 'aluminium', fe: 'iron', cu: 'copper', w: 'tungsten', pb: 'lead',
+  perspex: 'pmma', lucite: 'pmma', pvt: 'pvt-scintillator', polyvinyltoluene: 'pvt-scintillator',
+  n2: 'nitrogen-gas', nitrogen: 'nitrogen-gas', co2: 'carbon-dioxide-gas', 'carbon-dioxide': 'carbon-dioxide-gas',
+  'ar-co2': 'ar-co2-70-30', 'arco2': 'ar-co2-70-30',
 });
 
 /**

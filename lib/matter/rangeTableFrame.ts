@@ -2,7 +2,7 @@ import { createRequire } from 'node:module';
 import type { DataFrame } from 'danfojs-node';
 import type { Particle } from '../particles.js';
 import type { Material } from './materials.js';
-import { rangeTable, type RangeTableOptions } from './range.js';
+import { rangeTable, type RangeTableOptions } from './rangeTable.js';
 
 type Danfo = typeof import('danfojs-node');
 let danfo: Danfo | undefined;

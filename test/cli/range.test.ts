@@ -36,9 +36,10 @@ describe('sagitta range', () => {
     expect(text).toMatch(/R \[g\/cm2\]/);
     expect(text).toMatch(/not for treatment planning/);
   });
-  it('refuses an energy below the validity cutoff with OUTSIDE_VALIDITY instead of printing a number', () => {
-    expect(() => runRange({ ...base, energy: '0.1 MeV' })).toThrow(SagittaError);
-    expect(() => runRange({ ...base, energy: '0.1 MeV' })).toThrow(/outside the validity range 0.95/);
+  it('answers down to low energies for protons (0.1 MeV: PSTAR 1.607e-4 g/cm², within 1.5 %) and refuses electrons below 10 keV with OUTSIDE_VALIDITY', () => {
+    expect(Math.abs(json({ energy: '0.1 MeV' }).csda_range_g_cm2 / 1.607e-4 - 1)).toBeLessThan(0.015);
+    expect(() => runRange({ ...base, particle: 'electron', energy: '1 keV' })).toThrow(SagittaError);
+    expect(() => runRange({ ...base, particle: 'electron', energy: '1 keV' })).toThrow(/outside the validity range 0.01/);
   });
   it('needs exactly one of --energy, --momentum, --range', () => {
     expect(() => runRange({ ...base })).toThrow(/exactly one/);
@@ -61,5 +62,33 @@ describe('sagitta range', () => {
     const bad = spawnSync(process.execPath, ['kernel/bin/sagitta.js', 'range', '--material', 'cheese', '--energy', '50 MeV'], { encoding: 'utf8' });
     expect(bad.status).toBe(1);
     expect(bad.stderr).toMatch(/unknown material "cheese"/);
+  });
+});
+
+describe('sagitta range: regimes and user material files', () => {
+  it('names the regime of every answer (JSON stopping_regime; the text shows it in words)', () => {
+    expect(json({ energy: '0.05 MeV' }).stopping_regime).toBe('fit');
+    expect(json({ energy: '1 MeV' }).stopping_regime).toBe('join');
+    expect(json({ energy: '100 MeV' }).stopping_regime).toBe('bethe');
+    expect(json({ particle: 'electron', energy: '1 MeV' }).stopping_regime).toBe('electron');
+    const lead = runRange({ ...base, material: 'lead', energy: '1 MeV' });
+    expect(lead.stdout).toMatch(/regime +extrapolated/);
+    expect(lead.warnings.map((w) => w.code)).toContain('APPROXIMATION');
+    const t = json({ table: true, from: '0.05 MeV', to: '100 MeV', points: '3' });
+    expect(t.rows.map((r: { stopping_regime: string }) => r.stopping_regime)).toEqual(['fit', 'join', 'bethe']);
+  });
+  it('--material-file reads a mixture and a compound (Bragg additivity, marked approximate)', () => {
+    const p10 = json({ materialFile: 'test/fixtures/material-files/p10.txt', energy: '5 MeV' });
+    expect(p10.material).toBe('ar-ch4-90-10');
+    expect(p10.density_g_cm3).toBe(1.56e-3);
+    const gas = runRange({ ...base, materialFile: 'test/fixtures/material-files/propane-gas.txt', energy: '100 MeV' });
+    expect(gas.stdout).toMatch(/propane-gas \(ρ = 0.001879 g\/cm³, I = 47.1 eV, approximate material\)/);
+  });
+  it('a bad material file is one line naming file:line and the fix, exit 1', () => {
+    const bad = spawnSync(process.execPath, ['kernel/bin/sagitta.js', 'range', '--material-file', 'test/fixtures/material-files/bad-fractions.txt', '--energy', '5 MeV'], { encoding: 'utf8' });
+    expect(bad.status).toBe(1);
+    expect(bad.stderr.trim().split('\n')).toHaveLength(1);
+    expect(bad.stderr).toMatch(/bad-fractions\.txt:3: the mass fractions of the parts sum to 0\.9, not 1/);
+    expect(() => runRange({ ...base, materialFile: 'no/such/file.txt', energy: '5 MeV' })).toThrow(SagittaError);
   });
 });

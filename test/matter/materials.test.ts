@@ -10,7 +10,7 @@ const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
 describe('materials table', () => {
   it('holds the materials the issue asks for, each citing a source', () => {
-    for (const name of ['liquid-hydrogen', 'hydrogen-gas', 'helium-gas', 'water', 'air', 'argon-gas', 'liquid-propane', 'liquid-neon', 'silicon', 'polystyrene', 'nuclear-emulsion']) {
+    for (const name of ['liquid-hydrogen', 'hydrogen-gas', 'helium-gas', 'water', 'air', 'argon-gas', 'liquid-propane', 'liquid-neon', 'silicon', 'polystyrene', 'nuclear-emulsion', 'aluminium', 'iron', 'copper', 'tungsten', 'lead', 'pmma', 'pvt-scintillator', 'nitrogen-gas', 'carbon-dioxide-gas', 'ar-co2-70-30']) {
       const m = material(name);
       expect(m.source.length).toBeGreaterThan(10);
     }

@@ -5,12 +5,17 @@ import { msg } from '../../../lib/errors.js';
 import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings.js';
 import { material as lookupMaterial, type Material } from '../../../lib/matter/materials.js';
 import { kinematicsFromKinetic, kineticFromMomentum } from '../../../lib/matter/kinematics.js';
-import { massStoppingPower } from '../../../lib/matter/stoppingPower.js';
-import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV, rangeTable } from '../../../lib/matter/range.js';
+import { isElectronLike, massStoppingPower } from '../../../lib/matter/stoppingPower.js';
+import { stoppingRegime } from '../../../lib/matter/electronicStopping.js';
+import { parseMaterialFile } from '../../../lib/matter/materialFile.js';
+import { existsSync, readFileSync } from 'node:fs';
+import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV } from '../../../lib/matter/range.js';
+import { rangeTable } from '../../../lib/matter/rangeTable.js';
 
 export interface RangeCommandOptions {
   particle: string;
   material: string;
+  materialFile?: string;
   energy?: string;
   momentum?: string;
   range?: string;
@@ -36,7 +41,18 @@ export interface RangeRow {
   readonly stopping_power_MeV_cm: number | null;
   readonly csda_range_g_cm2: number | null;
   readonly csda_range_cm: number | null;
+  /** Which formula serves this energy: fit, join, bethe, extrapolated (heavy particles) or electron. */
+  readonly stopping_regime: string;
 }
+
+/** What each regime id means, for the text output and the help. */
+export const REGIME_TEXT: Readonly<Record<string, string>> = Object.freeze({
+  fit: 'ICRU 49 low-energy fit',
+  join: 'join of the ICRU 49 fit and Bethe',
+  bethe: 'Bethe with shell and Bloch corrections',
+  extrapolated: 'extrapolated: no low-energy fit for this material (approximate, see warning)',
+  electron: 'ICRU 37 collision + radiative approximation',
+});
 
 /**
  * `sagitta range`: CSDA range, stopping power and kinematics of a species in a material, either
@@ -48,6 +64,7 @@ export function registerRange(program: Command): void {
     .description('CSDA range, stopping power, β, γ and momentum of a charged particle in a material (and back from a range)')
     .option('--particle <name>', 'particle: proton, pi+, pi-, mu-, mu+, K+, electron, positron, deuteron, alpha, …', 'proton')
     .option('--material <name>', 'material: water, liquid-hydrogen, hydrogen-gas, helium-gas, air, argon-gas, liquid-propane, neon-gas, liquid-neon, silicon, polystyrene, nuclear-emulsion', 'water')
+    .option('--material-file <path>', 'a user compound or mixture from a material file (format: lib/matter/materialFile.ts; overrides --material)')
     .option('--energy <quantity>', 'kinetic energy, e.g. "100 MeV"')
     .option('--momentum <quantity>', 'momentum, e.g. "450 MeV/c"')
     .option('--range <quantity>', 'CSDA range to go back from: a length ("7 cm") or an areal density ("7 g/cm2")')
@@ -57,17 +74,28 @@ export function registerRange(program: Command): void {
     .option('--points <n>', 'number of table rows', '25')
     .option('--json', 'print JSON (keys kinetic_energy_MeV, momentum_MeV, stopping_power_MeV_cm2_g, csda_range_g_cm2, …)')
     .addHelpText('after', `
-Heavy particles use the Bethe formula with the density effect (valid βγ 0.045–1000; proton
-0.95 MeV – 937 GeV), e± the ICRU 37 collision formula plus an approximate radiative term
-(10 keV – 10 GeV). Ranges integrate 1/S from that cutoff. Outside the validity range the command
-refuses instead of printing a number.
+Heavy particles: the ICRU 49 low-energy fits, Bethe with shell and Bloch corrections above,
+and a smooth join between them (valid from 0 to βγ = 1000); materials without a fit are
+extrapolated below the proton-equivalent 2 MeV and warned about. e±: the ICRU 37 collision
+formula plus an approximate radiative term (10 keV – 10 GeV). Ranges integrate 1/S from zero
+energy. Every answer names its regime (fit, join, bethe, extrapolated, electron). Outside the
+validity range the command refuses instead of printing a number.
+
+Material file (--material-file), one "key: value" a line, # comments:
+  name: ar-ch4-90-10
+  density: 1.56e-3 g/cm3
+  state: gas
+  part: argon-gas 0.884        (or instead of part lines: formula: C3H8)
+  part: CH4 0.116
+  excitation: 85.7 eV          (optional measured I)
 
 Caution: ${RANGE_CAUTION}
 
 Examples:
   sagitta range --particle proton --material water --energy "100 MeV"
   sagitta range --particle mu+ --material liquid-hydrogen --range "1.2 cm" --json
-  sagitta range --particle proton --material silicon --table --from "1 MeV" --to "1 GeV" --points 13`)
+  sagitta range --particle proton --material silicon --table --from "1 MeV" --to "1 GeV" --points 13
+  sagitta range --particle alpha --material-file my-gas.txt --energy "5.3 MeV"`)
     .action((options: RangeCommandOptions) => {
       const { stdout, warnings } = runRange(options);
       process.stdout.write(stdout);
@@ -90,6 +118,7 @@ function row(p: Particle, m: Material, kineticEnergyMeV: number, rangeGcm2?: num
     stopping_power_MeV_cm: num(s * m.densityGcm3),
     csda_range_g_cm2: num(r),
     csda_range_cm: num(r / m.densityGcm3),
+    stopping_regime: isElectronLike(p) ? 'electron' : stoppingRegime(p, m, kineticEnergyMeV),
   };
 }
 
@@ -102,7 +131,7 @@ export function rangeGcm2FromText(text: string, m: Material): number {
 }
 
 function validityText(p: Particle): string {
-  return `${Number(rangeCutoffMeV(p).toPrecision(3))}–${Number(rangeMaxMeV(p).toPrecision(3))} MeV for ${p.name}`;
+  return `${p.charge !== 0 && Math.abs(p.massMeV - 0.51099895) < 1e-6 ? Number(rangeCutoffMeV(p).toPrecision(3)) : 0}–${Number(rangeMaxMeV(p).toPrecision(3))} MeV for ${p.name}`;
 }
 
 /** Runs the command; returns what goes to stdout and the warnings (also used by tests). */
@@ -110,7 +139,7 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
   consumeWarnings();
   const p = lookupParticle(options.particle);
   if (p.charge === 0) throw msg.badArgument('--particle', options.particle, 'a charged particle');
-  const m = lookupMaterial(options.material);
+  const m = options.materialFile !== undefined ? readMaterialFile(options.materialFile) : lookupMaterial(options.material);
   const given = [options.energy, options.momentum, options.range].filter((x) => x !== undefined).length;
 
   if (options.table) {
@@ -134,10 +163,10 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
   let rangeGiven: number | undefined;
   if (options.energy !== undefined) {
     kineticMeV = energyMeV(options.energy, { what: '--energy' });
-    if (!Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--energy', options.energy, validityText(p));
+    if (!Number.isFinite(massStoppingPower(p, m, kineticMeV)) || !Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--energy', options.energy, validityText(p));
   } else if (options.momentum !== undefined) {
     kineticMeV = kineticFromMomentum(p, momentumGeV(options.momentum, { what: '--momentum' }) * 1000);
-    if (!Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--momentum', options.momentum, validityText(p));
+    if (!Number.isFinite(massStoppingPower(p, m, kineticMeV)) || !Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--momentum', options.momentum, validityText(p));
   } else {
     rangeGiven = rangeGcm2FromText(options.range as string, m);
     kineticMeV = kineticEnergyFromRange(p, m, rangeGiven);
@@ -150,6 +179,11 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
     return { stdout: JSON.stringify({ particle: p.name, material: m.name, density_g_cm3: m.densityGcm3, ...r, caution: RANGE_CAUTION }) + '\n', warnings };
   }
   return { stdout: formatOne(p, m, r), warnings };
+}
+
+function readMaterialFile(path: string): Material {
+  if (!existsSync(path)) throw msg.fileNotFound(path);
+  return parseMaterialFile(readFileSync(path, 'utf8'), path);
 }
 
 const g = (x: number | null, digits = 5): string => (x === null ? 'n/a' : Number(x.toPrecision(digits)).toString());
@@ -166,6 +200,7 @@ function formatOne(p: Particle, m: Material, r: RangeRow): string {
     `  beta, gamma      ${g(r.beta)}, ${g(r.gamma)}`,
     `  stopping power   ${g(r.stopping_power_MeV_cm2_g)} MeV cm²/g  (${g(r.stopping_power_MeV_cm)} MeV/cm)`,
     `  CSDA range       ${g(r.csda_range_g_cm2)} g/cm²  (${g(r.csda_range_cm)} cm)`,
+    `  regime           ${REGIME_TEXT[r.stopping_regime] ?? r.stopping_regime}`,
     `  caution: ${RANGE_CAUTION}`,
     '',
   ].join('\n');
@@ -175,8 +210,9 @@ function formatTable(p: Particle, m: Material, rows: readonly RangeRow[]): strin
   const cols: [string, keyof RangeRow][] = [
     ['T [MeV]', 'kinetic_energy_MeV'], ['p [MeV/c]', 'momentum_MeV'], ['beta', 'beta'],
     ['S [MeV cm2/g]', 'stopping_power_MeV_cm2_g'], ['R [g/cm2]', 'csda_range_g_cm2'], ['R [cm]', 'csda_range_cm'],
+    ['regime', 'stopping_regime'],
   ];
-  const cells = rows.map((r) => cols.map(([, k]) => g(r[k])));
+  const cells = rows.map((r) => cols.map(([, k]) => (k === 'stopping_regime' ? r[k] : g(r[k] as number | null))));
   const widths = cols.map(([h], j) => Math.max(h.length, ...cells.map((c) => c[j].length)));
   const line = (xs: readonly string[]) => xs.map((x, j) => x.padStart(widths[j])).join('  ');
   return [header(p, m), line(cols.map(([h]) => h)), ...cells.map(line), `caution: ${RANGE_CAUTION}`, ''].join('\n');
