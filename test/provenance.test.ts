@@ -2,7 +2,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { rangeTable } from '../lib/matter/range.js';
+import { rangeTable } from '../lib/matter/rangeTable.js';
 import { material } from '../lib/matter/materials.js';
 import { particle } from '../lib/particles.js';
 import { provenanceSnapshot, recordCaution, recordInput, recordSeed, resetProvenance } from '../lib/provenance.js';
