@@ -99,48 +99,57 @@ export function findKinks(tracks: VertexTracks, options: KinkFinderOptions = {})
   const rows: number[][] = [];
   const status: string[] = [];
   let pairsTried = 0;
-  for (let a = 0; a < count; a++) {
-    if (!tracks.usable[a]) continue;
-    loadHelix(tracks, a, ha);
-    helixPoint(ha, tracks.lastArcM[a], end);
-    for (let b = 0; b < count; b++) {
-      if (b === a || !tracks.usable[b] || tracks.event[b] !== tracks.event[a] || tracks.charge[a] !== tracks.charge[b] || tracks.charge[a] === 0) continue;
-      pairsTried++;
-      loadHelix(tracks, b, hb);
-      helixPoint(hb, 0, start);
-      if (Math.hypot(end[0] - start[0], end[1] - start[1], end[2] - start[2]) > cut.maxGapM) continue;
-      refineClosestApproach(ha, hb, tracks.lastArcM[a], 0, ca, scratch);
-      if (!(ca.distanceM <= cut.maxDcaM) || ca.s1 < tracks.lastArcM[a] - cut.maxOverlapM || ca.s2 > cut.maxOverlapM) continue;
-      const fa = ha.phi0 + ha.kappa * ca.s1, fb = hb.phi0 + hb.kappa * ca.s2;
-      const ua = [Math.cos(fa), Math.sin(fa), ha.tanLambda], ub = [Math.cos(fb), Math.sin(fb), hb.tanLambda];
-      const cosAngle = (ua[0] * ub[0] + ua[1] * ub[1] + ua[2] * ub[2]) / (Math.hypot(ua[0], ua[1], ua[2]) * Math.hypot(ub[0], ub[1], ub[2]));
-      const angle = Math.acos(Math.max(-1, Math.min(1, cosAngle)));
-      if (!(angle >= cut.minAngleRad)) continue;
-      const sign = tracks.charge[a] > 0 ? 1 : -1;
-      const mu = sign > 0 ? MUON_PLUS : MUON_MINUS;
-      const d = trackStateAt(hb, ca.s2, { fieldT, species: mu, medium: options.medium, momentumArcM: 0.5 * tracks.lastArcM[b] }, sd);
-      const pd = [d.pMeV[0], d.pMeV[1], d.pMeV[2]];
-      let st = d.status === 'ok' ? 'ok' : 'ranged-out';
-      const perParent = (sign > 0 ? [PION_PLUS, KAON_PLUS] : [PION_MINUS, KAON_MINUS]).map((parent: Particle) => {
-        const p = trackStateAt(ha, ca.s1, { fieldT, species: parent, medium: options.medium, momentumArcM: 0.5 * tracks.lastArcM[a] }, sa);
-        if (p.status !== 'ok') st = 'ranged-out';
-        const P = fourMomentum(p.pMeV[0], p.pMeV[1], p.pMeV[2], parent.massMeV);
-        const D = fourMomentum(pd[0], pd[1], pd[2], mu.massMeV);
-        const rest = toRestFrame(D, P);
-        const miss = (P[0] - D[0]) ** 2 - (P[1] - D[1]) ** 2 - (P[2] - D[2]) ** 2 - (P[3] - D[3]) ** 2;
-        return { pStar: Math.hypot(rest[1], rest[2], rest[3]), miss, p: Math.hypot(P[1], P[2], P[3]), dir: [P[1], P[2], P[3]] };
-      });
-      const pp = perParent[0];
-      const n = Math.hypot(pp.dir[0], pp.dir[1], pp.dir[2]);
-      const along = (pd[0] * pp.dir[0] + pd[1] * pp.dir[1] + pd[2] * pp.dir[2]) / n;
-      const qt = Math.sqrt(Math.max(0, pd[0] ** 2 + pd[1] ** 2 + pd[2] ** 2 - along * along));
-      const px = scratch.p1, py = scratch.p2;
-      rows.push([
-        tracks.event[a], tracks.track[a], tracks.track[b], 0.5 * (px[0] + py[0]), 0.5 * (px[1] + py[1]), tracks.hasZ ? 0.5 * (px[2] + py[2]) : NaN,
-        ca.distanceM, angle, pp.p, Math.hypot(pd[0], pd[1], pd[2]), qt, perParent[0].pStar, perParent[1].pStar, perParent[0].miss, perParent[1].miss, a, b,
-      ]);
-      status.push(st);
+  // Rows in event order (stable), so each event's tracks are one run and only they are paired.
+  const order = Int32Array.from({ length: count }, (_, i) => i).sort((p, q) => tracks.event[p] - tracks.event[q] || p - q);
+  for (let r0 = 0; r0 < count;) {
+    let r1 = r0;
+    while (r1 < count && tracks.event[order[r1]] === tracks.event[order[r0]]) r1++;
+    for (let ia = r0; ia < r1; ia++) {
+      const a = order[ia];
+      if (!tracks.usable[a]) continue;
+      loadHelix(tracks, a, ha);
+      helixPoint(ha, tracks.lastArcM[a], end);
+      for (let ib = r0; ib < r1; ib++) {
+        const b = order[ib];
+        if (b === a || !tracks.usable[b] || tracks.charge[a] !== tracks.charge[b] || tracks.charge[a] === 0) continue;
+        pairsTried++;
+        loadHelix(tracks, b, hb);
+        helixPoint(hb, 0, start);
+        if (Math.hypot(end[0] - start[0], end[1] - start[1], end[2] - start[2]) > cut.maxGapM) continue;
+        refineClosestApproach(ha, hb, tracks.lastArcM[a], 0, ca, scratch);
+        if (!(ca.distanceM <= cut.maxDcaM) || ca.s1 < tracks.lastArcM[a] - cut.maxOverlapM || ca.s2 > cut.maxOverlapM) continue;
+        const fa = ha.phi0 + ha.kappa * ca.s1, fb = hb.phi0 + hb.kappa * ca.s2;
+        const ua = [Math.cos(fa), Math.sin(fa), ha.tanLambda], ub = [Math.cos(fb), Math.sin(fb), hb.tanLambda];
+        const cosAngle = (ua[0] * ub[0] + ua[1] * ub[1] + ua[2] * ub[2]) / (Math.hypot(ua[0], ua[1], ua[2]) * Math.hypot(ub[0], ub[1], ub[2]));
+        const angle = Math.acos(Math.max(-1, Math.min(1, cosAngle)));
+        if (!(angle >= cut.minAngleRad)) continue;
+        const sign = tracks.charge[a] > 0 ? 1 : -1;
+        const mu = sign > 0 ? MUON_PLUS : MUON_MINUS;
+        const d = trackStateAt(hb, ca.s2, { fieldT, species: mu, medium: options.medium, momentumArcM: 0.5 * tracks.lastArcM[b] }, sd);
+        const pd = [d.pMeV[0], d.pMeV[1], d.pMeV[2]];
+        let st = d.status === 'ok' ? 'ok' : 'ranged-out';
+        const perParent = (sign > 0 ? [PION_PLUS, KAON_PLUS] : [PION_MINUS, KAON_MINUS]).map((parent: Particle) => {
+          const p = trackStateAt(ha, ca.s1, { fieldT, species: parent, medium: options.medium, momentumArcM: 0.5 * tracks.lastArcM[a] }, sa);
+          if (p.status !== 'ok') st = 'ranged-out';
+          const P = fourMomentum(p.pMeV[0], p.pMeV[1], p.pMeV[2], parent.massMeV);
+          const D = fourMomentum(pd[0], pd[1], pd[2], mu.massMeV);
+          const rest = toRestFrame(D, P);
+          const miss = (P[0] - D[0]) ** 2 - (P[1] - D[1]) ** 2 - (P[2] - D[2]) ** 2 - (P[3] - D[3]) ** 2;
+          return { pStar: Math.hypot(rest[1], rest[2], rest[3]), miss, p: Math.hypot(P[1], P[2], P[3]), dir: [P[1], P[2], P[3]] };
+        });
+        const pp = perParent[0];
+        const n = Math.hypot(pp.dir[0], pp.dir[1], pp.dir[2]);
+        const along = (pd[0] * pp.dir[0] + pd[1] * pp.dir[1] + pd[2] * pp.dir[2]) / n;
+        const qt = Math.sqrt(Math.max(0, pd[0] ** 2 + pd[1] ** 2 + pd[2] ** 2 - along * along));
+        const px = scratch.p1, py = scratch.p2;
+        rows.push([
+          tracks.event[a], tracks.track[a], tracks.track[b], 0.5 * (px[0] + py[0]), 0.5 * (px[1] + py[1]), tracks.hasZ ? 0.5 * (px[2] + py[2]) : NaN,
+          ca.distanceM, angle, pp.p, Math.hypot(pd[0], pd[1], pd[2]), qt, perParent[0].pStar, perParent[1].pStar, perParent[0].miss, perParent[1].miss, a, b,
+        ]);
+        status.push(st);
+      }
     }
+    r0 = r1;
   }
   const n = rows.length;
   const cols = Object.fromEntries(COLS.map((c, i) => [c, Float64Array.from(rows, (r) => r[i])])) as Record<Col, Float64Array>;

@@ -35,7 +35,7 @@ export interface VerticesCommandOptions {
 
 /** Help examples; each runs as written from the package folder. */
 export const VERTICES_EXAMPLES = [
-  'sagitta vertices notebooks/data/brindlemoor-hits.csv --field "1.5 T" --primary "-59.5 0 0 cm" --material liquid-hydrogen --out out/v0.csv',
+  'sagitta vertices notebooks/data/cinderfell-hits.csv --field "1.0 T" --primary "-55 0 0 cm" --material argon-gas --out out/v0.csv',
 ];
 
 /**
