@@ -62,7 +62,8 @@ export function knob(name: string, defaultValue: `${number} ${string}`): number;
 export function knob(name: string, defaultValue: number): number;
 export function knob(name: string, defaultValue: boolean): boolean;
 export function knob(name: string, defaultValue: string): string;
-export function knob<const T extends readonly (number | string | boolean)[]>(name: string, defaultValue: T): T;
+/** List knob: the default's shape is kept ([0, 2] is a [number, number]). */
+export function knob<T extends [] | (number | string | boolean)[]>(name: string, defaultValue: T): T;
 /**
  * Declares a knob and returns its value for this run (the supplied one, else the default).
  * Throws BAD_KNOB for a bad name, a default of no knob kind, or the same name declared twice

@@ -2,7 +2,10 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { provenanceSnapshot, recordInput, recordSeed, resetProvenance } from '../lib/provenance.js';
+import { rangeTable } from '../lib/matter/rangeTable.js';
+import { material } from '../lib/matter/materials.js';
+import { particle } from '../lib/particles.js';
+import { provenanceSnapshot, recordCaution, recordInput, recordSeed, resetProvenance } from '../lib/provenance.js';
 
 describe('provenance registry', () => {
   beforeEach(() => resetProvenance());
@@ -45,5 +48,15 @@ describe('provenance registry', () => {
     recordSeed(7, 'a');
     const shared = (globalThis as unknown as Record<symbol, { seeds: unknown[] }>)[Symbol.for('sagitta.provenance')];
     expect(shared.seeds).toHaveLength(1);
+  });
+
+  it('recordCaution keeps each kind once; a range table records the stopping-power caution; reset forgets it', () => {
+    expect(provenanceSnapshot().cautions).toEqual([]);
+    recordCaution('stopping-power');
+    recordCaution('stopping-power');
+    expect(provenanceSnapshot().cautions).toEqual(['stopping-power']);
+    resetProvenance();
+    rangeTable(particle('proton'), material('water'), { fromMeV: 50, toMeV: 250, points: 5 });
+    expect(provenanceSnapshot().cautions).toEqual(['stopping-power']);
   });
 });

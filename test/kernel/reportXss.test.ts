@@ -42,7 +42,7 @@ describe('XSS payloads through a real run', () => {
     ] }));
     const html = join(dir, 'report.html');
     const r = await runCommand(nbFile, { cellTimeout: '120s', set: [], executed: join(dir, 'out.ipynb'), html, keepGoing: true });
-    expect(r.reason).toMatch(/^cell 7 failed: Error: <script>window.__sgXss=1<\/script> \(all cells ran/);
+    expect(r.reason).toMatch(/^step 6 failed: Error: <script>window.__sgXss=1<\/script> \(all steps ran/);
     const page = readFileSync(html, 'utf8');
     const body = page.slice(page.indexOf('<body'), page.indexOf('<script type="application/json"'));
     expect(body.match(/<script|<iframe|<svg|<img[^>]*onerror|<[^>]*\b(href|src|action)\s*=\s*["']?\s*javascript:/gi)).toBeNull();
