@@ -58,7 +58,7 @@ async function handle(m: ToChild): Promise<void> {
     session = createSession({ workDir });
     // Compile and run an empty cell so the compiler is built before the first timed cell. (The
     // session's warmUp() is not called: it builds completion lists for the whole library, which
-    // measured ~4 s here against ~0.5 s for a first cell that imports "sagitta".)
+    // measured ~4 s here against ~0.5 s for a first cell that imports "sagitta-tracks".)
     await session.execute('', { stream() {}, display() {}, clear() {}, ask: noInput });
     send({ kind: 'ready', typescript: tslabTs.version, startMs: performance.now() - t0 });
   } else if (m.kind === 'cell') {
