@@ -5,7 +5,7 @@
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import { FROM_SOURCE, moduleUrl, packageRoot } from '../packageMode.js';
 import { sagittaVersion } from '../version.js';
 import { logoPng, logoSvg } from './logo.js';

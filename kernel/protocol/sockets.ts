@@ -1,7 +1,7 @@
 import { workerUrl } from '../packageMode.js';
 import { Worker } from 'node:worker_threads';
 import * as zmq from 'zeromq';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import { endpoint, type ConnectionInfo } from './connection.js';
 import type { ControlThreadData, FromControlThread, ToControlThread } from './controlThread.js';
 import { serveHeartbeat } from './heartbeat.js';

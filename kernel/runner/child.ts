@@ -6,9 +6,7 @@
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import { msg } from '../../lib/errors.js';
-import { knobSnapshot, supplyKnobs } from '../../lib/knob.js';
-import { provenanceSnapshot } from '../../lib/provenance.js';
+import { knobSnapshot, msg, provenanceSnapshot, supplyKnobs } from '../../lib/internal.js';
 import { tslabTs } from '../session/compilerShim.js';
 import { createSession } from '../session/index.js';
 import type { Session } from '../session/types.js';

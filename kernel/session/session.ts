@@ -23,10 +23,8 @@
  */
 import { createRequire } from 'node:module';
 import path from 'node:path';
-import type { MimeBundle } from '../../lib/display.js';
-import { mimeBundleOf } from '../../lib/display.js';
-import { consumeWarnings, formatWarning } from '../../lib/warnings.js';
-import { msg } from '../../lib/errors.js';
+import { consumeWarnings, formatWarning, type MimeBundle } from '../../lib/index.js';
+import { mimeBundleOf, msg } from '../../lib/internal.js';
 import { createCellExecutor } from './cellExecutor.js';
 import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError.js';
 import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot.js';

@@ -3,7 +3,7 @@ import { cpSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, join, resolve } from 'node:path';
 import { FROM_SOURCE, packageRoot } from '../../packageMode.js';
-import { msg } from '../../../lib/errors.js';
+import { msg } from '../../../lib/internal.js';
 import { runCommand } from './run.js';
 
 /** The package's example notebooks folder (next to kernel/ and lib/). */
