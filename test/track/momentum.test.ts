@@ -3,6 +3,7 @@ import { fitCircles } from '../../lib/fit/fitCircles.js';
 import { fitHelices } from '../../lib/fit/fitHelices.js';
 import { momenta, momentumAt, transverseMomentumGeV, radiusOfCurvatureM } from '../../lib/track/momentum.js';
 import { GEV_PER_TESLA_METRE, SPEED_OF_LIGHT_M_S } from '../../lib/constants.js';
+import { allocateCircleFits } from '../../lib/fit/circleFit.js';
 import { arc, gaussian } from '../fit/helpers.js';
 
 describe('transverseMomentumGeV: p_T = 0.299792458·|z|·B·R (common practice; c exact, CODATA 2018)', () => {
@@ -14,6 +15,7 @@ describe('transverseMomentumGeV: p_T = 0.299792458·|z|·B·R (common practice; 
     expect(transverseMomentumGeV(1.5, 2)).toBeCloseTo(0.899377374, 12);
     expect(transverseMomentumGeV(1.5, 2, 2)).toBeCloseTo(1.798754748, 12);
     expect(radiusOfCurvatureM(0.899377374, 1.5)).toBeCloseTo(2, 9);
+    expect(radiusOfCurvatureM(1.798754748, 1.5, 2)).toBeCloseTo(2, 9);
   });
 });
 
@@ -102,7 +104,29 @@ describe('momenta of helices', () => {
     expect(Math.abs(mean)).toBeLessThan(0.07);
     expect(Math.abs(width - 1)).toBeLessThan(0.05);
   });
-  it('a zero field is a bad call', () => {
-    expect(() => momenta(trackOn(2, true), 0)).toThrow(/fieldT = 0/);
+  it('a zero field and a charge number ≤ 0 are bad calls that say what is expected', () => {
+    expect(() => momenta(trackOn(2, true), 0)).toThrow(/fieldT = 0.*non-zero magnetic field in tesla/);
+    expect(() => momenta(trackOn(2, true), 1.5, { chargeMagnitude: 0 })).toThrow(/chargeMagnitude = 0.*positive charge number/);
+    expect(() => momenta(trackOn(2, true), 1.5, { chargeMagnitude: -1 })).toThrow(/chargeMagnitude = -1.*positive charge number/);
+  });
+  it('|z| = 2 doubles p_T on the same radius and gives charge ±2; radius, direction and significance per track', () => {
+    const a = arc(0, 0, 2, 0.3, -0.7, 25); // starts at angle 0.3 rad: travel direction φ0 = 0.3 − π/2
+    const fits = fitCircles({ x: a.x, y: a.y }, Int32Array.of(0, 25));
+    const one = momentumAt(momenta(fits, 1.5), 0);
+    const two = momentumAt(momenta(fits, 1.5, { chargeMagnitude: 2 }), 0);
+    expect(one.radiusM).toBeCloseTo(2, 9);
+    expect(two.ptGeV).toBeCloseTo(2 * 0.899377374, 9);
+    expect([one.charge, two.charge]).toEqual([1, 2]);
+    const phi = 0.3 - Math.PI / 2;
+    expect(one.pxGeV).toBeCloseTo(0.899377374 * Math.cos(phi), 9);
+    expect(one.pyGeV).toBeCloseTo(0.899377374 * Math.sin(phi), 9);
+    expect(one.curvatureSignificance).toBeCloseTo(Math.abs(fits.kappa[0]) / Math.sqrt(fits.cov[0]), 9);
+  });
+  it('a straight track (κ = 0 exactly) has charge 0, not −0, and infinite radius', () => {
+    const fits = allocateCircleFits(1);
+    fits.kappa[0] = 0; fits.cov[0] = 1e-6;
+    const m = momentumAt(momenta(fits, 1.5), 0);
+    expect(Object.is(m.charge, 0)).toBe(true);
+    expect(m.radiusM).toBe(Infinity);
   });
 });
