@@ -1,5 +1,5 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import { PION_PLUS, MUON_MINUS, PROTON } from '../../lib/particles.js';
+import { ELECTRON, KAON_SHORT, PION_PLUS, MUON_MINUS, PROTON } from '../../lib/particles.js';
 import { consumeWarnings } from '../../lib/warnings.js';
 import { kineticFromBetaGamma, massStoppingPower, material, mostProbableEnergyLoss } from '../../lib/matter/index.js';
 
@@ -65,6 +65,7 @@ describe('mostProbableEnergyLoss (Landau–Vavilov, PDG form)', () => {
     const cases = [
       { p: PION_PLUS, m: material('argon-gas'), t: 500, x: 1.662e-3 },
       { p: PROTON, m: material('water'), t: 600, x: 0.1 },
+      { p: PROTON, m: material('water'), t: 200, x: 0.05 }, // βγ = 0.68: below 1, still δ = 0
     ];
     let checked = 0;
     for (const c of cases) {
@@ -79,10 +80,58 @@ describe('mostProbableEnergyLoss (Landau–Vavilov, PDG form)', () => {
       expect(Math.abs(r.mostProbableMeV - landau) / xi, c.m.name).toBeLessThan(1e-3);
       checked++;
     }
-    expect(checked).toBe(2);
+    expect(checked).toBe(3);
+  });
+  it('with the density effect: 500 MeV π⁺ in 300 µm of silicon equals the Landau form minus ξδ, δ from the Sternheimer silicon parameters (≈ 0.42)', () => {
+    // Sternheimer, Berger & Seltzer, At. Data Nucl. Data Tables 30 (1984) 261, silicon as carried in the
+    // PDG tables: C̄ 4.4355, x₀ 0.2015, x₁ 2.8716, a 0.1492, k 3.2546 (memory). For x₀ ≤ x < x₁:
+    // δ = 2 ln10 x − C̄ + a (x₁ − x)^k with x = log₁₀ βγ (PDG RPP).
+    const t = 500, x = 300e-4 * 2.329;
+    const gamma = 1 + t / PION_PLUS.massMeV, beta2 = 1 - 1 / (gamma * gamma), bgLog = Math.log10(Math.sqrt(gamma * gamma - 1));
+    const delta = 2 * Math.LN10 * bgLog - 4.4355 + 0.1492 * (2.8716 - bgLog) ** 3.2546;
+    expect(delta).toBeGreaterThan(0.3);
+    const xi = (0.307075 / 2) * 0.49848 * x / beta2, iMeV = 173e-6, me = 0.51099895;
+    const lnEps = Math.log((iMeV * iMeV * (1 - beta2)) / (2 * me * beta2)) + beta2;
+    const expected = xi * (Math.log(xi) - lnEps + 1 - 0.5772156649015329 + landauMode() - delta);
+    const r = mostProbableEnergyLoss(PION_PLUS, si, t, x);
+    expect(Math.abs(r.mostProbableMeV - expected) / xi).toBeLessThan(2e-3);
   });
   it('returns NaN + warning for a thick layer (κ ≥ 0.05 or Δp > 10 % of T)', () => {
     expect(mostProbableEnergyLoss(PROTON, si, 5, 1).mostProbableMeV).toBeNaN();
     expect(consumeWarnings()[0].code).toBe('OUTSIDE_VALIDITY');
+  });
+  it('each validity limit alone gives NaN and a warning that names it: κ ≥ 0.05, an electron, βγ < 0.045, Δp > 10 % of T', () => {
+    // κ = ξ/T_max ≈ 0.7 for a 50 MeV proton in 1 mm of silicon, while Δp ≈ 1 MeV stays under 10 % of T.
+    const thick = mostProbableEnergyLoss(PROTON, si, 50, 0.1);
+    expect(thick.mostProbableMeV).toBeNaN();
+    expect(thick.kappa).toBeGreaterThan(0.05);
+    const [w1] = consumeWarnings();
+    expect([w1.code, w1.source]).toEqual(['OUTSIDE_VALIDITY', 'mostProbableEnergyLoss']);
+    expect(w1.message).toMatch(/^mostProbableEnergyLoss: proton at T = 50 MeV through 0.1 g\/cm² has κ = 0\.\d+ \(needs < 0.05, heavy particle, βγ ≥ 0.045\); result is NaN$/);
+    // Electrons are outside the form (Landau–Vavilov for heavy particles) whatever κ is.
+    expect(mostProbableEnergyLoss(ELECTRON, si, 500, 0.0699).mostProbableMeV).toBeNaN();
+    expect(consumeWarnings()[0].message).toMatch(/electron at T = 500 MeV/);
+    // βγ = 0.033 for a 0.5 MeV proton: below 0.045 even for a layer thin enough that κ < 0.05.
+    const slow = mostProbableEnergyLoss(PROTON, si, 0.5, 1e-7);
+    expect(slow.mostProbableMeV).toBeNaN();
+    expect(slow.kappa).toBeLessThan(0.05);
+    expect(consumeWarnings()[0].code).toBe('OUTSIDE_VALIDITY');
+    // 3 GeV π⁺ through 200 g/cm² of silicon: κ ≈ 0.03, but Δp ≈ 0.36 GeV > 10 % of T.
+    const long = mostProbableEnergyLoss(PION_PLUS, si, 3000, 200);
+    expect(long.mostProbableMeV).toBeNaN();
+    expect(long.kappa).toBeLessThan(0.05);
+    const [w4] = consumeWarnings();
+    expect([w4.code, w4.source]).toEqual(['OUTSIDE_VALIDITY', 'mostProbableEnergyLoss']);
+    expect(w4.message).toMatch(/^mostProbableEnergyLoss: Δp = \d{3} MeV is more than 10 % of T = 3000 MeV; use a thinner layer or step through the range table; result is NaN$/);
+    // Just inside every limit a number comes back, with no warning.
+    expect(mostProbableEnergyLoss(PION_PLUS, si, 3000, 20).mostProbableMeV).toBeGreaterThan(0);
+    expect(consumeWarnings()).toEqual([]);
+  });
+  it('a neutral particle and a thickness ≤ 0 are bad calls that say what is expected; ξ scales with z²', () => {
+    expect(() => mostProbableEnergyLoss(KAON_SHORT, si, 500, 0.1)).toThrow(/particle = .*K0S.*a charged particle/);
+    expect(() => mostProbableEnergyLoss(PION_PLUS, si, 500, 0)).toThrow(/thicknessGcm2 = 0.*a positive thickness in g\/cm²/);
+    expect(() => mostProbableEnergyLoss(PION_PLUS, si, 500, -1)).toThrow(/thicknessGcm2 = -1/);
+    const alpha = { ...PION_PLUS, name: 'z2', charge: 2 };
+    expect(mostProbableEnergyLoss(alpha, si, 500, 0.01).xiMeV / mostProbableEnergyLoss(PION_PLUS, si, 500, 0.01).xiMeV).toBeCloseTo(4, 12);
   });
 });
