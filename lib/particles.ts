@@ -30,9 +30,9 @@ export const MUON_PLUS = P('mu+', 'μ⁺', 105.6583755, +1, 658.6384);
 /** PDG 2022: π± 139.57039(18) MeV, cτ 7.8045 m. */
 export const PION_PLUS = P('pi+', 'π⁺', 139.57039, +1, 7.8045);
 export const PION_MINUS = P('pi-', 'π⁻', 139.57039, -1, 7.8045);
-/** PDG 2022: K± 493.677(16) MeV, cτ 3.7101 m. */
-export const KAON_PLUS = P('K+', 'K⁺', 493.677, +1, 3.7101);
-export const KAON_MINUS = P('K-', 'K⁻', 493.677, -1, 3.7101);
+/** PDG 2022: K± 493.677(16) MeV, τ 1.2380(20)e-8 s → cτ 3.7114 m (printed 3.711 m). */
+export const KAON_PLUS = P('K+', 'K⁺', 493.677, +1, 3.7114);
+export const KAON_MINUS = P('K-', 'K⁻', 493.677, -1, 3.7114);
 /** PDG 2022: K⁰ 497.611(13) MeV; K⁰_S cτ 2.6844 cm. */
 export const KAON_SHORT = P('K0S', 'K⁰_S', 497.611, 0, 0.026844);
 /** PDG 2022: p 938.27208816(29) MeV (CODATA 2018 value; recalled, cross-check in fixtures). */

@@ -5,7 +5,7 @@ export default defineConfig({
   root: new URL('..', import.meta.url).pathname,
   test: {
     include: ['test/**/*.test.ts'],
-    exclude: ['test/bench/**', 'node_modules/**'],
+    exclude: ['test/bench/**', 'node_modules/**', 'test/.tmp/**'],
     testTimeout: 60_000,
     hookTimeout: 120_000,
     // Two cores on the reference machine: keep the pool small so browser and kernel tests get time.

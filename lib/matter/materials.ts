@@ -57,9 +57,9 @@ function M(m: Material): Material {
 }
 
 /**
- * The built-in table. Values as carried by the PDG tables (edition 2022 web tables); the entries
- * not listed in REFERENCE-VALUES with a publication check are marked (memory) in their source
- * string. Water uses I = 75.0 eV (ICRU Report 49, the value NIST PSTAR/ESTAR use) so that the
+ * The built-in table. Values as carried by the PDG tables (edition 2022 web tables); entries whose
+ * values were recalled rather than read from the publication are marked (memory) in their source
+ * string (test/fixtures/pdg-materials/README.md says which rows were read). Water uses I = 75.0 eV (ICRU Report 49, the value NIST PSTAR/ESTAR use) so that the
  * PSTAR comparison tests the formula, not a different I; PDG ≥ 2019 lists 79.7 eV.
  */
 const PDG_MEMORY = `${PDG}; values recalled from the PDG table (memory), checked by the C̄ identity and the minimum dE/dx test`;

@@ -14,48 +14,54 @@ describe('the fit lab on simulated truth', () => {
     }
   });
 
-  it('without scattering: geometric pulls have mean ≈ 0 and width within 10 % of 1; χ² p-values are flat (5 % below 0.05)', () => {
+  it('without scattering: geometric pulls have mean 0 ± 0.06 and width 1 ± 0.04; χ²/ndf 1 ± 0.015; 5 ± 1.2 % of p-values below 0.05', () => {
+    // Bands are about three statistical errors for 3000 tracks of 40 hits: mean 0.018, width 1/√6000 = 0.013,
+    // χ²/ndf √(2/38)/√3000 = 0.004, fraction √(0.05·0.95/3000) = 0.004 (seed 3 gives 0.024, 0.996, 0.992, 0.049).
     const s = fitLabSample({ tracks: 3000, momentumGeV: [0.3, 10], lengthsM: [0.3, 0.6, 1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 3 });
     const r = compareFitters(BUILT_IN_FIT_METHODS, s);
     const g = r.summary.find((x) => x.fitter === 'geometric')!;
     expect(g.failureRate).toBe(0);
-    expect(Math.abs(g.pullMean)).toBeLessThan(0.1);
-    expect(Math.abs(g.pullWidth - 1)).toBeLessThan(0.1);
-    expect(Math.abs(g.chi2PerNdf - 1)).toBeLessThan(0.05);
-    expect(Math.abs(g.pValueBelow5Percent - 0.05)).toBeLessThan(0.015);
+    expect(Math.abs(g.pullMean)).toBeLessThan(0.06);
+    expect(Math.abs(g.pullWidth - 1)).toBeLessThan(0.04);
+    expect(Math.abs(g.chi2PerNdf - 1)).toBeLessThan(0.015);
+    expect(Math.abs(g.pValueBelow5Percent - 0.05)).toBeLessThan(0.012);
     expect(g.tracksPerSecond).toBeGreaterThan(0);
   });
 
-  it('curvature resolution follows Gluckstern (NIM 24 (1963) 381: σ(κ) = (ε/L²)√(720/(N+4))) within 10 % for 1 m tracks of 40 hits', () => {
+  it('curvature resolution follows Gluckstern (NIM 24 (1963) 381: σ(κ) = (ε/L²)√(720/(N+4))) within 4 % for 1 m tracks of 40 hits (seed 4: +0.5 %; statistical error 1.3 %)', () => {
     const s = fitLabSample({ tracks: 3000, momentumGeV: [2, 10], lengthsM: [1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 4 });
     const g = compareFitters(['geometric'], s).summary[0];
     // The hits span 39/40 of the length (first hit one spacing after the start).
     const expected = glucksternCurvatureSigma({ nPoints: 40, sigmaM: 3e-4, lengthM: 0.975 });
-    expect(Math.abs(g.kappaResolution / expected - 1)).toBeLessThan(0.1);
+    expect(Math.abs(g.kappaResolution / expected - 1)).toBeLessThan(0.04);
   });
 
-  it('with multiple scattering in liquid hydrogen: geometric pulls within 10 % of 1 at high momentum (5–20 GeV/c), wider at low momentum', () => {
+  it('with multiple scattering in liquid hydrogen: geometric pulls at high momentum (5–20 GeV/c) at their documented 1.08 ± 0.07 (scattering still adds there), wider at low momentum', () => {
+    // Seed 5: widths 6.4, 1.9, 1.08 in the three bins; the fit ignores scattering, so the top bin
+    // sits 8 % above 1 (statistical error 2.3 % for ~970 tracks): asserted at that value, so a fix or a regression shows.
     const s = fitLabSample({ tracks: 3000, momentumGeV: [0.3, 20], lengthsM: [0.5, 1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 5, medium: chamberMedium('liquid hydrogen') });
     const r = compareFitters(['geometric'], s, { momentumEdgesGeV: [0.3, 1, 5, 20] });
     const [low, , high] = r.byMomentum;
     expect(high.tracks).toBeGreaterThan(500);
-    expect(Math.abs(high.pullWidth - 1)).toBeLessThan(0.1);
+    expect(Math.abs(high.pullWidth - 1.08)).toBeLessThan(0.07);
     expect(low.pullWidth).toBeGreaterThan(1.5);
   });
 
-  it('on dipped tracks (tan λ ∈ [−1, 1]) every method is run as a helix fit: κ and tan λ pulls have width within 10 % of 1, p_T unbiased', () => {
+  it('on dipped tracks (tan λ ∈ [−1, 1]) every method is run as a helix fit: κ and tan λ pulls have width 1 ± 0.05, p unbiased within 0.2 %', () => {
+    // 2000 tracks: width statistical error 1.6 % (seed 12: 0.991 and 0.999; bias 0.02 %).
     const s = fitLabSample({ tracks: 2000, momentumGeV: [0.5, 5], lengthsM: [0.6, 1], hitsPerTrack: 40, sigmaM: 3e-4, sigmaZM: 1e-3, tanLambda: [-1, 1], fieldT: 1.5, seed: 12 });
     const [geo] = compareFitters(['geometric'], s).summary;
-    expect(Math.abs(geo.pullWidth - 1)).toBeLessThan(0.1);
-    expect(Math.abs(geo.tanLambdaPullWidth - 1)).toBeLessThan(0.1);
-    expect(Math.abs(geo.momentumBias)).toBeLessThan(0.01);
+    expect(Math.abs(geo.pullWidth - 1)).toBeLessThan(0.05);
+    expect(Math.abs(geo.tanLambdaPullWidth - 1)).toBeLessThan(0.05);
+    expect(Math.abs(geo.momentumBias)).toBeLessThan(0.002);
   });
 
   it('curvature error grows as L⁻² (fact of the trade): halving the length roughly quadruples σ(κ) at fixed hit count', () => {
     const s = fitLabSample({ tracks: 4000, momentumGeV: [3, 10], lengthsM: [0.5, 1], hitsPerTrack: 40, sigmaM: 3e-4, fieldT: 1.5, seed: 6 });
     const [short, long] = compareFitters(['geometric'], s).byLength;
-    expect(short.kappaResolution / long.kappaResolution).toBeGreaterThan(3.4);
-    expect(short.kappaResolution / long.kappaResolution).toBeLessThan(4.6);
+    // 4 ± 0.35: about three statistical errors of the ratio for 2000 tracks per length (seed 6: 4.17).
+    expect(short.kappaResolution / long.kappaResolution).toBeGreaterThan(3.65);
+    expect(short.kappaResolution / long.kappaResolution).toBeLessThan(4.35);
   });
 
   it('a method written by a user (three-point sagitta) is compared beside the built-ins; a throwing method counts as failures', () => {

@@ -5,7 +5,7 @@
  * %APPDATA%\jupyter\kernels; JUPYTER_DATA_DIR replaces the user data folder; JUPYTER_PATH folders
  * are searched first. PNG structure: PNG specification (W3C, 2nd edition, 2003).
  */
-import { execFileSync } from 'node:child_process';
+import { execFileSync, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -110,17 +110,34 @@ describe('installKernelspec / listKernelspecs / removeKernelspec', () => {
 });
 
 describe('installKernelspec into a folder the user may not write', () => {
-  it.skipIf(process.getuid?.() === 0)('says so and how to fix it instead of failing with a raw system error', async () => {
+  // Root may write anywhere, and CI runs as root: there the command runs as the unprivileged
+  // account 'nobody' (uid/gid 65534, present on Debian) through util-linux setpriv, so the
+  // permission check runs everywhere instead of being skipped.
+  it('says so and how to fix it instead of failing with a raw system error', async () => {
     const { chmodSync } = await import('node:fs');
-    const locked = path.join(scratch, 'locked');
+    const parent = mkdtempSync(path.join(tmpdir(), 'sagitta-kspec-locked-'));
+    chmodSync(parent, 0o755);
+    const locked = path.join(parent, 'locked');
     mkdirSync(locked);
-    chmodSync(locked, 0o500);
+    chmodSync(locked, 0o555);
     try {
-      expect(() => installKernelspec({ dir: path.join(locked, 'kernels') })).toThrow(/cannot write here \(permission denied\)/);
+      if (process.getuid?.() !== 0) {
+        expect(() => installKernelspec({ dir: path.join(locked, 'kernels') })).toThrow(/cannot write here \(permission denied\)/);
+        return;
+      }
+      const setpriv = ['/usr/bin/setpriv', '/bin/setpriv'].find((p) => existsSync(p));
+      if (!setpriv) throw new Error('running as root without util-linux setpriv: cannot drop to an unprivileged user for this test (apt-get install util-linux)');
+      const r = spawnSync(setpriv, ['--reuid=65534', '--regid=65534', '--clear-groups', process.execPath, path.join(root, 'kernel/bin/sagitta.js'), 'kernel', 'install', '--dir', path.join(locked, 'kernels')], { cwd: parent, env: { ...process.env, HOME: parent }, encoding: 'utf8', timeout: 60_000 });
+      expect(r.stderr).toMatch(/cannot write here \(permission denied\)/);
+      expect(r.stderr).toContain('--dir');
+      expect(r.stderr).not.toMatch(/EACCES|    at /);
+      expect(r.status).not.toBe(0);
+      expect(existsSync(path.join(locked, 'kernels'))).toBe(false);
     } finally {
       chmodSync(locked, 0o700);
+      rmSync(parent, { recursive: true, force: true });
     }
-  });
+  }, 60_000);
 });
 
 describe('installKernelspec under /sys (not writable, even for root)', () => {

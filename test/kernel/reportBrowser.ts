@@ -1,6 +1,7 @@
 import { existsSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import type { Page } from 'playwright-core';
+import { it } from 'vitest';
 import { chromiumPath, openChromium } from '../../kernel/report/index.js';
 
 /**
@@ -12,6 +13,12 @@ export function chromiumAvailable(): boolean {
   if (!ok && process.env.CI) throw new Error(`Chromium not found at ${chromiumPath()}: install Debian's chromium package (.ci/run does)`);
   return ok;
 }
+
+/**
+ * A test that needs Chromium: without it, an explicit skip outside CI (it shows as skipped, never
+ * as passed) and, under CI, a test that runs and fails in `chromiumAvailable`.
+ */
+export const browserIt = it.skipIf(!existsSync(chromiumPath()) && !process.env.CI);
 
 /** A report opened in headless Chromium, figures drawn; `problems` collects console errors and warnings, page errors and dialogs. */
 export interface OpenReport {

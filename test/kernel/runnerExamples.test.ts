@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { chromiumAvailable, openReport } from './reportBrowser.js';
+import { browserIt, chromiumAvailable, openReport } from './reportBrowser.js';
 import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -15,7 +15,8 @@ const validate = nbformatValidator();
 
 // STYLE.md §11: every example notebook is executed by the test suite and must finish without error.
 describe.each(examples)('example notebook %s', (name) => {
-  it('runs headlessly without error; executed notebook is valid nbformat 4.5; the report draws every figure with no console error', async () => {
+  let report: { dir: string; html: string } | undefined;
+  it('runs headlessly without error; executed notebook is valid nbformat 4.5; the report shows its provenance', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sagitta-example-'));
     const source = join(NOTEBOOKS, name);
     const before = readFileSync(source);
@@ -49,10 +50,15 @@ describe.each(examples)('example notebook %s', (name) => {
       expect(results, `${name} prints no sagitta-check line`).toBeDefined();
       check(results!);
     }
-    if (!chromiumAvailable()) return;
-    const report = await openReport(html);
+    report = { dir, html };
+  }, 300_000);
+  browserIt('its report draws every figure in headless Chromium with no console error', async () => {
+    expect(chromiumAvailable()).toBe(true);
+    if (report === undefined) throw new Error(`the headless run of ${name} above failed, so there is no report to open`);
+    const { dir, html } = report;
+    const opened = await openReport(html);
     try {
-      const { tab, problems } = report;
+      const { tab, problems } = opened;
       const counts = await tab.evaluate(() => ({
         figures: document.querySelectorAll('[data-sg-figure]').length,
         drawn: Array.from(document.querySelectorAll('[data-sg-figure]')).filter((n) => n.querySelector('svg.main-svg .cartesianlayer .trace') && n.getBoundingClientRect().height > 100).length,
@@ -67,7 +73,7 @@ describe.each(examples)('example notebook %s', (name) => {
       await tab.screenshot({ path: shot, fullPage: true });
       process.stdout.write(`${name}: report ${html}, screenshot ${shot}\n`);
     } finally {
-      await report.close();
+      await opened.close();
     }
   }, 300_000);
 });

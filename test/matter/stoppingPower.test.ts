@@ -32,25 +32,34 @@ describe('Bethe coefficient K', () => {
 });
 
 describe('massStoppingPower for heavy particles (Bethe)', () => {
-  it('matches NIST PSTAR protons in water within 0.2 % from 10 to 200 MeV', () => {
-    // Source: NIST PSTAR / ICRU 49, test/fixtures/pstar (rows marked (memory) are recalled values).
+  it('matches NIST PSTAR protons in water from 10 to 200 MeV at each row’s documented deviation (±0.05 points), all within 0.2 %', () => {
+    // Source: NIST PSTAR / ICRU 49, test/fixtures/pstar/water-protons.json (read from the database output).
+    // Measured deviations [%] (issue 15): the shell-corrected Bethe approaches PSTAR from below.
+    const documented: Record<number, number> = { 10: -0.173, 20: -0.077, 50: -0.010, 100: 0.014, 150: 0.011, 200: 0.018 };
+    let checked = 0;
     for (const row of pstar.rows.filter((r) => r.kineticEnergyMeV >= 10)) {
-      expect(rel(massStoppingPower(PROTON, material('water'), row.kineticEnergyMeV), row.stoppingPower), `T = ${row.kineticEnergyMeV} MeV`).toBeLessThan(0.002);
+      const d = 100 * (massStoppingPower(PROTON, material('water'), row.kineticEnergyMeV) / row.stoppingPower - 1);
+      expect(Math.abs(d - documented[row.kineticEnergyMeV]), `T = ${row.kineticEnergyMeV} MeV`).toBeLessThan(0.05);
+      expect(Math.abs(d)).toBeLessThan(0.2);
+      checked++;
     }
+    expect(checked).toBe(6);
   });
   it('is within 0.3 % of PSTAR at 1 MeV (−0.26 %, the fit–Bethe join; test/matter/lowEnergy.test.ts has every row)', () => {
     // Source: NIST PSTAR 1 MeV water total, 260.8 MeV cm²/g (test/fixtures/pstar/water.txt).
     const d = massStoppingPower(PROTON, material('water'), 1) / 260.8 - 1;
     expect(Math.abs(d + 0.0026)).toBeLessThan(1.5e-3);
   });
-  it('reproduces the PDG minimum-ionisation dE/dx within 0.2 % per material (emulsion: its documented +0.43 %)', () => {
+  it('reproduces the PDG minimum-ionisation dE/dx within 0.1 % per material (emulsion: its documented +0.43 %)', () => {
     // Source: PDG RPP "Atomic and Nuclear Properties", test/fixtures/pdg-materials/min-ionization.json
-    // (rows marked (memory) there were recalled). Emulsion sits +0.43 % high (issue 15), asserted ±0.1.
+    // (rows marked (memory) there were recalled). Measured (issue 15): −0.08 … −0.01 % for every material
+    // but emulsion, which sits +0.43 % high (unverified recalled value), asserted ±0.05. The printed
+    // four digits round to ±0.03 %.
     let checked = 0;
     for (const row of pdgMin.rows) {
       const d = minimumIonisation(row.material) / row.minDedx - 1;
-      if (row.material === 'nuclear-emulsion') expect(Math.abs(d - 0.0043), row.material).toBeLessThan(1e-3);
-      else expect(Math.abs(d), row.material).toBeLessThan(2e-3);
+      if (row.material === 'nuclear-emulsion') expect(Math.abs(d - 0.0043), row.material).toBeLessThan(5e-4);
+      else expect(Math.abs(d), row.material).toBeLessThan(1e-3);
       checked++;
     }
     expect(checked).toBe(pdgMin.rows.length);
@@ -90,8 +99,16 @@ describe('electron and positron stopping (ICRU 37 collision + screened Bethe–H
     const d = collisionStoppingPower(ELECTRON, material('water'), 1) / estar.rows[0].collision - 1;
     expect(Math.abs(d + 0.005)).toBeLessThan(1.5e-3);
   });
-  it('the ESTAR collision values at 10 and 100 MeV (water) agree within 0.5 %', () => {
-    for (const r of estar.rows.slice(1)) expect(rel(collisionStoppingPower(ELECTRON, material('water'), r.kineticEnergyMeV), r.collision), `${r.kineticEnergyMeV} MeV`).toBeLessThan(5e-3);
+  it('the ESTAR collision values at 10 and 100 MeV (water) at their documented +0.37 % and +0.04 % (±0.1 points)', () => {
+    // Source: NIST ESTAR / ICRU 37, test/fixtures/estar/water-electrons.json (read from the database output).
+    const documented: Record<number, number> = { 10: 0.37, 100: 0.04 };
+    let checked = 0;
+    for (const r of estar.rows.slice(1)) {
+      const d = 100 * (collisionStoppingPower(ELECTRON, material('water'), r.kineticEnergyMeV) / r.collision - 1);
+      expect(Math.abs(d - documented[r.kineticEnergyMeV]), `${r.kineticEnergyMeV} MeV`).toBeLessThan(0.1);
+      checked++;
+    }
+    expect(checked).toBe(2);
   });
   it('positrons (Bhabha) lose slightly less than electrons (Møller) at 1 MeV in water (ICRU 37: ≈ 1.80 vs 1.85)', () => {
     // ICRU 37 tables give e⁺ collision stopping a few per cent below e⁻ at 1 MeV in light media (memory).

@@ -94,8 +94,10 @@ describe('decay at rest of a stopping muon', () => {
       sources: [{ kind: 'stopping', events: 50, species: MUON_PLUS, minDepthM: 0.2, maxDepthM: 0.4, originM: [-0.9, 0, 0], direction: [1, 0, 0], spotSigmaM: 0, divergenceRad: 0 }],
     };
     const t = simulateChamber(config, 9).truth;
+    let muons = 0;
     for (let i = 0; i < t.length; i++) {
       if (t.species[i] !== 'mu+') continue;
+      muons++;
       expect(t.end[i]).toBe('stopped');
       expect(t.pathM[i]).toBeGreaterThan(0.2 - 1e-6);
       expect(t.pathM[i]).toBeLessThan(0.4 + 1e-6);
@@ -106,6 +108,8 @@ describe('decay at rest of a stopping muon', () => {
       const e = Math.hypot(Math.hypot(t.px[j], t.py[j], t.pz[j]) * 1e3, 0.51099895);
       expect(e).toBeLessThanOrEqual(52.83);
     }
+    // The loop above asserts per muon: it must have run once per event (50 stopping μ⁺).
+    expect(muons).toBe(50);
   });
 });
 
