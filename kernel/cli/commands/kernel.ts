@@ -1,4 +1,5 @@
 import { Command, Option } from 'commander';
+import { usage } from '../usage.js';
 
 /**
  * `sagitta kernel install|remove|list`: the notebook kernelspec, with no Python involved.
@@ -25,7 +26,8 @@ $XDG_DATA_HOME/jupyter/kernels), macOS ~/Library/Jupyter/kernels, Windows %APPDA
 JUPYTER_DATA_DIR replaces the data folder if set. kernel.json starts this Node.js binary with this
 package's kernel entry, so reinstall after moving the package or changing Node.js.`)
     .action(async (opts: { scope: 'user' | 'system'; dir?: string; id: string; label: string; interrupt?: 'signal' | 'message' }) => {
-      const { installKernelspec } = await import('../../kernelspec/kernelspec.js');
+      const { installKernelspec, checkId, checkKernelsDir } = await import('../../kernelspec/kernelspec.js');
+      usage(() => [checkId(opts.id), opts.dir !== undefined && checkKernelsDir(opts.dir, true)]);
       const dir = installKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id, displayName: opts.label, interruptMode: opts.interrupt });
       process.stdout.write(`installed kernel "${opts.id}" in ${dir}\n`);
     });
@@ -37,7 +39,8 @@ package's kernel entry, so reinstall after moving the package or changing Node.j
     .option('--dir <folder>', 'kernels folder it was installed into with --dir')
     .option('--id <name>', 'folder name of the kernel', 'sagitta')
     .action(async (opts: { scope: 'user' | 'system'; dir?: string; id: string }) => {
-      const { removeKernelspec } = await import('../../kernelspec/kernelspec.js');
+      const { removeKernelspec, checkId, checkKernelsDir } = await import('../../kernelspec/kernelspec.js');
+      usage(() => [checkId(opts.id), opts.dir !== undefined && checkKernelsDir(opts.dir, false)]);
       const dir = removeKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id });
       process.stdout.write(`removed ${dir}\n`);
     });
@@ -48,8 +51,9 @@ package's kernel entry, so reinstall after moving the package or changing Node.j
     .option('--dir <folder...>', 'also look in these kernels folders (first)')
     .option('--json', 'print JSON instead of a table')
     .action(async (opts: { dir?: string[]; json?: boolean }) => {
-      const { listKernelspecs } = await import('../../kernelspec/kernelspec.js');
+      const { listKernelspecs, checkKernelsDir } = await import('../../kernelspec/kernelspec.js');
       const { currentPlatformEnv, kernelSearchPath } = await import('../../kernelspec/paths.js');
+      usage(() => (opts.dir ?? []).map((d) => checkKernelsDir(d, true)));
       const kernels = listKernelspecs(currentPlatformEnv(), opts.dir ?? []);
       if (opts.json) {
         process.stdout.write(`${JSON.stringify(kernels, null, 2)}\n`);
