@@ -4,6 +4,7 @@ import { idColumnText } from '../../lib/io/hitIds.js';
 import { material as lookupMaterial } from '../../lib/matter/materials.js';
 import { particle as lookupParticle } from '../../lib/particles.js';
 import { measureTracks } from '../../lib/track/measureTracks.js';
+import { checkHitOrder } from '../../lib/track/hitOrderCheck.js';
 import { resolutionBudget, resolutionBudgetColumns } from '../../lib/track/resolutionBudget.js';
 import { trackTableColumns } from '../../lib/track/trackTableColumns.js';
 import type { BatchJob, JobOutput } from './batchJob.js';
@@ -28,6 +29,7 @@ export const FIT_JOB: BatchJob<FitJobOptions> = {
   name: 'fit',
   run(hits: HitTable, o: FitJobOptions): JobOutput {
     const tracks = measureTracks(hits, { fieldT: o.fieldT, method: o.method, chargeMagnitude: o.chargeMagnitude, hitErrorM: o.hitErrorM });
+    checkHitOrder(tracks);
     const base = trackTableColumns(tracks);
     let columns: Column[] = [...base.columns];
     let samples: Record<string, Float64Array> | undefined;
