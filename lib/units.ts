@@ -103,6 +103,8 @@ export function quantity(text: string, dimension: Dimension, options: QuantityOp
     const factor = DIRECT_UNITS[dimension][direct[2].replace(/^[µμ]/, 'u')];
     if (factor !== undefined) return Number(direct[1]) * factor;
   }
+  // mathjs multiplies side by side ("1.5 T 2" would be 3 T): a number after a unit word is refused.
+  if (UNIT_THEN_NUMBER.test(s)) throw msg.badQuantity(text, what, spec.example, where);
   const math = mathjs();
   let u: Unit;
   try {
@@ -113,8 +115,19 @@ export function quantity(text: string, dimension: Dimension, options: QuantityOp
     throw msg.badQuantity(text, what, spec.example, where);
   }
   if (!u.equalBase(math.unit(spec.internal))) throw msg.wrongDimension(text, what, spec.label, spec.example, where);
-  return u.toNumber(spec.internal);
+  let value: unknown;
+  try {
+    value = u.toNumber(spec.internal);
+  } catch {
+    // A complex value ("sqrt(-1) T") or another non-real quantity.
+    throw msg.badQuantity(text, what, spec.example, where);
+  }
+  if (typeof value !== 'number' || !Number.isFinite(value)) throw msg.badQuantity(text, what, spec.example, where);
+  return value;
 }
+
+/** A unit word followed by a space and a number, as in "1.5 T 2" (not an exponent: "1e3 T" has no space). */
+const UNIT_THEN_NUMBER = /[a-zA-Zµμ°Ω]\s+[+-]?[\d.]/;
 
 /** "1.5 T" | "15 kG" | "1500 mT" → tesla. */
 export const fieldTesla = (text: string, options?: QuantityOptions): number => quantity(text, 'field', options);

@@ -1,14 +1,15 @@
 import type { Command } from 'commander';
 import { particle as lookupParticle, type Particle } from '../../../lib/particles.js';
 import { arealDensityGcm2, energyMeV, lengthMetres, momentumGeV } from '../../../lib/units.js';
-import { msg } from '../../../lib/errors.js';
+import { msg, SagittaError } from '../../../lib/errors.js';
+import { UsageError } from '../usage.js';
+import { readInputFile } from '../../../lib/io/readInputFile.js';
 import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings.js';
 import { material as lookupMaterial, type Material } from '../../../lib/matter/materials.js';
 import { kinematicsFromKinetic, kineticFromMomentum } from '../../../lib/matter/kinematics.js';
 import { isElectronLike, massStoppingPower } from '../../../lib/matter/stoppingPower.js';
 import { stoppingRegime } from '../../../lib/matter/electronicStopping.js';
 import { parseMaterialFile } from '../../../lib/matter/materialFile.js';
-import { existsSync, readFileSync } from 'node:fs';
 import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV } from '../../../lib/matter/range.js';
 import { rangeTable } from '../../../lib/matter/rangeTable.js';
 
@@ -97,10 +98,22 @@ Examples:
   sagitta range --particle proton --material silicon --table --from "1 MeV" --to "1 GeV" --points 13
   sagitta range --particle alpha --material-file my-gas.txt --energy "5.3 MeV"`)
     .action((options: RangeCommandOptions) => {
-      const { stdout, warnings } = runRange(options);
+      // Every refusal here is about an option's value (exit 2), except a material file that cannot be used (exit 1).
+      const { stdout, warnings } = usageUnlessInput(() => runRange(options));
       process.stdout.write(stdout);
       for (const w of warnings) process.stderr.write(`sagitta range: warning: ${w.message}\n`);
     });
+}
+
+const INPUT_CODES = new Set(['BAD_MATERIAL_FILE', 'FILE_NOT_FOUND', 'CANNOT_READ']);
+
+function usageUnlessInput<T>(body: () => T): T {
+  try {
+    return body();
+  } catch (err) {
+    if (err instanceof SagittaError && !INPUT_CODES.has(err.code)) throw new UsageError(err);
+    throw err;
+  }
 }
 
 const num = (x: number): number | null => (Number.isFinite(x) ? x : null);
@@ -163,9 +176,12 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
   let rangeGiven: number | undefined;
   if (options.energy !== undefined) {
     kineticMeV = energyMeV(options.energy, { what: '--energy' });
+    if (!(kineticMeV > 0)) throw msg.badArgument('--energy', options.energy, 'a positive kinetic energy, e.g. "100 MeV"');
     if (!Number.isFinite(massStoppingPower(p, m, kineticMeV)) || !Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--energy', options.energy, validityText(p));
   } else if (options.momentum !== undefined) {
-    kineticMeV = kineticFromMomentum(p, momentumGeV(options.momentum, { what: '--momentum' }) * 1000);
+    const pGeV = momentumGeV(options.momentum, { what: '--momentum' });
+    if (!(pGeV > 0)) throw msg.badArgument('--momentum', options.momentum, 'a positive momentum (its magnitude, e.g. "400 MeV/c"; the charge comes from --particle)');
+    kineticMeV = kineticFromMomentum(p, pGeV * 1000);
     if (!Number.isFinite(massStoppingPower(p, m, kineticMeV)) || !Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--momentum', options.momentum, validityText(p));
   } else {
     rangeGiven = rangeGcm2FromText(options.range as string, m);
@@ -182,8 +198,7 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
 }
 
 function readMaterialFile(path: string): Material {
-  if (!existsSync(path)) throw msg.fileNotFound(path);
-  return parseMaterialFile(readFileSync(path, 'utf8'), path);
+  return parseMaterialFile(readInputFile(path, 'the material file').toString('utf8'), path);
 }
 
 const g = (x: number | null, digits = 5): string => (x === null ? 'n/a' : Number(x.toPrecision(digits)).toString());
