@@ -161,6 +161,8 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
     if (!Number.isInteger(points) || points < 2 || points > 100_000) throw msg.badArgument('--points', options.points, 'an integer from 2 to 100000');
     const fromMeV = options.from !== undefined ? energyMeV(options.from, { what: '--from' }) : rangeCutoffMeV(p);
     const toMeV = energyMeV(options.to ?? '1 GeV', { what: '--to' });
+    if (!(fromMeV > 0)) throw msg.badArgument('--from', options.from, 'a positive kinetic energy below --to, e.g. "1 MeV"');
+    if (!(toMeV > fromMeV)) throw msg.badArgument('--to', options.to ?? '1 GeV', `a kinetic energy above --from (${Number(fromMeV.toPrecision(4))} MeV), e.g. "1 GeV"`);
     const t = rangeTable(p, m, { fromMeV, toMeV, points });
     const rows: RangeRow[] = [];
     for (let i = 0; i < t.kineticEnergyMeV.length; i++) rows.push(row(p, m, t.kineticEnergyMeV[i], t.csdaRangeGcm2[i]));
