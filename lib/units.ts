@@ -148,6 +148,14 @@ export const arealDensityGcm2 = (text: string, options?: QuantityOptions): numbe
  * @example metresPerUnit('cm') // 0.01
  */
 export function metresPerUnit(unit: string, where: SourceLocation = {}): number {
+  // Named by a command-line flag ("--length-unit") rather than a table column: say it as a flag.
+  if (typeof where.column === 'string' && where.column.startsWith('--')) {
+    try {
+      return metresPerUnit(unit);
+    } catch {
+      throw msg.badArgument(where.column, unit, 'a length unit such as um, mm, cm or m');
+    }
+  }
   const name = unit.trim().replace(/^µ|^μ/, 'u');
   const direct = DIRECT_UNITS.length[name];
   if (direct !== undefined) return direct;
