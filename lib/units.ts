@@ -185,6 +185,10 @@ export function pointMetres(text: string, options: QuantityOptions = {}): [numbe
     return [Number(parts[0]) * f, Number(parts[1]) * f, Number(parts[2]) * f];
   }
   if (parts.length === 6) return [0, 1, 2].map((k) => lengthMetres(`${parts[2 * k]} ${parts[2 * k + 1]}`, { ...options, what })) as [number, number, number];
+  // "1 2 cm": a unit after fewer than three numbers.
+  if (parts.length >= 2 && parts.length <= 3 && !number.test(parts[parts.length - 1]) && parts.slice(0, -1).every((p) => number.test(p))) {
+    throw msg.badQuantity(text, `${what} (three coordinates and a unit)`, '-55 0 0 cm', options.where ?? {});
+  }
   if (parts.length === 3 && !parts.every((p) => number.test(p))) return parts.map((p) => lengthMetres(p, { ...options, what })) as [number, number, number];
   if (parts.length === 3) throw msg.missingUnit(text, what, '-55 0 0 cm', options.where ?? {});
   throw msg.badQuantity(text, what, '-55 0 0 cm', options.where ?? {});

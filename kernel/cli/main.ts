@@ -63,7 +63,10 @@ export async function main(argv: readonly string[]): Promise<number> {
  * A reader that stops early (`sagitta range --table | head -1`) closes the pipe: every command then
  * ends quietly with 0, removing its temporary files, instead of printing a stack trace.
  */
+let closedOutputWatched = false;
 function quietOnClosedOutput(): void {
+  if (closedOutputWatched) return;
+  closedOutputWatched = true;
   for (const stream of [process.stdout, process.stderr]) {
     stream.on('error', (err: NodeJS.ErrnoException) => {
       if (err.code !== 'EPIPE') throw err;

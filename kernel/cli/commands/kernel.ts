@@ -26,9 +26,9 @@ $XDG_DATA_HOME/jupyter/kernels), macOS ~/Library/Jupyter/kernels, Windows %APPDA
 JUPYTER_DATA_DIR replaces the data folder if set. kernel.json starts this Node.js binary with this
 package's kernel entry, so reinstall after moving the package or changing Node.js.`)
     .action(async (opts: { scope: 'user' | 'system'; dir?: string; id: string; label: string; interrupt?: 'signal' | 'message' }) => {
-      const { installKernelspec, checkId, checkKernelsDir } = await import('../../kernelspec/kernelspec.js');
-      usage(() => [checkId(opts.id), opts.dir !== undefined && checkKernelsDir(opts.dir, true)]);
-      const dir = installKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id, displayName: opts.label, interruptMode: opts.interrupt });
+      const { installKernelspec } = await import('../../kernelspec/kernelspec.js');
+      // Refusals about --id and --dir (a bad name, a folder of another kernel, no write access) exit 2.
+      const dir = usage(() => installKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id, displayName: opts.label, interruptMode: opts.interrupt }));
       process.stdout.write(`installed kernel "${opts.id}" in ${dir}\n`);
     });
 
@@ -39,9 +39,8 @@ package's kernel entry, so reinstall after moving the package or changing Node.j
     .option('--dir <folder>', 'kernels folder it was installed into with --dir')
     .option('--id <name>', 'folder name of the kernel', 'sagitta')
     .action(async (opts: { scope: 'user' | 'system'; dir?: string; id: string }) => {
-      const { removeKernelspec, checkId, checkKernelsDir } = await import('../../kernelspec/kernelspec.js');
-      usage(() => [checkId(opts.id), opts.dir !== undefined && checkKernelsDir(opts.dir, false)]);
-      const dir = removeKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id });
+      const { removeKernelspec } = await import('../../kernelspec/kernelspec.js');
+      const dir = usage(() => removeKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id }));
       process.stdout.write(`removed ${dir}\n`);
     });
 

@@ -70,7 +70,7 @@ function wrap(text: string, width: number): string {
 export function runSimulate(scenario: string | undefined, options: SimulateCommandOptions): { stdout: string; stderr: string } {
   if (options.schema) return { stdout: JSON.stringify(SCENARIO_SCHEMA, null, 2) + '\n', stderr: '' };
   const seed = usage(() => {
-    if (scenario === undefined) throw msg.badArgument('scenario', undefined, 'a scenario file, e.g. sagitta simulate run.json --seed 7 (or --schema)');
+    if (scenario === undefined) throw msg.badArgument('<scenario>', '(none given)', 'a scenario file, e.g. sagitta simulate run.json --seed 7 (or --schema)');
     const seedText = options.seed.trim();
     if (!/^\d+$/.test(seedText) || !(Number(seedText) <= 0xffffffff)) throw msg.badArgument('--seed', options.seed, 'a whole number from 0 to 4294967295, e.g. --seed 7');
     return Number(seedText);
