@@ -101,7 +101,11 @@ export function quantity(text: string, dimension: Dimension, options: QuantityOp
   const direct = DIRECT.exec(s);
   if (direct) {
     const factor = DIRECT_UNITS[dimension][direct[2].replace(/^[µμ]/, 'u')];
-    if (factor !== undefined) return Number(direct[1]) * factor;
+    if (factor !== undefined) {
+      const value = Number(direct[1]) * factor;
+      if (!Number.isFinite(value)) throw msg.badQuantity(text, what, spec.example, where);
+      return value;
+    }
   }
   // mathjs multiplies side by side ("1.5 T 2" would be 3 T): a number after a unit word is refused.
   if (UNIT_THEN_NUMBER.test(s)) throw msg.badQuantity(text, what, spec.example, where);
