@@ -1,3 +1,4 @@
+import { existsSync } from 'node:fs';
 import { msg } from '../errors.js';
 import { recordInput } from '../provenance.js';
 import { readInputFile } from './readInputFile.js';
@@ -13,6 +14,7 @@ export const HIT_FILE_FORMATS = ['.csv', '.tsv', '.txt', '.jsonl', '.ndjson'] as
  * @example readHits('notebooks/data/run.csv', { lengthUnit: 'mm' })
  */
 export function readHits(path: string, options: ReadHitsOptions = {}): HitTable {
+  if (!existsSync(path)) throw msg.fileNotFound(path);
   const lower = path.toLowerCase();
   const format = HIT_FILE_FORMATS.find((ext) => lower.endsWith(ext));
   if (format === undefined) throw msg.unknownFormat(path, HIT_FILE_FORMATS);
