@@ -12,12 +12,12 @@ export { michelMaxEnergyMeV, sampleMichelFraction } from './michel.js';
 export { deltaRayRatePerM, sampleDeltaRayKineticMeV, deltaRayCosTheta } from './deltaRay.js';
 export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays.js';
 export {
-  simulateChamber,
+  simulateChamber, simulateChamberInParts, type SimulationTotals,
   type SimulationConfig, type SimulationResult, type MeasurementModel, type TransportSettings, type Source,
   type BeamSource, type BurstSource, type CosmicSource, type StoppingSource, type TruthTable, type HitTruth,
 } from './simulate.js';
 export { SCENARIO_SCHEMA } from './scenarioSchema.js';
 export { readScenario, parseScenario, resolveScenario, SCENARIO_DEFAULTS } from './scenario.js';
-export { formatHitsCsv, formatTruthCsv, formatRunRecord, TRUTH_CSV_COLUMNS } from './simulationCsv.js';
+export { formatHitsCsv, formatTruthCsv, formatRunRecord, formatRunRecordTotals, TRUTH_CSV_COLUMNS, type CsvPartOptions } from './simulationCsv.js';
 export { truthToDataFrame } from './truthFrame.js';
 export { readTruth } from './readTruth.js';

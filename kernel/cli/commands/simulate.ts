@@ -4,8 +4,11 @@ import { msg } from '../../../lib/errors.js';
 import { consumeWarnings } from '../../../lib/warnings.js';
 import { readScenario } from '../../../lib/simulate/scenario.js';
 import { SCENARIO_SCHEMA } from '../../../lib/simulate/scenarioSchema.js';
-import { simulateChamber } from '../../../lib/simulate/simulate.js';
-import { formatHitsCsv, formatRunRecord, formatTruthCsv } from '../../../lib/simulate/simulationCsv.js';
+import { simulateChamberInParts, type SimulationTotals } from '../../../lib/simulate/simulate.js';
+import { formatHitsCsv, formatRunRecordTotals, formatTruthCsv } from '../../../lib/simulate/simulationCsv.js';
+
+/** Events simulated and written per part: a few MB of hits, whatever the scenario's event count. */
+const EVENTS_PER_PART = 500;
 import { planOutputs, type NamedPath } from '../../batch/outputPlan.js';
 import { OutputSet } from '../../batch/outputSet.js';
 import { usage } from '../usage.js';
@@ -85,18 +88,23 @@ export function runSimulate(scenario: string | undefined, options: SimulateComma
     // Every output checked before the run: none may be the scenario or another output, in any spelling.
     return planOutputs([{ flag: '<scenario>', path: scenario! }], wanted);
   });
-  const result = simulateChamber(config, seed);
   const [out, ...rest] = outputs;
   const truth = options.truth !== undefined ? rest[0] : undefined;
   const record = rest[rest.length - 1];
   const files: Record<string, string> = { hits: basename(out.path), scenario: basename(scenario!) };
   if (truth) files.truth = basename(truth.path);
-  // Hits, truth and run record appear together or not at all (temporary files renamed in one step).
+  // Streamed to the temporary files in parts of whole events (memory stays bounded for any event
+  // count); hits, truth and run record are renamed into place together at the end, or not at all.
   const set = new OutputSet(outputs);
+  let totals: SimulationTotals;
   try {
-    set.write(out.flag, formatHitsCsv(result));
-    if (truth) set.write(truth.flag, formatTruthCsv(result));
-    set.write(record.flag, formatRunRecord(result, files));
+    let first = true;
+    totals = simulateChamberInParts(config, seed, (part) => {
+      set.write(out.flag, formatHitsCsv(part, { header: first }));
+      if (truth) set.write(truth.flag, formatTruthCsv(part, { header: first }));
+      first = false;
+    }, EVENTS_PER_PART);
+    set.write(record.flag, formatRunRecordTotals(totals, files));
     set.commit();
   } catch (err) {
     set.abandon();
@@ -105,7 +113,7 @@ export function runSimulate(scenario: string | undefined, options: SimulateComma
   const warnings = consumeWarnings();
   const written = outputs.map((o) => o.path).join(', ');
   return {
-    stdout: `simulated ${result.events} events, ${result.truth.length} particles, ${result.hits.length} hits (scenario ${config.name}, seed ${seed}) → ${written}\n`,
+    stdout: `simulated ${totals.events} events, ${totals.particles} particles, ${totals.hitRows} hits (scenario ${config.name}, seed ${seed}) → ${written}\n`,
     stderr: warnings.map((w) => `sagitta simulate: warning: ${w.message}\n`).join(''),
   };
 }
