@@ -11,10 +11,12 @@ export { hitTableFromColumns, type ColumnValues } from './io/hitTableFromColumns
 export { gatherRows } from './io/indexTracks.js';
 export { parseCsvRows } from './io/parseHitsCsv.js';
 export { jsonlFields, parseHitsJsonl, parseJsonlRows } from './io/parseHitsJsonl.js';
+export { inputError, readInputFile } from './io/readInputFile.js';
 export { writeFileAtomic } from './io/writeFileAtomic.js';
 export { checkKnobName, knobKind, knobSnapshot, readKnobValue, supplyKnobs, type KnobRecord } from './knob.js';
 export { parseMaterialFile } from './matter/materialFile.js';
 export { isElectronLike } from './matter/stoppingPower.js';
 export { PLOTLY_MIME } from './plot/figure.js';
 export { provenanceSnapshot, type ProvenanceSnapshot } from './provenance.js';
+export { checkHitOrder } from './track/hitOrderCheck.js';
 export { metresPerUnit } from './units.js';

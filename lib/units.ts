@@ -101,8 +101,14 @@ export function quantity(text: string, dimension: Dimension, options: QuantityOp
   const direct = DIRECT.exec(s);
   if (direct) {
     const factor = DIRECT_UNITS[dimension][direct[2].replace(/^[µμ]/, 'u')];
-    if (factor !== undefined) return Number(direct[1]) * factor;
+    if (factor !== undefined) {
+      const value = Number(direct[1]) * factor;
+      if (!Number.isFinite(value)) throw msg.badQuantity(text, what, spec.example, where);
+      return value;
+    }
   }
+  // mathjs multiplies side by side ("1.5 T 2" would be 3 T): a number after a unit word is refused.
+  if (UNIT_THEN_NUMBER.test(s)) throw msg.badQuantity(text, what, spec.example, where);
   const math = mathjs();
   let u: Unit;
   try {
@@ -113,8 +119,19 @@ export function quantity(text: string, dimension: Dimension, options: QuantityOp
     throw msg.badQuantity(text, what, spec.example, where);
   }
   if (!u.equalBase(math.unit(spec.internal))) throw msg.wrongDimension(text, what, spec.label, spec.example, where);
-  return u.toNumber(spec.internal);
+  let value: unknown;
+  try {
+    value = u.toNumber(spec.internal);
+  } catch {
+    // A complex value ("sqrt(-1) T") or another non-real quantity.
+    throw msg.badQuantity(text, what, spec.example, where);
+  }
+  if (typeof value !== 'number' || !Number.isFinite(value)) throw msg.badQuantity(text, what, spec.example, where);
+  return value;
 }
+
+/** A unit word followed by a space and a number, as in "1.5 T 2" (not an exponent: "1e3 T" has no space). */
+const UNIT_THEN_NUMBER = /[a-zA-Zµμ°Ω]\s+[+-]?[\d.]/;
 
 /** "1.5 T" | "15 kG" | "1500 mT" → tesla. */
 export const fieldTesla = (text: string, options?: QuantityOptions): number => quantity(text, 'field', options);
@@ -135,6 +152,14 @@ export const arealDensityGcm2 = (text: string, options?: QuantityOptions): numbe
  * @example metresPerUnit('cm') // 0.01
  */
 export function metresPerUnit(unit: string, where: SourceLocation = {}): number {
+  // Named by a command-line flag ("--length-unit") rather than a table column: say it as a flag.
+  if (typeof where.column === 'string' && where.column.startsWith('--')) {
+    try {
+      return metresPerUnit(unit);
+    } catch {
+      throw msg.badArgument(where.column, unit, 'a length unit such as um, mm, cm or m');
+    }
+  }
   const name = unit.trim().replace(/^µ|^μ/, 'u');
   const direct = DIRECT_UNITS.length[name];
   if (direct !== undefined) return direct;
@@ -164,6 +189,10 @@ export function pointMetres(text: string, options: QuantityOptions = {}): [numbe
     return [Number(parts[0]) * f, Number(parts[1]) * f, Number(parts[2]) * f];
   }
   if (parts.length === 6) return [0, 1, 2].map((k) => lengthMetres(`${parts[2 * k]} ${parts[2 * k + 1]}`, { ...options, what })) as [number, number, number];
+  // "1 2 cm": a unit after fewer than three numbers.
+  if (parts.length >= 2 && parts.length <= 3 && !number.test(parts[parts.length - 1]) && parts.slice(0, -1).every((p) => number.test(p))) {
+    throw msg.badQuantity(text, `${what} (three coordinates and a unit)`, '-55 0 0 cm', options.where ?? {});
+  }
   if (parts.length === 3 && !parts.every((p) => number.test(p))) return parts.map((p) => lengthMetres(p, { ...options, what })) as [number, number, number];
   if (parts.length === 3) throw msg.missingUnit(text, what, '-55 0 0 cm', options.where ?? {});
   throw msg.badQuantity(text, what, '-55 0 0 cm', options.where ?? {});

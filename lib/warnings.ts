@@ -15,6 +15,7 @@ export const WARNING_CODES = Object.freeze({
   RANGE_TABLE_CLAMPED: 'a requested table range was narrowed to where the formula holds',
   APPROXIMATION: 'a result rests on an approximation beyond its stated accuracy',
   SIM_TRACK_LIMIT: 'the simulator dropped particles beyond its per-event limit',
+  HIT_ORDER: 'the hits of a track do not run one way along it, so the charge read from their order may be wrong',
   SPARSE_BINS: 'a χ² fit to a histogram uses bins with fewer than 5 entries, where it is biased; a Poisson likelihood fit is not',
 } as const);
 

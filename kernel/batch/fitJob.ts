@@ -1,5 +1,5 @@
 import { type Column, type ColumnTable, type HitTable, material as lookupMaterial, measureTracks, particle as lookupParticle, resolutionBudget, resolutionBudgetColumns, trackTableColumns } from '../../lib/index.js';
-import { idColumnText } from '../../lib/internal.js';
+import { checkHitOrder, idColumnText } from '../../lib/internal.js';
 import type { BatchJob, JobOutput } from './batchJob.js';
 
 /** What `sagitta fit` asks of every chunk; plain data, so it can be sent to a worker. */
@@ -22,6 +22,7 @@ export const FIT_JOB: BatchJob<FitJobOptions> = {
   name: 'fit',
   run(hits: HitTable, o: FitJobOptions): JobOutput {
     const tracks = measureTracks(hits, { fieldT: o.fieldT, method: o.method, chargeMagnitude: o.chargeMagnitude, hitErrorM: o.hitErrorM });
+    checkHitOrder(tracks);
     const base = trackTableColumns(tracks);
     let columns: Column[] = [...base.columns];
     let samples: Record<string, Float64Array> | undefined;

@@ -30,6 +30,7 @@ export async function buildProgram(argv: readonly string[] = []): Promise<Comman
 }
 
 export async function main(argv: readonly string[]): Promise<number> {
+  quietOnClosedOutput();
   const program = await buildProgram(argv);
   try {
     await program.parseAsync(argv as string[]);
@@ -55,6 +56,23 @@ export async function main(argv: readonly string[]): Promise<number> {
       return EXIT.failed;
     }
     throw err;
+  }
+}
+
+/**
+ * A reader that stops early (`sagitta range --table | head -1`) closes the pipe: every command then
+ * ends quietly with 0, removing its temporary files, instead of printing a stack trace.
+ */
+let closedOutputWatched = false;
+function quietOnClosedOutput(): void {
+  if (closedOutputWatched) return;
+  closedOutputWatched = true;
+  for (const stream of [process.stdout, process.stderr]) {
+    stream.on('error', (err: NodeJS.ErrnoException) => {
+      if (err.code !== 'EPIPE') throw err;
+      removeAllTemps();
+      process.exit(EXIT.ok);
+    });
   }
 }
 

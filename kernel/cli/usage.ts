@@ -8,9 +8,12 @@ import { SagittaError } from '../../lib/index.js';
  * error and exits with 2; errors raised later (reading the input, running) exit with 1.
  */
 export class UsageError extends Error {
+  /** The catalogue code of the refusal (BAD_ARGUMENT, OUTPUT_CLASH, …), as on the SagittaError. */
+  readonly code: string;
   constructor(readonly cause: SagittaError) {
     super(cause.message);
     this.name = 'UsageError';
+    this.code = cause.code;
   }
 }
 

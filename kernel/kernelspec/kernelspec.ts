@@ -2,7 +2,7 @@
  * Installs, removes and lists kernelspecs with no Python: the files a front end needs are plain
  * JSON and images, written here directly.
  */
-import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { msg } from '../../lib/internal.js';
@@ -53,17 +53,38 @@ export function kernelJson(displayName = DEFAULT_DISPLAY_NAME, interruptMode = d
   };
 }
 
-const ID_PATTERN = /^[a-zA-Z0-9._-]+$/;
+/** A kernel id is one folder name: it starts with a letter or digit, so "." and ".." (and hidden names) never pass. */
+const ID_PATTERN = /^[a-zA-Z0-9][a-zA-Z0-9._-]*$/;
 
-function checkId(id: string): string {
-  if (!ID_PATTERN.test(id)) throw msg.badArgument('--id', id, 'letters, digits, ".", "_" or "-" (it becomes a folder name)');
+export function checkId(id: string): string {
+  if (!ID_PATTERN.test(id) || id.length > 100) throw msg.badArgument('--id', id, 'a folder name of letters, digits, ".", "_" or "-" that starts with a letter or digit, e.g. sagitta');
   return id;
+}
+
+/** The kernels folder given with --dir must be a folder (or not exist yet, for install). */
+export function checkKernelsDir(dir: string, mayBeMissing: boolean): string {
+  const abs = path.resolve(dir);
+  let isDir: boolean | undefined;
+  try {
+    isDir = statSync(abs).isDirectory();
+  } catch {
+    isDir = undefined;
+  }
+  if (isDir === false) throw msg.badArgument('--dir', dir, 'a kernels folder; this path is a file');
+  if (isDir === undefined && !mayBeMissing) throw msg.badArgument('--dir', dir, 'an existing kernels folder');
+  return abs;
 }
 
 /** Writes `<kernels dir>/<id>/` (kernel.json and logos), replacing an older copy; returns the folder. */
 export function installKernelspec(options: InstallOptions = {}): string {
   const id = checkId(options.id ?? DEFAULT_KERNEL_ID);
-  const kernelsDir = options.dir ? path.resolve(options.dir) : kernelsDirFor(options.scope ?? 'user', options.platformEnv ?? currentPlatformEnv());
+  const kernelsDir = options.dir ? checkKernelsDir(options.dir, true) : kernelsDirFor(options.scope ?? 'user', options.platformEnv ?? currentPlatformEnv());
+  const existing = path.join(kernelsDir, id);
+  if (existsSync(existing)) {
+    // Replace only an older Sagitta kernel; never a folder that holds something else.
+    const spec = readSpec(existing, id);
+    if (!spec?.sagitta) throw msg.badArgument('--id', id, `a new id or an installed Sagitta kernel; ${existing} holds something else and was left alone`);
+  }
   return withWriteAccess(kernelsDir, options.scope, () => writeSpec(kernelsDir, id, options));
 }
 
@@ -149,7 +170,7 @@ export function listKernelspecs(platformEnv: PlatformEnv = currentPlatformEnv(),
  */
 export function removeKernelspec(options: InstallOptions = {}): string {
   const id = checkId(options.id ?? DEFAULT_KERNEL_ID);
-  const kernelsDir = options.dir ? path.resolve(options.dir) : kernelsDirFor(options.scope ?? 'user', options.platformEnv ?? currentPlatformEnv());
+  const kernelsDir = options.dir ? checkKernelsDir(options.dir, false) : kernelsDirFor(options.scope ?? 'user', options.platformEnv ?? currentPlatformEnv());
   const target = path.join(kernelsDir, id);
   const spec = readSpec(target, id);
   if (!spec) throw msg.badArgument('--id', id, `an installed kernel in ${kernelsDir} (see "sagitta kernel list")`);

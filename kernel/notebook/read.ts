@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { msg } from '../../lib/internal.js';
+import { inputError, msg } from '../../lib/internal.js';
 import type { Notebook } from './types.js';
 import { validateNotebook } from './validate.js';
 
@@ -19,8 +19,7 @@ export function readNotebook(path: string): LoadedNotebook {
   try {
     bytes = readFileSync(path);
   } catch (err) {
-    if ((err as NodeJS.ErrnoException).code === 'ENOENT') throw msg.fileNotFound(path);
-    throw err;
+    throw inputError(err, path, 'the notebook');
   }
   return { notebook: parseNotebook(bytes.toString('utf8'), path), path, sha256: createHash('sha256').update(bytes).digest('hex'), sizeBytes: bytes.length };
 }

@@ -9,4 +9,4 @@ export { formatMs, formatBytes } from './formatNumbers.js';
 export { richLabel, withRichLabels } from './figureLabels.js';
 export { provenanceCard } from './provenanceCard.js';
 export { chromiumPath, openChromium, type HeadlessChromium } from './chromium.js';
-export { printReportPdf } from './pdf.js';
+export { printReportPdf, reportPdfBytes } from './pdf.js';

@@ -8,6 +8,11 @@ import { openChromium } from './chromium.js';
  * and the PDF is written atomically.
  */
 export async function printReportPdf(htmlPath: string, pdfPath: string, timeoutMs = 60_000): Promise<void> {
+  writeFileAtomic(pdfPath, await reportPdfBytes(htmlPath, timeoutMs));
+}
+
+/** As `printReportPdf`, returning the PDF's bytes (for a caller that writes several outputs together). */
+export async function reportPdfBytes(htmlPath: string, timeoutMs = 60_000): Promise<Uint8Array> {
   // A4 (210 mm) less the 2 × 12 mm margins below is 186 mm ≈ 703 CSS px: lay the page out at that width.
   const browser = await openChromium({ width: 703, height: 1000 });
   try {
@@ -21,7 +26,7 @@ export async function printReportPdf(htmlPath: string, pdfPath: string, timeoutM
       if (plotly) await Promise.all(Array.from(document.querySelectorAll('[data-sg-figure]'), (n) => plotly.Plots.resize(n)));
     });
     const pdf = await page.pdf({ format: 'A4', printBackground: true, margin: { top: '14mm', bottom: '14mm', left: '12mm', right: '12mm' } });
-    writeFileAtomic(pdfPath, pdf);
+    return pdf;
   } finally {
     await browser.close();
   }

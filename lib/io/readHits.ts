@@ -1,6 +1,7 @@
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { msg } from '../errors.js';
 import { recordInput } from '../provenance.js';
+import { readInputFile } from './readInputFile.js';
 import type { HitTable } from './hitTable.js';
 import { parseHitsCsv, type ReadHitsOptions } from './parseHitsCsv.js';
 import { parseHitsJsonl } from './parseHitsJsonl.js';
@@ -17,7 +18,7 @@ export function readHits(path: string, options: ReadHitsOptions = {}): HitTable 
   const lower = path.toLowerCase();
   const format = HIT_FILE_FORMATS.find((ext) => lower.endsWith(ext));
   if (format === undefined) throw msg.unknownFormat(path, HIT_FILE_FORMATS);
-  const bytes = readFileSync(path);
+  const bytes = readInputFile(path, 'the hit file');
   recordInput(path, bytes);
   return format === '.jsonl' || format === '.ndjson' ? parseHitsJsonl(bytes, path, options) : parseHitsCsv(bytes, path, options);
 }

@@ -1,6 +1,6 @@
-import { readFileSync } from 'node:fs';
 import { msg } from '../errors.js';
 import { recordInput } from '../provenance.js';
+import { readInputFile } from './readInputFile.js';
 
 /**
  * A small table of numbers from a comma-separated file with a header row — a measurement series
@@ -12,12 +12,7 @@ import { recordInput } from '../provenance.js';
  * @example readNumberColumns('data/larkspur-tube.csv').columns.voltage_V
  */
 export function readNumberColumns(path: string): { readonly rows: number; readonly columns: Record<string, Float64Array>; readonly text: Record<string, string[]> } {
-  let bytes: Buffer;
-  try {
-    bytes = readFileSync(path);
-  } catch {
-    throw msg.fileNotFound(path);
-  }
+  const bytes = readInputFile(path, 'the table file');
   recordInput(path, bytes);
   const lines = bytes.toString('utf8').replace(/^\uFEFF/, '').split(/\r?\n/).filter((l) => l.trim() !== '');
   if (lines.length === 0) throw msg.emptyFile(path, 'a header row and rows of numbers');

@@ -1,6 +1,6 @@
-import { existsSync, readFileSync } from 'node:fs';
 import { msg } from '../errors.js';
 import { recordInput } from '../provenance.js';
+import { readInputFile } from '../io/readInputFile.js';
 import type { TruthTable } from './simulate.js';
 import { TRUTH_CSV_COLUMNS } from './simulationCsv.js';
 
@@ -15,8 +15,7 @@ const SCALE: Readonly<Record<string, number>> = { '[mm]': 1e-3, '[MeV/c]': 1e-3 
  * @example const truth = readTruth('notebooks/data/brindlemoor-truth.csv'); truth.px[0] // GeV/c
  */
 export function readTruth(path: string): TruthTable {
-  if (!existsSync(path)) throw msg.fileNotFound(path);
-  const bytes = readFileSync(path);
+  const bytes = readInputFile(path, 'the truth file');
   recordInput(path, bytes);
   const lines = bytes.toString('utf8').replace(/^\ufeff/, '').split(/\r?\n/);
   const header = lines[0].split(',');

@@ -1,9 +1,9 @@
-import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Ajv as AjvClass, ErrorObject } from 'ajv';
 import { msg, SagittaError } from '../errors.js';
 import { particle, type Particle } from '../particles.js';
 import { recordInput } from '../provenance.js';
+import { readInputFile } from '../io/readInputFile.js';
 import { angleRad, fieldTesla, energyMeV, lengthMetres, momentumGeV } from '../units.js';
 import { chamber, insideChamber, type Chamber } from './chamber.js';
 import { chamberMedium } from '../matter/chamberMedium.js';
@@ -79,12 +79,7 @@ function describeErrors(errors: readonly ErrorObject[]): string {
  * @example readScenario('notebooks/data/brindlemoor.scenario.json').sources.length
  */
 export function readScenario(path: string): SimulationConfig {
-  let bytes: Buffer;
-  try {
-    bytes = readFileSync(path);
-  } catch {
-    throw msg.fileNotFound(path);
-  }
+  const bytes = readInputFile(path, 'the scenario file');
   recordInput(path, bytes);
   return parseScenario(bytes.toString('utf8'), path);
 }

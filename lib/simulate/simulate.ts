@@ -1,6 +1,7 @@
 import type { HitTable } from '../io/hitTable.js';
 import { momentumFromKinetic } from '../matter/kinematics.js';
 import { ELECTRON } from '../particles.js';
+import { msg } from '../errors.js';
 import { warn } from '../warnings.js';
 import type { Chamber } from './chamber.js';
 import { ColumnBuffer } from './columnBuffer.js';
@@ -114,6 +115,44 @@ const TRUTH_COLUMNS = ['event', 'track', 'parent', 'charge', 'vx', 'vy', 'vz', '
  * @example simulateChamber(config, 7).hits.length
  */
 export function simulateChamber(config: SimulationConfig, seed: number): SimulationResult {
+  return simulateEvents(config, seed, Infinity);
+}
+
+/** Counts of a whole run simulated in parts (what the run record says). */
+export interface SimulationTotals {
+  readonly name: string;
+  readonly seed: number;
+  readonly events: number;
+  readonly hitRows: number;
+  readonly particles: number;
+  readonly particlesBySpecies: Readonly<Record<string, number>>;
+}
+
+/**
+ * As `simulateChamber`, handing the result over in parts of `eventsPerPart` whole events each
+ * (the last part may be shorter or empty) so that memory stays bounded however many events the
+ * scenario asks for. The parts, put one after the other, are exactly the rows of the one-piece
+ * result (same seed stream, same order). Returns the counts of the whole run.
+ * @example simulateChamberInParts(config, 7, (part) => write(formatHitsCsv(part)), 1000)
+ */
+export function simulateChamberInParts(config: SimulationConfig, seed: number, onPart: (part: SimulationResult) => void, eventsPerPart = 1000): SimulationTotals {
+  if (!(Number.isInteger(eventsPerPart) && eventsPerPart > 0)) throw msg.badArgument('eventsPerPart', eventsPerPart, 'a positive whole number of events');
+  let hitRows = 0;
+  let particles = 0;
+  const bySpecies: Record<string, number> = {};
+  let events = 0;
+  simulateEvents(config, seed, eventsPerPart, (part) => {
+    hitRows += part.hits.length;
+    particles += part.truth.length;
+    for (const sp of part.truth.species) bySpecies[sp] = (bySpecies[sp] ?? 0) + 1;
+    events = part.events;
+    onPart(part);
+  });
+  return { name: config.name, seed, events, hitRows, particles, particlesBySpecies: bySpecies };
+}
+
+/** The event loop; with `onPart`, the buffers are handed over and emptied every `eventsPerPart` events and at the end. */
+function simulateEvents(config: SimulationConfig, seed: number, eventsPerPart: number, onPart?: (part: SimulationResult) => void): SimulationResult {
   const rng = seededRandom(seed, `simulateChamber:${config.name}`);
   const { chamber, measurement } = config;
   const options: TransportOptions = {
@@ -125,12 +164,21 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
     deltaRayMinMeV: config.transport.deltaRayMinMeV,
     sampling: measurement.sampling,
   };
-  const hits = new HitRecorder(expectedHitRows(config));
-  const truth = new ColumnBuffer(TRUTH_COLUMNS, 1024);
-  const species: string[] = [];
-  const process: string[] = [];
-  const ends: string[] = [];
+  const partRows = Number.isFinite(eventsPerPart) ? Math.min(expectedHitRows(config), 1 << 16) : expectedHitRows(config);
+  let hits = new HitRecorder(partRows);
+  let truth = new ColumnBuffer(TRUTH_COLUMNS, 1024);
+  let species: string[] = [];
+  let process: string[] = [];
+  let ends: string[] = [];
   let event = 0;
+  const hand = () => {
+    onPart!(collect(config, seed, event, hits, truth, { species, process, ends }));
+    hits = new HitRecorder(partRows);
+    truth = new ColumnBuffer(TRUTH_COLUMNS, 1024);
+    species = [];
+    process = [];
+    ends = [];
+  };
 
   for (const src of config.sources) {
     for (let e = 0; e < src.events; e++) {
@@ -187,9 +235,20 @@ export function simulateChamber(config: SimulationConfig, seed: number): Simulat
         truth.push(event, id, item.parent, sp.charge, item.xM, item.yM, item.zM,
           pGeV * item.ux, pGeV * item.uy, pGeV * item.uz, ex, ey, ez, path, nHits);
       }
+      if (onPart !== undefined && event % eventsPerPart === 0) hand();
     }
   }
+  if (onPart !== undefined) {
+    if (event % eventsPerPart !== 0 || event === 0) hand();
+    return collect(config, seed, event, hits, truth, { species, process, ends });
+  }
+  return collect(config, seed, event, hits, truth, { species, process, ends });
+}
 
+/** The result of the events in the buffers (the whole run, or one part of it). */
+function collect(config: SimulationConfig, seed: number, event: number, hits: HitRecorder, truth: ColumnBuffer<typeof TRUTH_COLUMNS[number]>, names: { species: string[]; process: string[]; ends: string[] }): SimulationResult {
+  const { measurement } = config;
+  const { species, process, ends } = names;
   const h = {
     event: hits.column('event'), track: hits.column('track'), x: hits.column('x'), y: hits.column('y'), z: hits.column('z'),
     tx: hits.column('tx'), ty: hits.column('ty'), tz: hits.column('tz'), tp: hits.column('tp'),

@@ -1,4 +1,9 @@
-import type { SimulationResult } from './simulate.js';
+import type { SimulationResult, SimulationTotals } from './simulate.js';
+
+/** For a run written in parts: only the first part carries the header line. */
+export interface CsvPartOptions {
+  readonly header?: boolean;
+}
 
 /**
  * Text forms of a simulation result with stable number formatting (fixed decimals, no "-0"), so
@@ -21,12 +26,12 @@ export function fixed(value: number, decimals: number): string {
   return /^-0\.?0*$/.test(s) ? s.slice(1) : s;
 }
 
-export function formatHitsCsv(result: SimulationResult): string {
+export function formatHitsCsv(result: SimulationResult, options: CsvPartOptions = {}): string {
   const h = result.hits;
   const sx = h.sigmaX!, sy = h.sigmaY!, sz = h.sigmaZ!, z = h.z!;
   let same = true;
   for (let i = 0; i < h.length && same; i++) same = sx[i] === sy[i];
-  const parts: string[] = [same
+  const parts: string[] = options.header === false ? [] : [same
     ? 'event,track,x[mm],y[mm],z[mm],sigma[mm],sigma_z[mm]\n'
     : 'event,track,x[mm],y[mm],z[mm],sigma_x[mm],sigma_y[mm],sigma_z[mm]\n'];
   for (let i = 0; i < h.length; i++) {
@@ -36,9 +41,9 @@ export function formatHitsCsv(result: SimulationResult): string {
   return parts.join('');
 }
 
-export function formatTruthCsv(result: SimulationResult): string {
+export function formatTruthCsv(result: SimulationResult, options: CsvPartOptions = {}): string {
   const t = result.truth;
-  const parts: string[] = [TRUTH_CSV_COLUMNS.join(',') + '\n'];
+  const parts: string[] = options.header === false ? [] : [TRUTH_CSV_COLUMNS.join(',') + '\n'];
   const mm = (v: number) => fixed(v * 1e3, 4);
   const mev = (v: number) => fixed(v * 1e3, 4);
   for (let i = 0; i < t.length; i++) {
@@ -57,19 +62,24 @@ export function formatTruthCsv(result: SimulationResult): string {
  * Deliberately free of dates and versions so that a regeneration is byte-identical.
  */
 export function formatRunRecord(result: SimulationResult, files: Readonly<Record<string, string>>, scenario?: unknown): string {
-  const t = result.truth;
   const bySpecies: Record<string, number> = {};
-  for (const s of t.species) bySpecies[s] = (bySpecies[s] ?? 0) + 1;
+  for (const sp of result.truth.species) bySpecies[sp] = (bySpecies[sp] ?? 0) + 1;
+  const totals: SimulationTotals = { name: result.name, seed: result.seed, events: result.events, hitRows: result.hits.length, particles: result.truth.length, particlesBySpecies: bySpecies };
+  return formatRunRecordTotals(totals, files, scenario);
+}
+
+/** As `formatRunRecord`, from the counts of a run simulated in parts (`simulateChamberInParts`). */
+export function formatRunRecordTotals(totals: SimulationTotals, files: Readonly<Record<string, string>>, scenario?: unknown): string {
   const record = {
     format: 'sagitta-run/1',
     // Said in the record itself, so a report that reads these hits can mark its results simulated.
     simulated: true,
-    scenario: result.name,
-    seed: result.seed,
-    events: result.events,
-    hitRows: result.hits.length,
-    particles: t.length,
-    particlesBySpecies: Object.fromEntries(Object.entries(bySpecies).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))),
+    scenario: totals.name,
+    seed: totals.seed,
+    events: totals.events,
+    hitRows: totals.hitRows,
+    particles: totals.particles,
+    particlesBySpecies: Object.fromEntries(Object.entries(totals.particlesBySpecies).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))),
     files,
     ...(scenario !== undefined ? { scenarioDocument: scenario } : {}),
   };

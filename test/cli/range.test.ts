@@ -55,12 +55,12 @@ describe('sagitta range', () => {
     expect(after).toMatch(/not for treatment planning/);
     expect(after).toMatch(/licensed medical-physics practice/);
   });
-  it('runs as a command: exit 0 with output, exit 1 with a one-line reason', () => {
+  it('runs as a command: exit 0 with output, exit 2 with a one-line reason for an option value it cannot use', () => {
     const ok = spawnSync(process.execPath, ['kernel/bin/sagitta.js', 'range', '--particle', 'mu+', '--material', 'liquid-hydrogen', '--energy', '50 MeV', '--json'], { encoding: 'utf8' });
     expect(ok.status).toBe(0);
     expect(JSON.parse(ok.stdout).particle).toBe('mu+');
     const bad = spawnSync(process.execPath, ['kernel/bin/sagitta.js', 'range', '--material', 'cheese', '--energy', '50 MeV'], { encoding: 'utf8' });
-    expect(bad.status).toBe(1);
+    expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/unknown material "cheese"/);
   });
 });

@@ -204,7 +204,7 @@ describe('sagitta run (child process per run)', { timeout: 180_000 }, () => {
     const file = join(dir, 'py.ipynb');
     writeFileSync(file, JSON.stringify({ nbformat: 4, nbformat_minor: 5, metadata: { kernelspec: { name: 'x', display_name: 'X', language: 'python' } }, cells: [] }));
     await expect(runCommand(file, { cellTimeout: '60s', set: [] })).rejects.toThrow(/py\.ipynb: is written for python; sagitta runs TypeScript notebooks/);
-    await expect(runCommand(file, { cellTimeout: '60s', set: [], html: join(dir, 'missing', 'r.html') })).rejects.toThrow(/^--html = .* expected a file in an existing folder/);
+    await expect(runCommand(file, { cellTimeout: '60s', set: [], html: join(dir, 'missing', 'r.html') })).rejects.toThrow(/r.html: cannot write here \(the folder .*missing does not exist\)/);
   });
 
   it('a truncated .ipynb: exit 1 naming the file and the JSON problem; nothing written, source unchanged', () => {

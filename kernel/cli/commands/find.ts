@@ -101,8 +101,9 @@ function parsePoint(text: string): [number, number, number] {
   const m = /^\s*([^,]+),([^,]+)(?:,([^,]+?))?\s+([A-Za-zµμ]+)\s*$/.exec(text);
   if (!m) throw msg.badQuantity(text, '--origin', '0,0,0 mm');
   const scale = metresPerUnit(m[4], { column: '--origin' });
-  const coords = [m[1], m[2], m[3] ?? '0'].map((v) => Number(v.trim()) * scale);
-  if (!coords.every(Number.isFinite)) throw msg.badQuantity(text, '--origin', '0,0,0 mm');
+  const texts = [m[1], m[2], m[3] ?? '0'].map((v) => v.trim());
+  const coords = texts.map((v) => Number(v) * scale);
+  if (!texts.every((v) => /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(v)) || !coords.every(Number.isFinite)) throw msg.badQuantity(text, '--origin', '0,0,0 mm');
   return coords as [number, number, number];
 }
 

@@ -1,4 +1,5 @@
 import { Command, Option } from 'commander';
+import { usage } from '../usage.js';
 
 /**
  * `sagitta kernel install|remove|list`: the notebook kernelspec, with no Python involved.
@@ -26,7 +27,8 @@ JUPYTER_DATA_DIR replaces the data folder if set. kernel.json starts this Node.j
 package's kernel entry, so reinstall after moving the package or changing Node.js.`)
     .action(async (opts: { scope: 'user' | 'system'; dir?: string; id: string; label: string; interrupt?: 'signal' | 'message' }) => {
       const { installKernelspec } = await import('../../kernelspec/kernelspec.js');
-      const dir = installKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id, displayName: opts.label, interruptMode: opts.interrupt });
+      // Refusals about --id and --dir (a bad name, a folder of another kernel, no write access) exit 2.
+      const dir = usage(() => installKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id, displayName: opts.label, interruptMode: opts.interrupt }));
       process.stdout.write(`installed kernel "${opts.id}" in ${dir}\n`);
     });
 
@@ -38,7 +40,7 @@ package's kernel entry, so reinstall after moving the package or changing Node.j
     .option('--id <name>', 'folder name of the kernel', 'sagitta')
     .action(async (opts: { scope: 'user' | 'system'; dir?: string; id: string }) => {
       const { removeKernelspec } = await import('../../kernelspec/kernelspec.js');
-      const dir = removeKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id });
+      const dir = usage(() => removeKernelspec({ scope: opts.scope, dir: opts.dir, id: opts.id }));
       process.stdout.write(`removed ${dir}\n`);
     });
 
@@ -48,8 +50,9 @@ package's kernel entry, so reinstall after moving the package or changing Node.j
     .option('--dir <folder...>', 'also look in these kernels folders (first)')
     .option('--json', 'print JSON instead of a table')
     .action(async (opts: { dir?: string[]; json?: boolean }) => {
-      const { listKernelspecs } = await import('../../kernelspec/kernelspec.js');
+      const { listKernelspecs, checkKernelsDir } = await import('../../kernelspec/kernelspec.js');
       const { currentPlatformEnv, kernelSearchPath } = await import('../../kernelspec/paths.js');
+      usage(() => (opts.dir ?? []).map((d) => checkKernelsDir(d, true)));
       const kernels = listKernelspecs(currentPlatformEnv(), opts.dir ?? []);
       if (opts.json) {
         process.stdout.write(`${JSON.stringify(kernels, null, 2)}\n`);

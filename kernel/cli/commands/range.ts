@@ -1,7 +1,7 @@
 import type { Command } from 'commander';
-import { arealDensityGcm2, consumeWarnings, csdaRange, energyMeV, kinematicsFromKinetic, kineticEnergyFromRange, kineticFromMomentum, lengthMetres, massStoppingPower, type Material, material as lookupMaterial, momentumGeV, type Particle, particle as lookupParticle, rangeCutoffMeV, rangeMaxMeV, rangeTable, type SagittaWarning, stoppingRegime } from '../../../lib/index.js';
-import { isElectronLike, msg, parseMaterialFile } from '../../../lib/internal.js';
-import { existsSync, readFileSync } from 'node:fs';
+import { arealDensityGcm2, consumeWarnings, csdaRange, energyMeV, kinematicsFromKinetic, kineticEnergyFromRange, kineticFromMomentum, lengthMetres, massStoppingPower, type Material, material as lookupMaterial, momentumGeV, type Particle, particle as lookupParticle, rangeCutoffMeV, rangeMaxMeV, rangeTable, SagittaError, type SagittaWarning, stoppingRegime } from '../../../lib/index.js';
+import { isElectronLike, msg, parseMaterialFile, readInputFile } from '../../../lib/internal.js';
+import { UsageError } from '../usage.js';
 
 export interface RangeCommandOptions {
   particle: string;
@@ -88,10 +88,22 @@ Examples:
   sagitta range --particle proton --material silicon --table --from "1 MeV" --to "1 GeV" --points 13
   sagitta range --particle alpha --material-file my-gas.txt --energy "5.3 MeV"`)
     .action((options: RangeCommandOptions) => {
-      const { stdout, warnings } = runRange(options);
+      // Every refusal here is about an option's value (exit 2), except a material file that cannot be used (exit 1).
+      const { stdout, warnings } = usageUnlessInput(() => runRange(options));
       process.stdout.write(stdout);
       for (const w of warnings) process.stderr.write(`sagitta range: warning: ${w.message}\n`);
     });
+}
+
+const INPUT_CODES = new Set(['BAD_MATERIAL_FILE', 'FILE_NOT_FOUND', 'CANNOT_READ']);
+
+function usageUnlessInput<T>(body: () => T): T {
+  try {
+    return body();
+  } catch (err) {
+    if (err instanceof SagittaError && !INPUT_CODES.has(err.code)) throw new UsageError(err);
+    throw err;
+  }
 }
 
 const num = (x: number): number | null => (Number.isFinite(x) ? x : null);
@@ -139,6 +151,8 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
     if (!Number.isInteger(points) || points < 2 || points > 100_000) throw msg.badArgument('--points', options.points, 'an integer from 2 to 100000');
     const fromMeV = options.from !== undefined ? energyMeV(options.from, { what: '--from' }) : rangeCutoffMeV(p);
     const toMeV = energyMeV(options.to ?? '1 GeV', { what: '--to' });
+    if (!(fromMeV > 0)) throw msg.badArgument('--from', options.from, 'a positive kinetic energy below --to, e.g. "1 MeV"');
+    if (!(toMeV > fromMeV)) throw msg.badArgument('--to', options.to ?? '1 GeV', `a kinetic energy above --from (${Number(fromMeV.toPrecision(4))} MeV), e.g. "1 GeV"`);
     const t = rangeTable(p, m, { fromMeV, toMeV, points });
     const rows: RangeRow[] = [];
     for (let i = 0; i < t.kineticEnergyMeV.length; i++) rows.push(row(p, m, t.kineticEnergyMeV[i], t.csdaRangeGcm2[i]));
@@ -154,9 +168,12 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
   let rangeGiven: number | undefined;
   if (options.energy !== undefined) {
     kineticMeV = energyMeV(options.energy, { what: '--energy' });
+    if (!(kineticMeV > 0)) throw msg.badArgument('--energy', options.energy, 'a positive kinetic energy, e.g. "100 MeV"');
     if (!Number.isFinite(massStoppingPower(p, m, kineticMeV)) || !Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--energy', options.energy, validityText(p));
   } else if (options.momentum !== undefined) {
-    kineticMeV = kineticFromMomentum(p, momentumGeV(options.momentum, { what: '--momentum' }) * 1000);
+    const pGeV = momentumGeV(options.momentum, { what: '--momentum' });
+    if (!(pGeV > 0)) throw msg.badArgument('--momentum', options.momentum, 'a positive momentum (its magnitude, e.g. "400 MeV/c"; the charge comes from --particle)');
+    kineticMeV = kineticFromMomentum(p, pGeV * 1000);
     if (!Number.isFinite(massStoppingPower(p, m, kineticMeV)) || !Number.isFinite(csdaRange(p, m, kineticMeV))) throw msg.outsideValidity('--momentum', options.momentum, validityText(p));
   } else {
     rangeGiven = rangeGcm2FromText(options.range as string, m);
@@ -173,8 +190,7 @@ export function runRange(options: RangeCommandOptions): { stdout: string; warnin
 }
 
 function readMaterialFile(path: string): Material {
-  if (!existsSync(path)) throw msg.fileNotFound(path);
-  return parseMaterialFile(readFileSync(path, 'utf8'), path);
+  return parseMaterialFile(readInputFile(path, 'the material file').toString('utf8'), path);
 }
 
 const g = (x: number | null, digits = 5): string => (x === null ? 'n/a' : Number(x.toPrecision(digits)).toString());

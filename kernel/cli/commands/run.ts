@@ -1,7 +1,12 @@
 import { Command } from 'commander';
-import { existsSync } from 'node:fs';
-import { basename, dirname, resolve } from 'node:path';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { basename, dirname, join, resolve } from 'node:path';
+import { msg } from '../../../lib/internal.js';
 import type { RunProgress } from '../../runner/runNotebook.js';
+import { planOutputs, realOf, type NamedPath, type PlannedOutput } from '../../batch/outputPlan.js';
+import { OutputSet } from '../../batch/outputSet.js';
+import { usage } from '../usage.js';
 
 export interface RunCommandOptions {
   html?: string;
@@ -78,51 +83,81 @@ export interface RunCommandResult {
 /** Runs the command (also used by `sagitta demo` and by tests). */
 export async function runCommand(notebook: string, options: RunCommandOptions): Promise<RunCommandResult> {
   const { parseDuration, parseSetArguments, runNotebook } = await import('../../runner/index.js');
-  const { writeNotebook } = await import('../../notebook/write.js');
-  const { writeFileAtomic } = await import('../../../lib/io/writeFileAtomic.js');
-  const cellTimeoutMs = parseDuration(options.cellTimeout);
-  const knobs = parseSetArguments(options.set ?? []);
-  const executedPath = options.writeBack ? notebook : options.executed === false ? undefined : (options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`);
-  if (!options.writeBack && executedPath !== undefined && resolve(executedPath) === resolve(notebook)) {
-    const { msg } = await import('../../../lib/errors.js');
-    throw msg.badArgument('--executed', executedPath, 'a path other than the source notebook (use --write-back to replace the source on purpose)');
-  }
-
-  // Refuse unwritable destinations before running anything (a long run should not end in ENOENT).
-  const { msg } = await import('../../../lib/errors.js');
-  for (const [flag, path] of [['--html', options.html], ['--pdf', options.pdf], ['--executed', executedPath]] as const) {
-    if (path !== undefined && !existsSync(dirname(resolve(path)))) throw msg.badArgument(flag, path, 'a file in an existing folder');
-  }
+  const { serializeNotebook } = await import('../../notebook/write.js');
+  // Every option and every output checked before anything runs (usage errors, exit 2).
+  const { cellTimeoutMs, knobs, outputs } = usage(() => ({
+    cellTimeoutMs: parseDuration(options.cellTimeout),
+    knobs: parseSetArguments(options.set ?? []),
+    outputs: planRunOutputs(notebook, options),
+  }));
+  const executed = outputs.find((o) => o.flag === '--executed' || o.flag === '--write-back');
+  const html = outputs.find((o) => o.flag === '--html' || o.flag === 'the HTML beside --pdf');
+  const pdf = outputs.find((o) => o.flag === '--pdf');
   // Start the notebook process first; the report modules load while it boots.
   const running = runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, knobs, onProgress: options.progress });
-  const wantReport = options.html !== undefined || options.pdf !== undefined;
-  const report = wantReport ? import('../../report/index.js') : undefined;
+  const report = html !== undefined ? import('../../report/index.js') : undefined;
   report?.catch(() => undefined);
   const result = await running;
+  const bytes = new Map<string, string | Uint8Array>();
+  if (executed) bytes.set(executed.flag, serializeNotebook(result.notebook));
+  if (report !== undefined && html !== undefined) {
+    const { renderReport, reportPdfBytes } = await report;
+    const page = renderReport({ notebook: result.notebook, run: result.run, codeOpen: !options.hideCode, imageDir: dirname(resolve(notebook)) });
+    bytes.set(html.flag, page);
+    if (pdf !== undefined) bytes.set(pdf.flag, await printedFromScratch(page, reportPdfBytes));
+  }
+  // The executed notebook, the report and its PDF appear together or not at all.
+  const set = new OutputSet(outputs);
+  try {
+    for (const o of outputs) set.write(o.flag, bytes.get(o.flag) ?? '');
+    set.commit();
+  } catch (err) {
+    set.abandon();
+    throw err;
+  }
   const written: string[] = [];
-  if (executedPath !== undefined) {
-    writeNotebook(executedPath, result.notebook);
-    written.push(`executed notebook: ${executedPath}`);
-  }
-  let htmlPath: string | undefined;
-  let pdfPath: string | undefined;
-  if (report !== undefined) {
-    const { renderReport, printReportPdf } = await report;
-    const html = renderReport({ notebook: result.notebook, run: result.run, codeOpen: !options.hideCode, imageDir: dirname(resolve(notebook)) });
-    htmlPath = options.html ?? `${options.pdf!.replace(/\.pdf$/i, '')}.html`;
-    writeFileAtomic(htmlPath, html);
-    written.push(`report: ${resolve(htmlPath)}`);
-    if (options.pdf !== undefined) {
-      await printReportPdf(resolve(htmlPath), options.pdf);
-      pdfPath = options.pdf;
-      written.push(`PDF: ${resolve(options.pdf)}`);
-    }
-  }
+  if (executed) written.push(`executed notebook: ${executed.path}`);
+  if (html) written.push(`report: ${resolve(html.path)}`);
+  if (pdf) written.push(`PDF: ${resolve(pdf.path)}`);
+  const executedPath = executed?.path;
+  const htmlPath = html?.path;
+  const pdfPath = pdf?.path;
   const code = result.notebook.cells.filter((c) => c.cell_type === 'code');
   const ran = code.filter((c) => (c.metadata.sagitta as { outcome?: string } | undefined)?.outcome !== 'not-run').length;
   const startup = Number.isFinite(result.startMs) ? ` (start-up ${(result.startMs / 1000).toFixed(2)} s)` : '';
   const summary = `ran ${ran} of ${code.length} steps in ${(result.run.wallMs / 1000).toFixed(2)} s${startup}\n${written.join('\n')}`;
   return { exitCode: result.exitCode, reason: result.reason, summary, executedPath, htmlPath, pdfPath };
+}
+
+/**
+ * The outputs of a run, checked: none may be the source notebook (except with --write-back, which
+ * replaces it on purpose) or another output, in any spelling (relative, symbolic links, hard links).
+ */
+export function planRunOutputs(notebook: string, options: RunCommandOptions): PlannedOutput[] {
+  if (options.writeBack && typeof options.executed === 'string') throw msg.badArgument('--executed', options.executed, 'no --executed with --write-back (the executed notebook replaces the source)');
+  const wanted: NamedPath[] = [];
+  const executed = options.executed ?? `${basename(notebook).replace(/\.ipynb$/i, '')}.executed.ipynb`;
+  if (!options.writeBack && executed !== false && realOf(executed) === realOf(notebook)) {
+    throw msg.badArgument('--executed', executed, 'a path other than the source notebook (use --write-back to replace the source on purpose)');
+  }
+  if (!options.writeBack && executed !== false) wanted.push({ flag: '--executed', path: executed });
+  if (options.html !== undefined) wanted.push({ flag: '--html', path: options.html });
+  else if (options.pdf !== undefined) wanted.push({ flag: 'the HTML beside --pdf', path: `${options.pdf.replace(/\.pdf$/i, '')}.html` });
+  if (options.pdf !== undefined) wanted.push({ flag: '--pdf', path: options.pdf });
+  const planned = planOutputs([{ flag: '<notebook>', path: notebook }], wanted);
+  return options.writeBack ? [...planOutputs(planned, [{ flag: '--write-back', path: notebook }]), ...planned] : planned;
+}
+
+/** Prints the report to PDF from a private scratch copy of the page (the real one is not written yet). */
+async function printedFromScratch(page: string, print: (htmlPath: string) => Promise<Uint8Array>): Promise<Uint8Array> {
+  const scratch = mkdtempSync(join(tmpdir(), 'sagitta-report-'));
+  try {
+    const file = join(scratch, 'report.html');
+    writeFileSync(file, page);
+    return await print(file);
+  } finally {
+    rmSync(scratch, { recursive: true, force: true });
+  }
 }
 
 /**

@@ -1,8 +1,13 @@
-import { writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import type { Command } from 'commander';
-import { consumeWarnings, formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, simulateChamber } from '../../../lib/index.js';
+import { consumeWarnings, formatHitsCsv, formatRunRecordTotals, formatTruthCsv, readScenario, SCENARIO_SCHEMA, simulateChamberInParts, type SimulationTotals } from '../../../lib/index.js';
 import { msg } from '../../../lib/internal.js';
+
+/** Events simulated and written per part: a few MB of hits, whatever the scenario's event count. */
+const EVENTS_PER_PART = 500;
+import { planOutputs, type NamedPath } from '../../batch/outputPlan.js';
+import { OutputSet } from '../../batch/outputSet.js';
+import { usage } from '../usage.js';
 
 export interface SimulateCommandOptions {
   seed: string;
@@ -63,24 +68,48 @@ function wrap(text: string, width: number): string {
 /** The command's work without touching process streams (for tests). Writes the output files. */
 export function runSimulate(scenario: string | undefined, options: SimulateCommandOptions): { stdout: string; stderr: string } {
   if (options.schema) return { stdout: JSON.stringify(SCENARIO_SCHEMA, null, 2) + '\n', stderr: '' };
-  if (scenario === undefined) throw msg.badArgument('scenario', undefined, 'a scenario file, e.g. sagitta simulate run.json --seed 7 (or --schema)');
-  const seed = Number(options.seed);
-  if (!/^\d+$/.test(options.seed.trim()) || !(seed <= 0xffffffff)) throw msg.badArgument('--seed', options.seed, 'a whole number from 0 to 4294967295, e.g. --seed 7');
-  const config = readScenario(scenario);
-  const result = simulateChamber(config, seed);
-  const out = options.out ?? `${config.name}-hits.csv`;
-  const record = join(dirname(out), `${basename(out).replace(/\.[^.]*$/, '')}.run.json`);
-  const files: Record<string, string> = { hits: basename(out), scenario: basename(scenario) };
-  writeFileSync(out, formatHitsCsv(result));
-  if (options.truth !== undefined) {
-    writeFileSync(options.truth, formatTruthCsv(result));
-    files.truth = basename(options.truth);
+  const seed = usage(() => {
+    if (scenario === undefined) throw msg.badArgument('<scenario>', '(none given)', 'a scenario file, e.g. sagitta simulate run.json --seed 7 (or --schema)');
+    const seedText = options.seed.trim();
+    if (!/^\d+$/.test(seedText) || !(Number(seedText) <= 0xffffffff)) throw msg.badArgument('--seed', options.seed, 'a whole number from 0 to 4294967295, e.g. --seed 7');
+    return Number(seedText);
+  });
+  const config = readScenario(scenario!);
+  const outputs = usage(() => {
+    const out = options.out ?? `${config.name}-hits.csv`;
+    const record = join(dirname(out), `${basename(out).replace(/\.[^.]*$/, '')}.run.json`);
+    const wanted: NamedPath[] = [{ flag: '--out', path: out }];
+    if (options.truth !== undefined) wanted.push({ flag: '--truth', path: options.truth });
+    wanted.push({ flag: 'the run record', path: record });
+    // Every output checked before the run: none may be the scenario or another output, in any spelling.
+    return planOutputs([{ flag: '<scenario>', path: scenario! }], wanted);
+  });
+  const [out, ...rest] = outputs;
+  const truth = options.truth !== undefined ? rest[0] : undefined;
+  const record = rest[rest.length - 1];
+  const files: Record<string, string> = { hits: basename(out.path), scenario: basename(scenario!) };
+  if (truth) files.truth = basename(truth.path);
+  // Streamed to the temporary files in parts of whole events (memory stays bounded for any event
+  // count); hits, truth and run record are renamed into place together at the end, or not at all.
+  const set = new OutputSet(outputs);
+  let totals: SimulationTotals;
+  try {
+    let first = true;
+    totals = simulateChamberInParts(config, seed, (part) => {
+      set.write(out.flag, formatHitsCsv(part, { header: first }));
+      if (truth) set.write(truth.flag, formatTruthCsv(part, { header: first }));
+      first = false;
+    }, EVENTS_PER_PART);
+    set.write(record.flag, formatRunRecordTotals(totals, files));
+    set.commit();
+  } catch (err) {
+    set.abandon();
+    throw err;
   }
-  writeFileSync(record, formatRunRecord(result, files));
   const warnings = consumeWarnings();
-  const written = [out, options.truth, record].filter((f): f is string => f !== undefined).join(', ');
+  const written = outputs.map((o) => o.path).join(', ');
   return {
-    stdout: `simulated ${result.events} events, ${result.truth.length} particles, ${result.hits.length} hits (scenario ${config.name}, seed ${seed}) → ${written}\n`,
+    stdout: `simulated ${totals.events} events, ${totals.particles} particles, ${totals.hitRows} hits (scenario ${config.name}, seed ${seed}) → ${written}\n`,
     stderr: warnings.map((w) => `sagitta simulate: warning: ${w.message}\n`).join(''),
   };
 }

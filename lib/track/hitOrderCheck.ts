@@ -1,0 +1,87 @@
+import { arcLengthsAndSlopes, newArcLengthSlopes } from '../fit/arcLengths.js';
+import { warn } from '../warnings.js';
+import type { TrackTable } from './measureTracks.js';
+
+/** Share of a track's extent along its arc that the hits may run back before the order is called mixed. */
+export const BACKWARDS_SHARE = 0.2;
+
+/**
+ * Finds fitted tracks whose hits do not run one way along the fitted circle: somewhere the arc
+ * length goes back by more than `BACKWARDS_SHARE` of the track's whole extent (hits sorted by
+ * another key, two half-tracks joined head to head). The turning sense, and so the charge, is
+ * read from the hit order, so such a charge is not to be trusted; one HIT_ORDER warning names how
+ * many tracks and the first of them. Returns the indices of those tracks.
+ * Geometry only (arc lengths along the fit, lib/fit/arcLengths.ts); noise along the track is far
+ * below the 20 % share for any track whose hits are spaced more than their errors (common practice).
+ * Tracks sampled coarser than 60° of turn per hit, loopers of 0.9 turns or more (curl-ups) and tracks not
+ * fitted `ok` are not judged.
+ * @example const mixed = checkHitOrder(measureTracks(hits, { fieldT: 1.5 }));
+ */
+export function checkHitOrder(tracks: TrackTable): number[] {
+  const { hits, offsets } = tracks;
+  let longest = 0;
+  for (let k = 0; k < tracks.count; k++) longest = Math.max(longest, offsets[k + 1] - offsets[k]);
+  const scratch = newArcLengthSlopes(longest);
+  const steps = new Float64Array(longest);
+  const rows = { x: hits.x, y: hits.y, from: 0, to: 0 };
+  const circle = { kappa: 0, phi: 0, d: 0, xRef: 0, yRef: 0 };
+  const mixed: number[] = [];
+  for (let k = 0; k < tracks.count; k++) {
+    const n = offsets[k + 1] - offsets[k];
+    if (tracks.status[k] !== 'ok' || n < 4) continue;
+    rows.from = offsets[k];
+    rows.to = offsets[k + 1];
+    circle.kappa = tracks.kappa[k];
+    circle.phi = tracks.phi0[k];
+    circle.d = tracks.d0[k];
+    circle.xRef = tracks.xRef[k];
+    circle.yRef = tracks.yRef[k];
+    if (!Number.isFinite(circle.kappa) || !Number.isFinite(circle.phi)) continue;
+    // A circle sampled more coarsely than a sixth of a turn per hit (a small curl-up) cannot tell order from geometry.
+    if (medianStep(hits.x, hits.y, rows.from, rows.to, steps) * Math.abs(circle.kappa) > MAX_STEP_ANGLE) continue;
+    arcLengthsAndSlopes(rows, circle, scratch);
+    if (runsBack(scratch.s, n, Math.abs(circle.kappa))) mixed.push(k);
+  }
+  if (mixed.length > 0) {
+    const first = mixed[0];
+    warn(
+      'HIT_ORDER',
+      `${mixed.length} track${mixed.length === 1 ? '' : 's'} (first: event ${tracks.event[first]}, track ${tracks.track[first]}) ` +
+        'have hits that run backwards part of the way; their charge is read from the hit order and may be wrong — put each track\'s hits in the order the particle travelled',
+      'checkHitOrder',
+    );
+  }
+  return mixed;
+}
+
+/** Largest median turning angle per hit [rad] (chord × κ) at which the order is judged: 60°. */
+const MAX_STEP_ANGLE = Math.PI / 3;
+
+/** Median distance [m] between consecutive hits of rows [from, to). */
+function medianStep(x: Float64Array, y: Float64Array, from: number, to: number, scratch: Float64Array): number {
+  const n = to - from - 1;
+  for (let i = 0; i < n; i++) scratch[i] = Math.hypot(x[from + i + 1] - x[from + i], y[from + i + 1] - y[from + i]);
+  const part = scratch.subarray(0, n).sort();
+  return part[n >> 1];
+}
+
+/** True when the largest step back (in either sense of travel) exceeds the share of the extent. */
+function runsBack(s: Float64Array, n: number, absKappa: number): boolean {
+  let lo = s[0], hi = s[0];
+  let backForward = 0, backReverse = 0;
+  let maxSoFar = s[0], minSoFar = s[0];
+  for (let i = 1; i < n; i++) {
+    const v = s[i];
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+    if (v > maxSoFar) maxSoFar = v;
+    if (v < minSoFar) minSoFar = v;
+    backForward = Math.max(backForward, maxSoFar - v);
+    backReverse = Math.max(backReverse, v - minSoFar);
+  }
+  const extent = hi - lo;
+  // A looper of nearly a turn or more (a curl-up whose radius shrinks) is not one circle: not judged.
+  if (!(extent > 0) || extent * absKappa > 0.9 * 2 * Math.PI) return false;
+  // The dominant sense is the one with the smaller largest step back.
+  return Math.min(backForward, backReverse) > BACKWARDS_SHARE * extent;
+}
