@@ -61,6 +61,8 @@ pre.sg-stderr { border-left-color: var(--copper); color: #7a3a12; }
 .sg-error pre { font: 0.8rem/1.45 var(--mono); white-space: pre-wrap; margin: 0.4rem 0 0; color: #5a2412; }
 .sg-image { max-width: 100%; height: auto; display: block; }
 .sg-figure { background: var(--card); border: 1px solid var(--rule); min-height: 2rem; }
+.sg-figure-text { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: pre; margin: 0; }
+.sg-figure { position: relative; }
 .sg-figure-fallback { margin: 0; padding: 0.6rem; font: 0.8rem var(--mono); color: var(--muted); }
 .sg-skipped { opacity: 0.55; }
 .sg-failed { color: var(--fail); font-weight: 600; }
