@@ -96,6 +96,12 @@ describe('figureSvg (static rendering of figure specs)', () => {
     expectGolden(join(GOLDEN, 'heatmap-cells.svg'), svg);
   });
 
+  it('step lines (the fit lab\'s pull histograms): horizontal to the midpoint, vertical, horizontal', () => {
+    const spec: PlotSpec = { data: [{ type: 'scatter', mode: 'lines', line: { shape: 'hvh' }, x: [0, 1, 2], y: [1, 3, 2] }], layout: { ...baseLayout('', 'pull', 'tracks'), xaxis: { range: [0, 2] }, yaxis: { range: [0, 4] } } };
+    const d = /<path class="line" d="([^"]+)"/.exec(figureSvg(spec))![1];
+    expect(d).toMatch(/^M64,\d+(\.\d+)?H202V\d+(\.\d+)?H340H478V\d+(\.\d+)?H616$/);
+  });
+
   it('labels: subscripts drawn as shifted text, not a literal p_T; snake_case left alone', () => {
     const svg = figureSvg(xyFigure([{ x: [1, 2], y: [1, 2] }], { xTitle: 'p_T [GeV/c]', yTitle: 'sigma_p_meas_GeV' }).toJSON());
     expect(svg).toContain('p<tspan baseline-shift="sub" font-size="75%">T</tspan> [GeV/c]');
