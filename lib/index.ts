@@ -6,6 +6,7 @@ export * from './particles.js';
 export * from './units.js';
 export * from './provenance.js';
 export * from './display.js';
+export { TableView, tableView, TABLE_CAUTION, columnHeading, formatMeasured, formatSignificant, type TableRow, type TableViewOptions, type ColumnHeading } from './table/index.js';
 export { knob, knobSnapshot, readKnobValue, type KnobKind, type KnobRecord } from './knob.js';
 export * from './io/index.js';
 export * from './find/index.js';
