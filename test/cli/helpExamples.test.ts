@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { chmodSync, mkdirSync, mkdtempSync, symlinkSync, writeFileSync, existsSync } from 'node:fs';
+import { chmodSync, cpSync, existsSync, mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -22,13 +22,14 @@ function helpExamples(command: string): string[] {
 }
 
 /**
- * A folder laid out like the package folder for the examples (its notebooks/ and an empty out/),
- * with `sagitta` on the PATH, so every example runs exactly as printed and writes nothing into
- * the checkout.
+ * A folder laid out like the package folder for the examples (a copy of its notebooks/, 7 MB,
+ * and an empty out/), with `sagitta` on the PATH, so every example runs exactly as printed and
+ * writes nothing into the checkout. A copy, not a link: a notebook reached through a symbolic
+ * link does not see the package as "sagitta" today.
  */
 function packageLikeFolder(): { cwd: string; env: NodeJS.ProcessEnv } {
   const cwd = mkdtempSync(join(tmpdir(), 'sagitta-help-'));
-  symlinkSync(join(ROOT, 'notebooks'), join(cwd, 'notebooks'));
+  cpSync(join(ROOT, 'notebooks'), join(cwd, 'notebooks'), { recursive: true });
   mkdirSync(join(cwd, 'out'));
   const bin = join(cwd, '.bin');
   mkdirSync(bin);

@@ -1,7 +1,7 @@
-import { writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import type { Command } from 'commander';
 import { msg } from '../../../lib/errors.js';
+import { writeFileAtomic } from '../../../lib/io/writeFileAtomic.js';
 import { consumeWarnings } from '../../../lib/warnings.js';
 import { readScenario } from '../../../lib/simulate/scenario.js';
 import { SCENARIO_SCHEMA } from '../../../lib/simulate/scenarioSchema.js';
@@ -75,16 +75,17 @@ export function runSimulate(scenario: string | undefined, options: SimulateComma
   const out = options.out ?? `${config.name}-hits.csv`;
   const record = join(dirname(out), `${basename(out).replace(/\.[^.]*$/, '')}.run.json`);
   const files: Record<string, string> = { hits: basename(out), scenario: basename(scenario) };
-  writeFileSync(out, formatHitsCsv(result));
+  writeFileAtomic(out, formatHitsCsv(result));
   if (options.truth !== undefined) {
-    writeFileSync(options.truth, formatTruthCsv(result));
+    writeFileAtomic(options.truth, formatTruthCsv(result));
     files.truth = basename(options.truth);
   }
-  writeFileSync(record, formatRunRecord(result, files));
+  writeFileAtomic(record, formatRunRecord(result, files));
   const warnings = consumeWarnings();
-  const written = [out, options.truth, record].filter((f): f is string => f !== undefined).join(', ');
+  const written = [out, options.truth].filter((f): f is string => f !== undefined).join(', ');
   return {
-    stdout: `simulated ${result.events} events, ${result.truth.length} particles, ${result.hits.length} hits (scenario ${config.name}, seed ${seed}) → ${written}\n`,
+    stdout: `simulated ${result.events} events, ${result.truth.length} particles, ${result.hits.length} hits (scenario ${config.name}, seed ${seed}) → ${written}\n` +
+      `run record (seed, scenario, counts; marks the hits as simulated for reports) → ${record}\n`,
     stderr: warnings.map((w) => `sagitta simulate: warning: ${w.message}\n`).join(''),
   };
 }
