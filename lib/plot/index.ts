@@ -1,4 +1,4 @@
-// lib/plot: figure specs (plotly JSON, no DOM). Named re-exports only.
+// lib/plot: figure specs (plotly JSON) and their static SVG/PNG renderings (no DOM). Named re-exports only.
 export { PALETTE, SERIES_COLOURS, SERIES_MARKERS, SERIES_DASHES, DENSITY_SCALE, seriesStyle, chargeColour, type SeriesStyle } from './palette.js';
 export { Figure, PLOTLY_MIME, baseLayout, axisStyle, plainNumbers, type PlotSpec, type PlotTrace } from './figure.js';
 export { logAxisRange, legendMargin } from './axisRange.js';
@@ -8,3 +8,5 @@ export { spectrumFigure, type SpectrumFigureOptions } from './spectrumFigure.js'
 export { histogram2dFigure, type Histogram2DFigureOptions } from './histogram2dFigure.js';
 export { EventDisplay, eventDisplay, type DisplayHits, type DisplayTrack, type EventDisplayOptions } from './eventDisplay.js';
 export { eventArcs, trackEventDisplay, type EventArcs } from './trackEventDisplay.js';
+export { figureSvg, type FigureSvgOptions } from './static/figureSvg.js';
+export { svgToPng } from './static/svgToPng.js';
