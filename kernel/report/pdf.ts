@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
-import { writeFileAtomic } from '../../lib/io/writeFileAtomic.js';
+import { writeFileAtomic } from '../../lib/internal.js';
 import { openChromium } from './chromium.js';
 
 /**

@@ -8,7 +8,7 @@
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, seededRandom, simulateChamber, type SimulationResult } from 'sagitta';
+import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, seededRandom, simulateChamber, type SimulationResult } from 'sagitta-tracks';
 import { benchFiles } from './benchSeries.js';
 import { overlayEvents } from './overlay.js';
 
