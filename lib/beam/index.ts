@@ -8,5 +8,4 @@ export { ELECTRON_MASS_U, ISOTOPES, identifyIsotope, isotope, type Isotope, type
 export { ATOMIC_MASS_CONSTANT_KG, massToChargeFromSector, massToChargeInU, sectorRadiusM } from './magneticSector.js';
 export { plateDeflection, type PlateDeflection } from './plateDeflection.js';
 export { magneticRigidityTm, rigidityFromKineticTm } from './rigidity.js';
-export { fitStraightLineXY, type LineFitXY } from './straightLineXYErrors.js';
 export { selectedSpeedMPerS } from './velocitySelector.js';
