@@ -39,6 +39,11 @@ body { margin: 0; font: 16px/1.55 var(--serif); }
 .sg-prose th, .sg-html th { font-weight: 600; border-bottom: 1.5px solid var(--ink); }
 .sg-html tbody th { border-bottom: 1px solid var(--rule); color: var(--muted); font-weight: 400; }
 .sg-html caption { caption-side: bottom; text-align: left; color: var(--muted); font-size: 0.8rem; padding-top: 0.3rem; }
+.sg-html table.sagitta-table caption { caption-side: top; padding: 0 0 0.3rem; }
+.sg-html .sg-unit { color: var(--muted); font-weight: 400; font-size: 0.8em; }
+.sg-html td.sg-num { font-variant-numeric: tabular-nums; white-space: nowrap; }
+.sg-html td:not(.sg-num) { text-align: left; }
+.sg-html tfoot td { color: var(--muted); font-size: 0.8rem; text-align: left; border-bottom: none; }
 .sg-html { overflow-x: auto; }
 .sg-prose blockquote { margin: 0.8rem 0; padding: 0.4rem 1rem; border-left: 3px solid var(--copper); background: #f6efe6; }
 .sg-math { overflow-x: auto; overflow-y: hidden; margin: 0.6rem 0; padding: 0.15rem 0; }
