@@ -18,6 +18,12 @@ type Obj = Record<string, unknown>;
 const obj = (v: unknown): Obj => (v && typeof v === 'object' ? (v as Obj) : {});
 const str = (v: unknown, d: string) => (typeof v === 'string' ? v : d);
 
+/** A CSS font-family list with every name that is not a generic family quoted ("Source Sans 3" unquoted would void the whole list). */
+function fontFamilies(list: string): string {
+  return list.split(',').map((f) => f.trim()).filter((f) => f !== '')
+    .map((f) => (/^['"]/.test(f) || /^(serif|sans-serif|monospace|cursive|fantasy|system-ui)$/.test(f) ? f : `'${f}'`)).join(', ');
+}
+
 /** Room right of the plot for a heatmap's colour bar, in px. */
 const COLOUR_BAR_ROOM = 92;
 
@@ -46,7 +52,7 @@ export function figureSvg(spec: PlotSpec, options: FigureSvgOptions = {}): strin
   const frames = axisFrames(layout, spec.data, plot);
   const out: string[] = [];
   const title = typeof layout.title === 'string' ? layout.title : str(obj(layout.title).text, '');
-  out.push(`<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" font-family="${escapeHtml(str(font.family, 'Helvetica, Arial, sans-serif'))}" font-size="${fontPx}" fill="${str(font.color, PALETTE.ink)}">`);
+  out.push(`<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" font-family="${escapeHtml(fontFamilies(str(font.family, 'Helvetica, Arial, sans-serif')))}" font-size="${fontPx}" fill="${str(font.color, PALETTE.ink)}">`);
   out.push(`<title>${escapeHtml(title || 'Figure')}</title>`);
   out.push(`<rect width="${W}" height="${H}" fill="${str(layout.paper_bgcolor, PALETTE.paper)}"/>`);
   // One background and clip box per subplot (each x axis with the y axis it is anchored to).
