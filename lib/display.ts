@@ -5,8 +5,10 @@
  * - An object says how it displays itself by implementing the method keyed by `asMime`
  *   (`Symbol.for('sagitta.asMime')`), returning a MIME bundle such as
  *   `{ 'application/vnd.plotly.v1+json': spec, 'text/html': '…', 'text/plain': '…' }`.
- * - `mimeBundleOf(value)` turns any value into a bundle: objects with that method, danfojs
- *   DataFrame / Series (an HTML table plus text), everything else as `text/plain`.
+ * - `mimeBundleOf(value)` turns any value into a bundle: objects with that method; result tables
+ *   (`{ rows, columns }`), arrays of plain objects and DataFrames / Series as Sagitta's own table
+ *   (lib/table: HTML plus text, without loading the DataFrame library); everything else as
+ *   `text/plain`.
  * - `present(value, { id })` shows a value now; `refresh(id, value)` replaces what an earlier
  *   `present(…, { id })` showed; `clearOutput({ wait })` clears what the cell has shown so far;
  *   `ask(prompt)` asks the person running the notebook for a line of text (a front end that
@@ -18,17 +20,11 @@
  * cell importing "sagitta-tracks") still share it.
  */
 import { inspect } from 'node:util';
+import { asMime, type MimeBundle, type Presentable } from './asMime.js';
+import { TableView } from './table/tableView.js';
+import { frameToColumns, isColumnTable, isRecordArray, recordsToColumns } from './table/tableSource.js';
 
-/** One output in several representations, keyed by MIME type. */
-export type MimeBundle = Record<string, unknown>;
-
-/** The method key by which an object describes its own display. */
-export const asMime: unique symbol = Symbol.for('sagitta.asMime');
-
-/** An object that knows how it displays itself. */
-export interface Presentable {
-  [asMime](): MimeBundle;
-}
+export { asMime, type MimeBundle, type Presentable };
 
 /** Where displays go while a session runs a cell. `update` marks a replacement of `displayId`. */
 export type DisplaySink = (bundle: MimeBundle, options: { displayId?: string; update?: boolean }) => void;
@@ -108,9 +104,6 @@ export function isPresentable(value: unknown): value is Presentable {
   );
 }
 
-/** Rows shown for a table before it is cut (the text says how many were left out). */
-const TABLE_ROWS = Object.freeze({ head: 20, tail: 5 });
-
 /**
  * The MIME bundle of any value. Every bundle has `text/plain`, so a front end that understands
  * nothing richer still shows something. Strings are shown as they are (no quotes), as a printed
@@ -123,8 +116,8 @@ export function mimeBundleOf(value: unknown): MimeBundle {
     if (typeof bundle['text/plain'] !== 'string') bundle['text/plain'] = plainText(value);
     return bundle;
   }
-  const frame = asFrame(value);
-  if (frame !== undefined) return { 'text/html': frameHtml(frame), 'text/plain': frameText(frame) };
+  const table = isColumnTable(value) ? value : isRecordArray(value) ? recordsToColumns(value) : frameToColumns(value);
+  if (table !== undefined) return new TableView(table)[asMime]();
   return { 'text/plain': plainText(value) };
 }
 
@@ -157,61 +150,4 @@ export function escapeHtml(text: string): string {
 function plainText(value: unknown): string {
   if (typeof value === 'string') return value;
   return inspect(value, { depth: 4, maxArrayLength: 50, breakLength: 100, colors: false });
-}
-
-/** The parts of a danfojs DataFrame or Series we read (duck-typed: lib does not load danfojs). */
-interface FrameLike {
-  columns: string[];
-  index: Array<string | number>;
-  rows: unknown[][];
-}
-
-function asFrame(value: unknown): FrameLike | undefined {
-  if (value === null || typeof value !== 'object') return undefined;
-  const v = value as { ndim?: unknown; columns?: unknown; index?: unknown; values?: unknown; $isSeries?: unknown };
-  if (!('$isSeries' in v) || !Array.isArray(v.index) || !Array.isArray(v.values) || !Array.isArray(v.columns)) return undefined;
-  const index = v.index as Array<string | number>;
-  const columns = (v.columns as unknown[]).map(String);
-  if (v.ndim === 2) return { columns, index, rows: v.values as unknown[][] };
-  if (v.ndim === 1) return { columns, index, rows: (v.values as unknown[]).map((x) => [x]) };
-  return undefined;
-}
-
-function cell(value: unknown): string {
-  if (typeof value === 'number') return Number.isInteger(value) ? String(value) : String(Number(value.toPrecision(6)));
-  if (value === null || value === undefined) return '';
-  return String(value);
-}
-
-/** Row numbers to show: all, or the first `head` and last `tail` with a gap marker (-1). */
-function shownRows(n: number): number[] {
-  if (n <= TABLE_ROWS.head + TABLE_ROWS.tail) return Array.from({ length: n }, (_, i) => i);
-  const head = Array.from({ length: TABLE_ROWS.head }, (_, i) => i);
-  const tail = Array.from({ length: TABLE_ROWS.tail }, (_, i) => n - TABLE_ROWS.tail + i);
-  return [...head, -1, ...tail];
-}
-
-function frameHtml(frame: FrameLike): string {
-  const n = frame.rows.length;
-  const head = `<tr><th></th>${frame.columns.map((c) => `<th>${escapeHtml(c)}</th>`).join('')}</tr>`;
-  const body = shownRows(n)
-    .map((i) =>
-      i < 0
-        ? `<tr><th>…</th>${frame.columns.map(() => '<td>…</td>').join('')}</tr>`
-        : `<tr><th>${escapeHtml(String(frame.index[i]))}</th>${frame.rows[i].map((x) => `<td>${escapeHtml(cell(x))}</td>`).join('')}</tr>`,
-    )
-    .join('');
-  const caption = `<caption>${n} row${n === 1 ? '' : 's'} × ${frame.columns.length} column${frame.columns.length === 1 ? '' : 's'}</caption>`;
-  return `<table class="sagitta-table">${caption}<thead>${head}</thead><tbody>${body}</tbody></table>`;
-}
-
-function frameText(frame: FrameLike): string {
-  const rows = shownRows(frame.rows.length).map((i) =>
-    i < 0 ? ['…', ...frame.columns.map(() => '…')] : [String(frame.index[i]), ...frame.rows[i].map(cell)],
-  );
-  const all = [['', ...frame.columns], ...rows];
-  const widths = all[0].map((_, j) => Math.max(...all.map((r) => [...r[j]].length)));
-  const line = (r: string[]) => r.map((s, j) => s.padStart(widths[j])).join('  ').trimEnd();
-  const n = frame.rows.length;
-  return [...all.map(line), `[${n} row${n === 1 ? '' : 's'} × ${frame.columns.length} column${frame.columns.length === 1 ? '' : 's'}]`].join('\n');
 }

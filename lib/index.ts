@@ -12,6 +12,10 @@ export { recordCaution, recordInput, recordSeed, type CautionKind, type InputRec
 export { angleRad, arealDensityGcm2, energyMeV, fieldTesla, lengthMetres, momentumGeV, pointMetres, quantity, type Dimension, type QuantityOptions } from './units.js';
 export { WARNING_CODES, consumeWarnings, formatWarning, type SagittaWarning, type SagittaWarningCode } from './warnings.js';
 
+// ── table: result tables of our own look, with selection verbs
+export { formatMeasured } from './table/formatCell.js';
+export { TABLE_CAUTION, TableView, tableView, type TableRow, type TableViewOptions } from './table/tableView.js';
+
 // ── io: reading and writing hit and result tables
 export { columnTableToDataFrame, formatCsv, rowObjects, type Column, type ColumnTable } from './io/columnTable.js';
 export { HIT_COLUMNS, REQUIRED_HIT_COLUMNS } from './io/hitColumns.js';
@@ -71,6 +75,7 @@ export { momenta, momentumAt, radiusOfCurvatureM, transverseMomentumGeV, type Mo
 export { MS_GLUCKSTERN_FACTOR, curvatureSigmaEquallySpaced, curvatureSigmaLeastSquares, glucksternCurvatureSigma, momentumResolution, multipleScatteringCurvatureSigma, type MomentumResolution, type MomentumResolutionInput } from './track/resolution.js';
 export { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns, type ResolutionBudgetOptions } from './track/resolutionBudget.js';
 export { trackHits, type OneTrackHits } from './track/trackHits.js';
+export { trackRows } from './track/trackRows.js';
 export { trackTableColumns } from './track/trackTableColumns.js';
 
 // ── analysis: histograms, fitting layer, statistics
@@ -149,6 +154,8 @@ export { histogramFigure, type HistogramOptions } from './plot/histogram.js';
 export { histogram2dFigure, type Histogram2DFigureOptions } from './plot/histogram2dFigure.js';
 export { DENSITY_SCALE, PALETTE, SERIES_COLOURS, SERIES_DASHES, SERIES_MARKERS, chargeColour, seriesStyle, type SeriesStyle } from './plot/palette.js';
 export { spectrumFigure, type SpectrumFigureOptions } from './plot/spectrumFigure.js';
+export { figureSvg, type FigureSvgOptions } from './plot/static/figureSvg.js';
+export { svgToPng } from './plot/static/svgToPng.js';
 export { eventArcs, trackEventDisplay, type EventArcs } from './plot/trackEventDisplay.js';
 export { xyFigure, type XYOptions, type XYSeries } from './plot/xyFigure.js';
 

@@ -18,8 +18,9 @@ export interface HeadlessChromium {
 /**
  * Starts headless Chromium through playwright-core with flags that keep it quiet and offline
  * (no background networking, updates, sync or first-run pages; no sandbox, since CI runs as root).
+ * `javaScriptEnabled: false` opens pages as a reader with scripting disabled sees them.
  */
-export async function openChromium(viewport = { width: 1100, height: 900 }): Promise<HeadlessChromium> {
+export async function openChromium(viewport = { width: 1100, height: 900 }, options: { javaScriptEnabled?: boolean } = {}): Promise<HeadlessChromium> {
   const executablePath = chromiumPath();
   if (!existsSync(executablePath)) {
     throw msg.badArgument('Chromium', executablePath, 'an installed Chromium for --pdf (Debian: apt-get install chromium), or SAGITTA_CHROMIUM=/path/to/chromium');
@@ -30,6 +31,7 @@ export async function openChromium(viewport = { width: 1100, height: 900 }): Pro
     executablePath,
     headless: true,
     viewport,
+    javaScriptEnabled: options.javaScriptEnabled ?? true,
     args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
   });
   return {

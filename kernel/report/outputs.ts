@@ -50,7 +50,9 @@ function renderBundle(data: Record<string, unknown>, figures: FigureStore, isRes
     case PLOTLY_MIME: {
       const id = figures.add(data[PLOTLY_MIME]);
       const fallback = data['text/plain'] !== undefined ? text('text/plain') : 'figure';
-      return `<div class="${cls} sg-figure" data-sg-figure="${id}"><pre class="sg-figure-fallback">${escapeHtml(fallback)}</pre></div>`;
+      // The static rendering shows where scripts do not run (a reader's setting, the PDF); the page's script replaces it with the interactive plot.
+      const still = staticImage(data, fallback);
+      return `<div class="${cls} sg-figure" data-sg-figure="${id}">${still ?? `<pre class="sg-figure-fallback">${escapeHtml(fallback)}</pre>`}</div>`;
     }
     case 'image/svg+xml':
       return `<div class="${cls}"><img class="sg-image" alt="${escapeHtml(data['text/plain'] !== undefined ? text('text/plain') : 'figure')}" src="data:image/svg+xml;base64,${Buffer.from(text('image/svg+xml'), 'utf8').toString('base64')}"></div>`;
@@ -74,4 +76,18 @@ function renderBundle(data: Record<string, unknown>, figures: FigureStore, isRes
     default:
       return `<pre class="${cls}">[output in ${escapeHtml(Object.keys(data).join(', ') || 'no format')} — not shown]</pre>`;
   }
+}
+
+/**
+ * The bundle's own static picture of a figure (SVG, else PNG) as an <img>, followed by the
+ * figure's description (what it holds, its notes) as text a screen reader or a search finds.
+ */
+function staticImage(data: Record<string, unknown>, description: string): string | undefined {
+  const value = (m: string) => { const v = data[m]; return Array.isArray(v) ? v.join('') : typeof v === 'string' ? v : undefined; };
+  const svg = value('image/svg+xml');
+  const text = `<pre class="sg-figure-text">${escapeHtml(description)}</pre>`;
+  if (svg !== undefined) return `<img class="sg-image sg-figure-static" alt="" src="data:image/svg+xml;base64,${Buffer.from(svg, 'utf8').toString('base64')}">${text}`;
+  const png = value('image/png')?.replace(/\s+/g, '');
+  if (png !== undefined && /^[A-Za-z0-9+/]*={0,2}$/.test(png)) return `<img class="sg-image sg-figure-static" alt="" src="data:image/png;base64,${png}">${text}`;
+  return undefined;
 }

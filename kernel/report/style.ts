@@ -39,6 +39,11 @@ body { margin: 0; font: 16px/1.55 var(--serif); }
 .sg-prose th, .sg-html th { font-weight: 600; border-bottom: 1.5px solid var(--ink); }
 .sg-html tbody th { border-bottom: 1px solid var(--rule); color: var(--muted); font-weight: 400; }
 .sg-html caption { caption-side: bottom; text-align: left; color: var(--muted); font-size: 0.8rem; padding-top: 0.3rem; }
+.sg-html table.sagitta-table caption { caption-side: top; padding: 0 0 0.3rem; }
+.sg-html .sg-unit { color: var(--muted); font-weight: 400; font-size: 0.8em; }
+.sg-html td.sg-num { font-variant-numeric: tabular-nums; white-space: nowrap; }
+.sg-html td:not(.sg-num) { text-align: left; }
+.sg-html tfoot td { color: var(--muted); font-size: 0.8rem; text-align: left; border-bottom: none; }
 .sg-html { overflow-x: auto; }
 .sg-prose blockquote { margin: 0.8rem 0; padding: 0.4rem 1rem; border-left: 3px solid var(--copper); background: #f6efe6; }
 .sg-math { overflow-x: auto; overflow-y: hidden; margin: 0.6rem 0; padding: 0.15rem 0; }
@@ -61,6 +66,8 @@ pre.sg-stderr { border-left-color: var(--copper); color: #7a3a12; }
 .sg-error pre { font: 0.8rem/1.45 var(--mono); white-space: pre-wrap; margin: 0.4rem 0 0; color: #5a2412; }
 .sg-image { max-width: 100%; height: auto; display: block; }
 .sg-figure { background: var(--card); border: 1px solid var(--rule); min-height: 2rem; }
+.sg-figure-text { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: pre; margin: 0; }
+.sg-figure { position: relative; }
 .sg-figure-fallback { margin: 0; padding: 0.6rem; font: 0.8rem var(--mono); color: var(--muted); }
 .sg-skipped { opacity: 0.55; }
 .sg-failed { color: var(--fail); font-weight: 600; }

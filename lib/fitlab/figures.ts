@@ -1,3 +1,4 @@
+import { legendMargin } from '../plot/axisRange.js';
 import { baseLayout, type PlotSpec, type PlotTrace } from '../plot/figure.js';
 import { PALETTE, SERIES_COLOURS } from '../plot/palette.js';
 import type { BinnedMerit, FitLabReport } from './compare.js';
@@ -21,6 +22,14 @@ function histogram(values: Float64Array, lo: number, hi: number, bins: number): 
   return { centres: counts.map((_, i) => lo + (i + 0.5) * w), counts, inRange };
 }
 
+/** The layout with a bottom margin that holds the legend's rows under the x-axis title (long fitter names wrap). */
+function withLegendRoom(layout: Record<string, unknown>, data: readonly PlotTrace[]): Record<string, unknown> {
+  const { marginBottom } = legendMargin(data.map((t) => String(t.name ?? '')));
+  layout.margin = { ...(layout.margin as Record<string, number>), b: marginBottom };
+  layout.height = 400 + Math.max(0, marginBottom - 96);
+  return layout;
+}
+
 /**
  * Pull distributions (κ_fit − κ_true)/σ(κ) of every fitter, with the unit Gaussian they should
  * follow when the covariance is honest (scaled to each fitter's tracks in range).
@@ -37,7 +46,7 @@ export function pullFigure(report: FitLabReport, bins = 50, range = 5): PlotSpec
   const w = (2 * range) / bins;
   const xs = Array.from({ length: 201 }, (_, i) => -range + (2 * range * i) / 200);
   data.push({ type: 'scatter', mode: 'lines', line: { dash: 'dot', color: PALETTE.muted }, name: 'unit Gaussian', x: xs, y: xs.map((x) => (maxIn * w * Math.exp(-0.5 * x * x)) / Math.sqrt(2 * Math.PI)) });
-  return { data, layout: baseLayout('Curvature pulls', '(κ_fit − κ_true) / σ(κ)', 'tracks') };
+  return { data, layout: withLegendRoom(baseLayout('Curvature pulls', '(κ_{fit} − κ_{true}) / σ(κ)', 'tracks'), data) };
 }
 
 /** p-value distributions of χ²; flat when the hit errors and the track model are right. */
@@ -48,16 +57,16 @@ export function pValueFigure(report: FitLabReport, bins = 20): PlotSpec {
   });
   const n = report.sample.count;
   data.push({ type: 'scatter', mode: 'lines', line: { dash: 'dot', color: PALETTE.muted }, name: 'flat (expected)', x: [0, 1], y: [n / bins, n / bins] });
-  return { data, layout: baseLayout('χ² p-values', 'P(χ² ≥ observed)', 'tracks') };
+  return { data, layout: withLegendRoom(baseLayout('χ² p-values', 'P(χ² ≥ observed)', 'tracks'), data) };
 }
 
 type Quantity = 'momentumResolution' | 'momentumBias' | 'kappaResolution' | 'kappaBias' | 'pullWidth' | 'pullMean' | 'failureRate';
 
 const LABEL: Readonly<Record<Quantity, string>> = {
   momentumResolution: 'σ(p)/p',
-  momentumBias: 'mean (p_fit − p)/p',
+  momentumBias: 'mean (p_{fit} − p)/p',
   kappaResolution: 'σ(κ) [1/m]',
-  kappaBias: 'mean κ_fit − κ [1/m]',
+  kappaBias: 'mean κ_{fit} − κ [1/m]',
   pullWidth: 'pull width',
   pullMean: 'pull mean',
   failureRate: 'failure rate',
@@ -80,5 +89,5 @@ export function meritFigure(report: FitLabReport, against: 'momentum' | 'length'
   const layout = baseLayout(`${LABEL[quantity]} vs ${against === 'momentum' ? 'momentum' : 'track length'}`,
     against === 'momentum' ? 'p [GeV/c]' : 'track length [m]', LABEL[quantity]);
   if (against === 'momentum') (layout.xaxis as Record<string, unknown>).type = 'log';
-  return { data, layout };
+  return { data, layout: withLegendRoom(layout, data) };
 }

@@ -1,6 +1,7 @@
 import { msg } from '../errors.js';
 import { asMime, escapeHtml, type MimeBundle, type Presentable } from '../display.js';
 import { PALETTE, TRACK_COLOURS, chargeColour } from './palette.js';
+import { svgToPng } from './static/svgToPng.js';
 
 /** Hits in the bending plane, metres; `track[i]` is the index of the track hit i belongs to (−1: none). */
 export interface DisplayHits {
@@ -50,7 +51,7 @@ export class EventDisplay implements Presentable {
     this.summary = summary;
   }
   [asMime](): MimeBundle {
-    return { 'image/svg+xml': this.svg, 'text/plain': this.summary };
+    return { 'image/svg+xml': this.svg, 'image/png': Buffer.from(svgToPng(this.svg)).toString('base64'), 'text/plain': this.summary };
   }
 }
 

@@ -1,5 +1,7 @@
-import { asMime, escapeHtml, type MimeBundle, type Presentable } from '../display.js';
+import { asMime, type MimeBundle, type Presentable } from '../display.js';
 import { PALETTE } from './palette.js';
+import { figureSvg, type FigureSvgOptions } from './static/figureSvg.js';
+import { svgToPng } from './static/svgToPng.js';
 
 /** MIME type under which notebook front ends draw a plotly figure from its JSON. */
 export const PLOTLY_MIME = 'application/vnd.plotly.v1+json';
@@ -52,8 +54,10 @@ export function axisStyle(text: string): Record<string, unknown> {
 
 /**
  * A figure: plotly JSON plus the notebook display methods. In a notebook it shows as an
- * interactive plot (`application/vnd.plotly.v1+json`); front ends without plotly get a short
- * HTML description and plain text naming what the figure holds.
+ * interactive plot (`application/vnd.plotly.v1+json`); every bundle also carries our own static
+ * rendering of the same spec — SVG, and PNG rasterised from it (a front end without the plotly
+ * renderer, or one that hides SVG in a notebook it does not trust, shows the picture) — and plain
+ * text naming what the figure holds, its notes included.
  */
 export class Figure implements Presentable {
   readonly data: readonly PlotTrace[];
@@ -75,17 +79,30 @@ export class Figure implements Presentable {
     return { data: this.data, layout: this.layout };
   }
 
-  /** A one-line-per-trace description: the text fallback of the figure. */
+  /** The figure drawn as a standalone SVG document by our own renderer (no browser). */
+  toSvg(options: FigureSvgOptions = {}): string {
+    return figureSvg(this.toJSON(), options);
+  }
+
+  /** The SVG rasterised to PNG bytes (`scale` 2 for a sharper picture on paper). */
+  toPng(options: FigureSvgOptions & { scale?: number } = {}): Uint8Array {
+    return svgToPng(this.toSvg(options), options.scale ?? 1);
+  }
+
+  /** A one-line-per-trace description with the figure's notes: the text fallback of the figure. */
   describe(): string {
     const lines = this.data.map((t, i) => `  ${t.name ?? `trace ${i + 1}`}: ${t.type}, ${pointCount(t)} points`);
-    return [`Figure${this.title ? ` "${this.title}"` : ''} (${this.data.length} trace${this.data.length === 1 ? '' : 's'})`, ...lines].join('\n');
+    const notes = (Array.isArray(this.layout.annotations) ? this.layout.annotations as { text?: unknown }[] : [])
+      .map((a) => (typeof a.text === 'string' ? `  note: ${a.text}` : '')).filter((s) => s !== '');
+    return [`Figure${this.title ? ` "${this.title}"` : ''} (${this.data.length} trace${this.data.length === 1 ? '' : 's'})`, ...lines, ...notes].join('\n');
   }
 
   [asMime](): MimeBundle {
-    const items = this.data.map((t, i) => `<li>${escapeHtml(String(t.name ?? `trace ${i + 1}`))}: ${escapeHtml(t.type)}, ${pointCount(t)} points</li>`).join('');
+    const svg = this.toSvg();
     return {
       [PLOTLY_MIME]: JSON.parse(JSON.stringify(this.toJSON())) as unknown,
-      'text/html': `<figure class="sagitta-figure-text"><figcaption>${escapeHtml(this.title || 'Figure')}</figcaption><ul>${items}</ul></figure>`,
+      'image/svg+xml': svg,
+      'image/png': Buffer.from(svgToPng(svg)).toString('base64'),
       'text/plain': this.describe(),
     };
   }

@@ -6,5 +6,7 @@ export { histogramFigure, type HistogramOptions } from './histogram.js';
 export { histogram2dFigure, type Histogram2DFigureOptions } from './histogram2dFigure.js';
 export { DENSITY_SCALE, PALETTE, SERIES_COLOURS, SERIES_DASHES, SERIES_MARKERS, chargeColour, seriesStyle, type SeriesStyle } from './palette.js';
 export { spectrumFigure, type SpectrumFigureOptions } from './spectrumFigure.js';
+export { figureSvg, type FigureSvgOptions } from './static/figureSvg.js';
+export { svgToPng } from './static/svgToPng.js';
 export { eventArcs, trackEventDisplay, type EventArcs } from './trackEventDisplay.js';
 export { xyFigure, type XYOptions, type XYSeries } from './xyFigure.js';

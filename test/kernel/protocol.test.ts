@@ -105,16 +105,18 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     expect(result.content.execution_count).toBe(reply.content.execution_count);
   });
 
-  it('a figure shows as application/vnd.plotly.v1+json with text/html and text/plain fallbacks', async () => {
+  it('a figure shows as application/vnd.plotly.v1+json with static image/svg+xml and image/png renderings and text/plain', async () => {
     const { reply, iopub } = await run('import { histogramFigure } from "sagitta-tracks";\nhistogramFigure([1, 2, 2, 3, 3, 3], { bins: 3 })');
     expect(reply.content.status).toBe('ok');
     const data = iopub.find((m) => m.header.msg_type === 'execute_result')!.content.data;
     expect(data['application/vnd.plotly.v1+json']).toHaveProperty('data');
-    expect(typeof data['text/html']).toBe('string');
+    expect(String(data['image/svg+xml'])).toMatch(/^<svg/);
+    expect(Buffer.from(String(data['image/png']), 'base64').subarray(1, 4).toString('latin1')).toBe('PNG');
+    expect(data['text/html']).toBeUndefined();
     expect(typeof data['text/plain']).toBe('string');
   });
 
-  it('an event display shows as image/svg+xml, shown mid-cell with present()', async () => {
+  it('an event display shows as image/svg+xml and image/png, shown mid-cell with present()', async () => {
     const { reply, iopub } = await run(
       [
         'import { eventDisplay, present } from "sagitta-tracks";',
@@ -125,6 +127,7 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
     expect(reply.content.status).toBe('ok');
     const shown = iopub.find((m) => m.header.msg_type === 'display_data')!;
     expect(String(shown.content.data['image/svg+xml'])).toMatch(/^<svg/);
+    expect(Buffer.from(String(shown.content.data['image/png']), 'base64').subarray(1, 4).toString('latin1')).toBe('PNG');
     expect(typeof shown.content.data['text/plain']).toBe('string');
   });
 

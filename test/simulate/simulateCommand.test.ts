@@ -18,6 +18,7 @@ describe('sagitta simulate <scenario> --seed --out --truth', () => {
     const out = join(dir, 'hits.csv'), truth = join(dir, 'truth.csv');
     const first = runSimulate(file, { seed: '7', out, truth });
     expect(first.stdout).toMatch(/simulated 18 events, \d+ particles, \d+ hits \(scenario brindlemoor, seed 7\)/);
+    expect(first.stdout).toContain(`run record (seed, scenario, counts; marks the hits as simulated for reports) → ${join(dir, 'hits.run.json')}`);
     const hits = readFileSync(out);
     expect(parseHitsCsv(hits, out).length).toBeGreaterThan(100);
     expect(readFileSync(truth, 'utf8').split('\n')[0]).toBe('event,track,parent,species,charge,process,vx[mm],vy[mm],vz[mm],px[MeV/c],py[MeV/c],pz[MeV/c],p[MeV/c],end,ex[mm],ey[mm],ez[mm],path[mm],hits');

@@ -86,7 +86,7 @@ Examples:
   sagitta range --particle proton --material water --energy "100 MeV"
   sagitta range --particle mu+ --material liquid-hydrogen --range "1.2 cm" --json
   sagitta range --particle proton --material silicon --table --from "1 MeV" --to "1 GeV" --points 13
-  sagitta range --particle alpha --material-file my-gas.txt --energy "5.3 MeV"`)
+  sagitta range --particle alpha --material-file notebooks/data/larkspur-fill-gas.txt --energy "5.3 MeV"`)
     .action((options: RangeCommandOptions) => {
       // Every refusal here is about an option's value (exit 2), except a material file that cannot be used (exit 1).
       const { stdout, warnings } = usageUnlessInput(() => runRange(options));

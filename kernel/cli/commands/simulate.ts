@@ -107,9 +107,10 @@ export function runSimulate(scenario: string | undefined, options: SimulateComma
     throw err;
   }
   const warnings = consumeWarnings();
-  const written = outputs.map((o) => o.path).join(', ');
+  const written = outputs.filter((o) => o !== record).map((o) => o.path).join(', ');
   return {
-    stdout: `simulated ${totals.events} events, ${totals.particles} particles, ${totals.hitRows} hits (scenario ${config.name}, seed ${seed}) → ${written}\n`,
+    stdout: `simulated ${totals.events} events, ${totals.particles} particles, ${totals.hitRows} hits (scenario ${config.name}, seed ${seed}) → ${written}\n` +
+      `run record (seed, scenario, counts; marks the hits as simulated for reports) → ${record.path}\n`,
     stderr: warnings.map((w) => `sagitta simulate: warning: ${w.message}\n`).join(''),
   };
 }

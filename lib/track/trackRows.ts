@@ -1,0 +1,21 @@
+import { TableView, type TableViewOptions } from '../table/tableView.js';
+import type { TrackTable } from './measureTracks.js';
+import { trackTableColumns } from './trackTableColumns.js';
+
+/**
+ * The fitted tracks as a table view, one row per track keyed by event and track, with the
+ * selection verbs of TableView (`where`, `sortBy`, `first`, `columns`). Shown by default: hits,
+ * charge, p_T ± σ, p ± σ (when the hits carry z), χ²/ndf and status; every column of
+ * `trackTableColumns` can be picked with `.columns(…)`.
+ * @example trackRows(tracks).where((t) => t.status === 'ok').sortBy('pt_GeV_c', 'descending').first(10)
+ */
+export function trackRows(tracks: TrackTable, options: Pick<TableViewOptions, 'caption' | 'shown'> = {}): TableView {
+  const columns = ['n_hits', 'charge', 'pt_GeV_c', ...(tracks.hasZ ? ['p_GeV_c'] : []), 'chi2', 'ndf', 'status'];
+  return new TableView(trackTableColumns(tracks), {
+    noun: 'track',
+    keys: ['event', 'track'],
+    columns,
+    caption: options.caption ?? `Tracks fitted by ${tracks.method} in ${tracks.fieldT} T`,
+    shown: options.shown,
+  });
+}
