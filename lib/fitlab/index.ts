@@ -7,3 +7,4 @@ export { fitLabTables } from './tables.js';
 export { withNoiseHits } from './withNoiseHits.js';
 export { findingLab, type FindingLabOptions, type FindingLabReport, type FindingBin, type FindingSummary } from './findingLab.js';
 export { findingFigure } from './findingFigure.js';
+export { matterSample, type MatterSample, type MatterSampleOptions } from './matterSample.js';
