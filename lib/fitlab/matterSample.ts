@@ -78,7 +78,7 @@ export function matterSample(o: MatterSampleOptions): MatterSample {
     const first = row;
     const end = transportTrack(
       { species: o.species, xM: 0, yM: 0, zM: 0, ux: cosL * Math.cos(phi), uy: cosL * Math.sin(phi), uz: tl * cosL, momentumGeV: p }, box,
-      { ...TRANSPORT_DEFAULTS, energyLoss: o.energyLoss ?? 'mean', scattering: o.scattering ?? true, maxStepM: o.spacingM, maxPathM: (o.maxHits + 0.5) * o.spacingM, sampling: { kind: 'spacing', spacingM: o.spacingM } },
+      { ...TRANSPORT_DEFAULTS, energyLoss: o.energyLoss ?? 'mean', scattering: o.scattering ?? true, maxStepM: Math.min(o.spacingM, 1e-3), rangeFraction: 0.02, maxPathM: (o.maxHits + 0.5) * o.spacingM, sampling: { kind: 'spacing', spacingM: o.spacingM } },
       rng, (hx, hy, hz, pm) => {
         if (row - first >= o.maxHits) return;
         x[row] = hx + o.sigmaM * rng.gaussian(); y[row] = hy + o.sigmaM * rng.gaussian(); z[row] = hz + o.sigmaM * rng.gaussian();

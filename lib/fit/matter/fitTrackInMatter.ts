@@ -2,7 +2,7 @@ import { chi2Survival } from '../../analysis/chi2Survival.js';
 import { GEV_PER_TESLA_METRE } from '../../constants.js';
 import { msg } from '../../errors.js';
 import { runMatterFitIterations } from './matterFitIterations.js';
-import { lossModel } from './lossModel.js';
+import { kineticAndStoppingAtRange, lossModel, type LossModel } from './lossModel.js';
 import { ensureScratch, type MatterFitScratch } from './matterFitScratch.js';
 import {
   MATTER_FIT_DEFAULTS, MATTER_FIT_MIN_HITS, MATTER_FIT_MIN_PROBABILITY,
@@ -55,6 +55,9 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
   if (run.status !== 'ok') return failed(run.status, options, n, run.reachedHits);
   const hasZ = hits.z !== undefined;
   const ctx = { fieldT: options.fieldT, chargeAbs: model.chargeAbs, massMeV: model.massMeV, s_m: 0 };
+  const residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
+  const spacingM = sc.path[n - 1] / (n - 1);
+  if (residualRangeM < spacingM) addStopPointVariance(model, sc, n, spacingM);
   const ref = Float64Array.of(sc.x[0], sc.y[0], sc.phi[0], sc.kappa[0], sc.z[0], run.tanLambda);
   const first = finishState(ref, sc.firstB, sc.firstZ, hasZ, ctx);
   const e = n - 1;
@@ -63,7 +66,6 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
   const last = finishState(ref, sc.lastB, sc.lastZ, hasZ, { ...ctx, s_m: path });
   const ndf = n - 3 + (hasZ ? n - 2 : 0);
   const pValue = chi2Survival(run.chi2, ndf);
-  const residualRangeM = set.energyLoss ? sc.range[e] / model.gcm2PerM : Infinity;
   return Object.freeze({
     status: pValue < MATTER_FIT_MIN_PROBABILITY ? 'poor-fit' : 'ok',
     particle: options.particle.name,
@@ -79,6 +81,25 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
     residualM: sc.residual.slice(0, n),
     residualZM: sc.residualZ.slice(0, n),
   });
+}
+
+/**
+ * A hypothesis that stops before a next hit one spacing on leaves the stopping point unknown
+ * within that spacing, and near the stop the linearised error in p (from the steep rise of the
+ * curvature) is far too small. The residual range at the last hit is then taken as uniform over
+ * one mean 3-D spacing (σ_R = spacing/√12) and its effect on κ at the first and last hit,
+ * dκ/dR = −(κ/p)·S/β from the range–energy relation, is added to their variances.
+ */
+function addStopPointVariance(model: LossModel, sc: MatterFitScratch, n: number, spacingM: number): void {
+  const sigmaR = (spacingM / Math.sqrt(12)) * model.gcm2PerM;
+  const out = sc.tmp, m = model.massMeV;
+  for (const [i, b] of [[0, sc.firstB], [n - 1, sc.lastB]] as const) {
+    kineticAndStoppingAtRange(model, Math.max(sc.range[i], 1e-12), out);
+    const t = out[0], s = out[1];
+    const pm = Math.sqrt(t * (t + 2 * m)), beta = pm / (t + m);
+    const dk = (Math.abs(sc.kappa[i]) / pm) * (s / beta) * sigmaR;
+    if (Number.isFinite(dk)) b[11] += dk * dk;
+  }
 }
 
 function checkOptions(o: MatterFitOptions): void {

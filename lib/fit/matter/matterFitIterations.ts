@@ -1,5 +1,6 @@
 import { backwardPass, forwardPass } from './filterPasses.js';
-import type { LossModel } from './lossModel.js';
+import { GEV_PER_TESLA_METRE } from '../../constants.js';
+import { kineticAndStoppingAtRange, type LossModel } from './lossModel.js';
 import type { MatterFitScratch } from './matterFitScratch.js';
 import type { MatterTrackHits } from './matterTrackFit.js';
 import { buildReference, REFERENCE_DIVERGED, REFERENCE_OK, type ReferenceSettings } from './referenceTrack.js';
@@ -32,16 +33,17 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
   const start = new Float64Array(6), good = new Float64Array(6), delta = new Float64Array(6);
   if (!seedState(hits, model, set.fieldT, set.energyLoss, start)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN };
   const prior = new Float64Array(5);
-  let haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
+  let lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
   while (iterations < maxIterations && tries < maxIterations + 3 * MAX_HALVINGS) {
     tries++;
     const code = buildReference(model, hits, start, set, sc);
+    lastBuildGood = code === REFERENCE_OK;
     if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN };
     if (code !== REFERENCE_OK) {
       reached = code;
-      if (++halvings > MAX_HALVINGS) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN };
+        if (++halvings > MAX_HALVINGS) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN };
       lambda *= 0.5;
-      if (haveGood) for (let k = 0; k < 6; k++) start[k] = good[k] + lambda * delta[k];
+      if (haveGood) moveStart(model, set, sc, start, good, delta, lambda, goodRange);
       else start[3] *= 0.7; // the seed stops short: raise its momentum
       continue;
     }
@@ -59,16 +61,47 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     converged = small(b[0], b[3]) && small(b[1], b[7]) && small(b[2], b[11]) && (!hasZ || (small(zb[0], zb[2]) && small(zb[1], zb[5])));
     if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN };
     if (converged) break;
-    for (let k = 0; k < 6; k++) start[k] = good[k] + delta[k];
+    goodRange = sc.range[0];
+    moveStart(model, set, sc, start, good, delta, 1, goodRange);
   }
   if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN };
   if (!converged) {
-    // The last reference is the one of `good`; accept it only when the last move was within its error.
-    const b = sc.firstB;
-    if (!(b[2] * b[2] <= b[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN };
+    // Accept the last reachable state only when its last move was within its error; rebuild its
+    // reference when a later trial overwrote it.
+    if (!(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN };
+    if (!lastBuildGood) {
+      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN };
+      chi2 = backwardPass(sc, n, hasZ, prior);
+    }
+    // Report the reachable state itself, not the move beyond it.
+    sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0;
   }
   forwardPass(sc, n, hasZ, prior);
   return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5] };
+}
+
+/**
+ * start = good + λ·delta, except the curvature with energy loss: its change is made linear in
+ * the residual range at the first hit (δR = dR/dκ·δκ), in which the track's end is nearly
+ * linear — so a stopping track converges from either side instead of creeping up to the
+ * stopping point; a move to R ≤ 0 becomes a momentum too low to reach anything (halved again).
+ */
+function moveStart(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, start: Float64Array, good: Float64Array, delta: Float64Array, lambda: number, goodRange: number): void {
+  for (let k = 0; k < 6; k++) start[k] = good[k] + lambda * delta[k];
+  if (!set.energyLoss || !Number.isFinite(goodRange) || good[3] === 0) return;
+  const t = good[5], sec = Math.sqrt(1 + t * t);
+  const cK = GEV_PER_TESLA_METRE * model.chargeAbs * Math.abs(set.fieldT) * sec;
+  const m = model.massMeV;
+  const tmp = sc.tmp;
+  kineticAndStoppingAtRange(model, goodRange, tmp);
+  const t0 = tmp[0], s0 = tmp[1];
+  const pm = Math.sqrt(t0 * (t0 + 2 * m)), beta = pm / (t0 + m);
+  const dRdK = (beta / s0) * (-pm / good[3]);
+  const r1 = goodRange + lambda * dRdK * delta[3];
+  if (!(r1 > 0) || !(s0 > 0)) { start[3] = good[3] * 4; return; }
+  kineticAndStoppingAtRange(model, r1, tmp);
+  const p1 = Math.sqrt(tmp[0] * (tmp[0] + 2 * m)) / 1000;
+  start[3] = (Math.sign(good[3]) * cK) / p1;
 }
 
 /**

@@ -28,7 +28,7 @@ export interface MatterFitOptions {
   readonly multipleScattering?: boolean;
   /** Mean energy loss along the track (CSDA range table) and its straggling; default true. */
   readonly energyLoss?: boolean;
-  /** Largest number of re-linearisations; default 6. */
+  /** Largest number of re-linearisations; default 12. */
   readonly maxIterations?: number;
 }
 
@@ -53,7 +53,7 @@ export const MATTER_FIT_MIN_PROBABILITY = 1e-3;
 /** Fewest hits the fit takes (five parameters with z, three without, plus a check). */
 export const MATTER_FIT_MIN_HITS = 4;
 
-export const MATTER_FIT_DEFAULTS = Object.freeze({ multipleScattering: true, energyLoss: true, maxIterations: 6 });
+export const MATTER_FIT_DEFAULTS = Object.freeze({ multipleScattering: true, energyLoss: true, maxIterations: 12 });
 
 /**
  * The fitted state at one hit, at the point of the track closest (in the bending plane) to it.
