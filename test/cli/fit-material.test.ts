@@ -27,7 +27,8 @@ describe('sagitta fit --material (issue 3: momentum error budget)', () => {
   const hits = writeHits();
   it('adds sigma_p_meas_GeV_c, sigma_p_ms_GeV_c and sigma_p_total_GeV_c; the MS term matches momentumResolution for argon gas', async () => {
     const out = join(dir, 'tracks.json');
-    const summary = await runFit(hits, { ...base, material: 'argon-gas', particle: 'pi+', out });
+    // The plain helix fit here: its σ(pT) is the hit-error term alone (the fit with material adds scattering, tested below).
+    const summary = await runFit(hits, { ...base, material: 'argon-gas', particle: 'pi+', plainHelix: true, out });
     const row = JSON.parse(readFileSync(out, 'utf8')).tracks[0];
     expect(row).toHaveProperty('sigma_p_meas_GeV_c');
     expect(row).toHaveProperty('sigma_p_ms_GeV_c');
@@ -39,6 +40,13 @@ describe('sagitta fit --material (issue 3: momentum error budget)', () => {
     // The measurement term is the exact least-squares error for these hits: close to the fit's own σ(pT).
     expect(Math.abs(row.sigma_p_meas_GeV_c / row.sigma_pt_GeV_c - 1)).toBeLessThan(0.05);
     expect(summary).toMatch(/error budget in argon-gas \(β from pi\+\): median σp\/p measurement [\d.]+ %, multiple scattering [\d.]+ %/);
+  });
+  it('with the fit with material, sigma_pt_GeV_c holds the scattering: it agrees with the budget total', async () => {
+    const out = join(dir, 'matter.json');
+    const summary = await runFit(hits, { ...base, material: 'argon-gas', particle: 'pi+', out });
+    const row = JSON.parse(readFileSync(out, 'utf8')).tracks[0];
+    expect(summary).toMatch(/fit with material: energy loss of pi\+ and multiple scattering in argon-gas/);
+    expect(Math.abs(row.sigma_pt_GeV_c / row.sigma_p_total_GeV_c - 1)).toBeLessThan(0.2);
   });
   it('without --material the columns are absent', async () => {
     const out = join(dir, 'plain.csv');
