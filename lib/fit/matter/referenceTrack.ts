@@ -196,7 +196,7 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
     n00 += (t2 * al * al) / 3; n01 += (t2 * al * secL) / 2; n11 += t2 * secL * secL;
     z00 += (t2 * al * al * secL * secL) / 3; z01 += (t2 * al * secL * secL * secL) / 2; z11 += t2 * secL * secL * secL * secL;
   }
-  if (set.energyLoss && model.stragglingMeV2PerM > 0 && Number.isFinite(cur[4]) && !(globalThis as any).NOSTRAG) {
+  if (set.energyLoss && model.stragglingMeV2PerM > 0 && Number.isFinite(cur[4])) {
     const pm = 1000 * pE, beta = pm / Math.sqrt(pm * pm + m * m);
     const dk = kapE / (pm * beta);
     n22 += dk * dk * model.stragglingMeV2PerM * al;
