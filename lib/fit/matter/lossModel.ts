@@ -57,7 +57,8 @@ export function rangeAtKinetic(m: LossModel, kineticMeV: number): number {
 
 /**
  * Kinetic energy T [MeV] and stopping power S = dT/dR [MeV cm²/g] at residual range R [g/cm²],
- * written to out[0], out[1]: the cubic Hermite of the cached table (value and slope), the
+ * written to out[0], out[1] (out[2] keeps the table cell as a hint for the next call; start it
+ * at 0): the cubic Hermite of the cached table (value and slope), the
  * table's power law below its first node, and no loss (S = 0, T = top) above its last.
  */
 export function kineticAndStoppingAtRange(m: LossModel, rangeGcm2: number, out: Float64Array): void {
@@ -73,11 +74,20 @@ export function kineticAndStoppingAtRange(m: LossModel, rangeGcm2: number, out: 
     return;
   }
   if (rangeGcm2 >= r[n - 1]) { out[0] = t[n - 1]; out[1] = 0; return; }
-  let lo = 0, hi = n - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (r[mid] <= rangeGcm2) lo = mid; else hi = mid;
+  // Start from the cell of the previous call (out[2]): a track's ranges change slowly.
+  let lo = out[2] | 0, hi = lo + 1;
+  if (!(lo >= 0 && hi < n && r[lo] <= rangeGcm2 && rangeGcm2 < r[hi])) {
+    if (lo >= 0 && hi < n - 1 && r[hi] <= rangeGcm2 && rangeGcm2 < r[hi + 1]) { lo = hi; hi = lo + 1; }
+    else if (lo > 0 && hi < n && r[lo - 1] <= rangeGcm2 && rangeGcm2 < r[lo]) { hi = lo; lo = hi - 1; }
+    else {
+      lo = 0; hi = n - 1;
+      while (hi - lo > 1) {
+        const mid = (lo + hi) >> 1;
+        if (r[mid] <= rangeGcm2) lo = mid; else hi = mid;
+      }
+    }
   }
+  out[2] = lo;
   const h = r[hi] - r[lo];
   const u = (rangeGcm2 - r[lo]) / h;
   const u2 = u * u, u3 = u2 * u;

@@ -16,8 +16,11 @@ export interface MatterFitRun {
   readonly tanLambda: number;
 }
 
-/** A change below this fraction of its error ends the iterations. */
-const CONVERGED_SIGMAS = 0.01;
+/**
+ * A change below this fraction of its error ends the iterations (the change itself is applied,
+ * so what is left is of second order: ≲ 1 % of σ).
+ */
+const CONVERGED_SIGMAS = 0.1;
 /** Halvings of a step that overshot (the hypothesis stopped short) before giving up. */
 const MAX_HALVINGS = 8;
 

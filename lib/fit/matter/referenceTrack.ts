@@ -16,8 +16,11 @@ export interface ReferenceSettings {
 const MAX_TURN_RAD = 0.05;
 /** Largest fraction of the residual range one step may use (steps shrink as the particle slows). */
 const MAX_RANGE_FRACTION = 0.1;
-/** The point of closest approach is found to this distance along the track [m]. */
-const APPROACH_TOLERANCE_M = 1e-10;
+/**
+ * The point of closest approach is found to this distance along the track [m]: a shift s along
+ * the track changes the residual across it by only κ·s²/2.
+ */
+const APPROACH_TOLERANCE_M = 1e-8;
 
 /** `buildReference` result: all hits reached. */
 export const REFERENCE_OK = -1;
@@ -71,8 +74,14 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
     F.fill(0); F[0] = 1; F[4] = 1; F[8] = 1; Q.fill(0); Qz.fill(0);
     let dsTotal = 0;
     for (let it = 0; it < 8; it++) {
-      const d = (hx[i] - cur[0]) * Math.cos(cur[2]) + (hy[i] - cur[1]) * Math.sin(cur[2]);
-      if (it > 0 && Math.abs(d) < APPROACH_TOLERANCE_M) break;
+      // Arc to the point of the current circle closest to the hit: angle atan2(κ·a, 1 − κ·b) with
+      // (a, b) the hit along and across the direction (exact for constant κ; then corrected).
+      const c = Math.cos(cur[2]), s = Math.sin(cur[2]);
+      const ex = hx[i] - cur[0], ey = hy[i] - cur[1];
+      const along = ex * c + ey * s;
+      if (it > 0 && Math.abs(along) < APPROACH_TOLERANCE_M) break;
+      const kap = cur[3], across = -ex * s + ey * c;
+      const d = Math.abs(kap * along) < 1e-9 ? along : Math.atan2(kap * along, 1 - kap * across) / kap;
       if (set.energyLoss && d > 0 && d * secL * model.gcm2PerM >= cur[4]) return i;
       let remaining = d;
       while (remaining !== 0) {

@@ -33,7 +33,7 @@ export function seedState(hits: MatterTrackHits, model: LossModel, fieldT: numbe
     const pathGcm2 = path * secL * model.gcm2PerM;
     if (Number.isFinite(rMean)) {
       const r0 = Math.max(rMean + 0.5 * pathGcm2, 1.05 * pathGcm2);
-      const tmp = new Float64Array(2);
+      const tmp = new Float64Array(3);
       kineticAndStoppingAtRange(model, r0, tmp);
       const p0 = Math.sqrt(tmp[0] * (tmp[0] + 2 * mass)) / 1000;
       out[3] = (Math.sign(kappa) * cK) / p0;
