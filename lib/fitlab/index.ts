@@ -8,3 +8,4 @@ export { withNoiseHits } from './withNoiseHits.js';
 export { findingLab, type FindingLabOptions, type FindingLabReport, type FindingBin, type FindingSummary } from './findingLab.js';
 export { findingFigure } from './findingFigure.js';
 export { matterSample, type MatterSample, type MatterSampleOptions } from './matterSample.js';
+export { matterFitLab, type MatterFitLabReport, type MatterFitLabBin, type MatterFitMerit, type MatterFitLabOptions } from './matterFitLab.js';
