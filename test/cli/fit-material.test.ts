@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { runFit, type FitCommandOptions } from '../../kernel/cli/commands/fit.js';
 import { momentumResolution } from '../../lib/track/resolution.js';
 import { material } from '../../lib/matter/materials.js';
@@ -47,6 +48,20 @@ describe('sagitta fit --material (issue 3: momentum error budget)', () => {
     const row = JSON.parse(readFileSync(out, 'utf8')).tracks[0];
     expect(summary).toMatch(/fit with material: energy loss of pi\+ and multiple scattering in argon-gas/);
     expect(Math.abs(row.sigma_pt_GeV_c / row.sigma_p_total_GeV_c - 1)).toBeLessThan(0.2);
+  });
+  it('the fit with material gives the same bytes with 1 and 2 threads; --plain-helix keeps the one-helix fit; poor fits are counted', async () => {
+    const demo = fileURLToPath(new URL('../../notebooks/data/brindlemoor-hits.csv', import.meta.url));
+    const one = join(dir, 'one.csv'), two = join(dir, 'two.csv'), plain = join(dir, 'plain-helix.csv');
+    const o = { ...base, field: '1.5 T', lengthUnit: 'mm', material: 'liquid-hydrogen', particle: 'mu+', quiet: true };
+    const summary = await runFit(demo, { ...o, threads: '1', out: one });
+    await runFit(demo, { ...o, threads: '2', out: two });
+    expect(readFileSync(two)).toEqual(readFileSync(one));
+    expect(summary).toMatch(/fitted \d+ \(\d+ poor fits: chi2 probability below 0\.001\), failed \d+/);
+    await runFit(demo, { ...o, plainHelix: true, out: plain });
+    const header = readFileSync(plain, 'utf8').split('\n')[0];
+    expect(header).toMatch(/chi2_prob/);
+    expect(header).not.toMatch(/p_last_GeV_c/);
+    expect(readFileSync(one, 'utf8').split('\n')[0]).toMatch(/p_last_GeV_c/);
   });
   it('without --material the columns are absent', async () => {
     const out = join(dir, 'plain.csv');
