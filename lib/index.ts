@@ -39,6 +39,7 @@ export { fitHelices, fitHelix, type HelixFit, type HelixFitColumns, type SpaceHi
 export { fitLine, type LineFit } from './fit/fitLine.js';
 export { type CircleFitMethod, type FitContext, type FitMethod, type HelixFitMethod } from './fit/fitMethod.js';
 export { BUILT_IN_FIT_METHODS, fitMethod, fitMethods, registerFitMethod } from './fit/fitMethods.js';
+export { MATTER_FIT_DEFAULTS, MATTER_FIT_MIN_HITS, MATTER_FIT_MIN_PROBABILITY, MATTER_FIT_STATUS, fitTrackInMatter, fitTracksInMatter, type MatterFitColumns, type MatterFitOptions, type MatterFitState, type MatterFitStatus, type MatterTrackColumnsHits, type MatterTrackFit, type MatterTrackHits } from './fit/matter/index.js';
 export { GEOMETRIC_FIT_DEFAULTS, GEOMETRIC_METHOD, type GeometricFitOptions } from './fit/geometricCircle.js';
 export { KASA_METHOD } from './fit/kasaCircle.js';
 export { type PlaneHits } from './fit/preparePlaneHits.js';
@@ -183,6 +184,8 @@ export { meritFigure, pValueFigure, pullFigure } from './fitlab/figures.js';
 export { findingFigure } from './fitlab/findingFigure.js';
 export { findingLab, type FindingBin, type FindingLabOptions, type FindingLabReport, type FindingSummary } from './fitlab/findingLab.js';
 export { fitLabSample, type FitLabSample, type FitLabSampleOptions } from './fitlab/sample.js';
+export { matterSample, type MatterSample, type MatterSampleOptions } from './fitlab/matterSample.js';
+export { matterFitLab, type MatterFitLabBin, type MatterFitLabOptions, type MatterFitLabReport, type MatterFitMerit } from './fitlab/matterFitLab.js';
 export { fitLabSampleFromRun, type SampleFromRunOptions } from './fitlab/sampleFromRun.js';
 export { fitLabTables } from './fitlab/tables.js';
 export { withNoiseHits } from './fitlab/withNoiseHits.js';
