@@ -2,7 +2,8 @@ import { msg } from '../errors.js';
 import { material as lookupMaterial, type Material } from '../matter/materials.js';
 import { particle as lookupParticle, type Particle } from '../particles.js';
 import { chargedSpecies, PID_SPECIES } from './chargedSpecies.js';
-import { curvatureSign, fitHypothesis, type HypothesisFit } from './fitHypothesis.js';
+import { filterTrack, newFilterScratch } from './bendingPlaneFilter.js';
+import { fitHypothesis, type HypothesisFit } from './fitHypothesis.js';
 import { meanHitSpacingM } from './pathLength.js';
 import { segmentCurvatures, type SegmentCurvatures, type SegmentHits } from './segmentCurvatures.js';
 import { speciesRange } from './speciesRange.js';
@@ -20,7 +21,9 @@ export interface IdentifyTrackOptions {
   readonly marginM?: number;
   /** Force the stop decision instead of `stopsInside`. */
   readonly stops?: boolean;
-  /** Hits per curvature segment; default 8. */
+  /** Hit error [m] when the hits carry none; default 200 µm. */
+  readonly hitErrorM?: number;
+  /** Hits per curvature segment (stop decision and figures); default 8. */
   readonly hitsPerSegment?: number;
   /** |z|; default 1. */
   readonly chargeMagnitude?: number;
@@ -30,6 +33,9 @@ export interface IdentifyTrackOptions {
    */
   readonly minDeltaExiting?: number;
 }
+
+/** Fewest hits a track needs to be identified. */
+export const MIN_HITS = 6;
 
 export const IDENTIFY_DEFAULTS = Object.freeze({ minDeltaExiting: 9, chargeMagnitude: 1 });
 
@@ -57,7 +63,7 @@ export interface TrackIdentity {
   readonly hypotheses: readonly TrackHypothesis[];
   readonly best: number;
   readonly segments: SegmentCurvatures;
-  readonly status: 'ok' | 'too-few-segments';
+  readonly status: 'ok' | 'too-few-hits';
 }
 
 /**
@@ -82,26 +88,30 @@ export function identifyTrack(hits: SegmentHits, options: IdentifyTrackOptions):
   const stop = options.stops !== undefined
     ? Object.freeze({ stops: options.stops, endInside: options.stops, riseSignificance: NaN })
     : stopsInside(seg, end, { volume: options.volume, marginM: options.marginM });
-  const charge = -curvatureSign(seg) * Math.sign(options.fieldT);
-  const ctx = {
+  const base = {
     fieldT: options.fieldT,
     chargeMagnitude: options.chargeMagnitude ?? IDENTIFY_DEFAULTS.chargeMagnitude,
     radiationLengthM: mat.radiationLengthGcm2 / mat.densityGcm3 / 100,
+    densityGcm3: mat.densityGcm3,
+    zOverA: mat.zOverA,
     stops: stop.stops,
     spacingM: meanHitSpacingM(seg.pathM),
   };
-  let valid = 0;
-  for (let j = 0; j < seg.count; j++) if (Number.isFinite(seg.kappa[j])) valid++;
+  const ft = filterTrack(hits.x, hits.y, seg.pathM, hits.sigmaX ?? options.hitErrorM ?? 200e-6);
+  // Seen from +z a positive particle turns clockwise when B points along +z (F = q v × B).
+  const charge = -ft.turn * Math.sign(options.fieldT);
+  const scratch = { ...newFilterScratch(n), p: new Float64Array(n) };
+  const enough = n >= MIN_HITS;
   const hypotheses = species.map((s) => ({
     species: chargedSpecies(s, charge).name,
-    ...(valid >= 2 ? fitHypothesis(speciesRange(s, mat), seg, ctx) : noFit()),
+    ...(enough ? fitHypothesis(ft, speciesRange(s, mat), { ...base, massGeV: s.massMeV / 1000 }, scratch) : noFit()),
   }));
   let best = 0, second = -1;
   for (let i = 1; i < hypotheses.length; i++) if (hypotheses[i].m2lnL < hypotheses[best].m2lnL) best = i;
   for (let i = 0; i < hypotheses.length; i++) if (i !== best && (second < 0 || hypotheses[i].m2lnL < hypotheses[second].m2lnL)) second = i;
   const delta = second < 0 ? Infinity : hypotheses[second].m2lnL - hypotheses[best].m2lnL;
   const minDelta = options.minDeltaExiting ?? IDENTIFY_DEFAULTS.minDeltaExiting;
-  const decided = valid >= 2 && Number.isFinite(hypotheses[best].m2lnL) && (stop.stops || delta >= minDelta);
+  const decided = enough && Number.isFinite(hypotheses[best].m2lnL) && (stop.stops || delta >= minDelta);
   const h = hypotheses[best];
   return Object.freeze({
     pid: decided ? h.species : UNDECIDED,
@@ -114,7 +124,7 @@ export function identifyTrack(hits: SegmentHits, options: IdentifyTrackOptions):
     hypotheses: Object.freeze(hypotheses.map((x) => Object.freeze(x))),
     best,
     segments: seg,
-    status: valid >= 2 ? 'ok' : 'too-few-segments',
+    status: enough ? 'ok' : 'too-few-hits',
   });
 }
 
