@@ -42,3 +42,4 @@ export { weightedMean, type WeightedMean } from './weightedMean.js';
 export { propagateErrors, type PropagatedErrors } from './propagateErrors.js';
 export { numericalJacobian, jacobianScratch, type JacobianSettings, type JacobianScratch } from './numericalJacobian.js';
 export { numericalHessian } from './numericalHessian.js';
+export { michelEndpoint } from './michelEndpoint.js';

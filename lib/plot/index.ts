@@ -8,3 +8,5 @@ export { spectrumFigure, type SpectrumFigureOptions } from './spectrumFigure.js'
 export { histogram2dFigure, type Histogram2DFigureOptions } from './histogram2dFigure.js';
 export { EventDisplay, eventDisplay, type DisplayHits, type DisplayTrack, type EventDisplayOptions } from './eventDisplay.js';
 export { eventArcs, trackEventDisplay, type EventArcs } from './trackEventDisplay.js';
+export { curvatureAlongTrackFigure } from './curvatureAlongTrackFigure.js';
+export { momentumRangeFigure, type MomentumRangePoints } from './momentumRangeFigure.js';

@@ -26,6 +26,8 @@ export interface HypothesisFit {
   readonly sigmaPGeV: number;
   /** Least first-hit momentum [GeV/c] that reaches the last hit (CSDA): the bound for a track that leaves. */
   readonly pMinGeV: number;
+  /** Path [m] from the first hit at which the fitted CSDA profile comes to rest: p(s) = p_h(rangeEndM − s). */
+  readonly rangeEndM: number;
 }
 
 /** Per-hit momentum buffer of a track (allocate once per track). */
@@ -94,5 +96,6 @@ export function fitHypothesis(t: FilterTrack, range: SpeciesRange, ctx: Hypothes
       if (fpp > 0) sigma = Math.sqrt(2 / fpp);
     }
   }
-  return Object.freeze({ m2lnL: r.total, chi2: r.chi2, rangeChi2: r.rangeChi2, ndf: t.n - 3, pGeV: r.pGeV, sigmaPGeV: sigma, pMinGeV: pMin });
+  const rangeEndM = ctx.stops ? sLast + toParam(v) : range.rangeM(toParam(v));
+  return Object.freeze({ m2lnL: r.total, chi2: r.chi2, rangeChi2: r.rangeChi2, ndf: t.n - 3, pGeV: r.pGeV, sigmaPGeV: sigma, pMinGeV: pMin, rangeEndM });
 }

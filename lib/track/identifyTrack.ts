@@ -73,7 +73,7 @@ export interface TrackIdentity {
  * range of the fitted first-hit momentum, straggling included) and picks the smallest −2 ln L.
  * A track that does not stop keeps its best momentum and the bound `pMinGeV`, and is named only
  * when the curvature change along it separates the hypotheses by `minDeltaExiting`.
- * Valid for singly charged tracks with ≥ 2 segments, in a uniform field along z; the medium
+ * Valid for singly charged tracks with ≥ 6 hits, in a uniform field along z; the medium
  * must fill the volume (range tables: research values, not for treatment planning).
  * @example identifyTrack(trackHits(tracks, 0), { fieldT: 2, material: 'liquid-propane', stops: true }).pid
  */
@@ -129,5 +129,5 @@ export function identifyTrack(hits: SegmentHits, options: IdentifyTrackOptions):
 }
 
 function noFit(): HypothesisFit {
-  return { m2lnL: NaN, chi2: NaN, rangeChi2: NaN, ndf: 0, pGeV: NaN, sigmaPGeV: NaN, pMinGeV: NaN };
+  return { m2lnL: NaN, chi2: NaN, rangeChi2: NaN, ndf: 0, pGeV: NaN, sigmaPGeV: NaN, pMinGeV: NaN, rangeEndM: NaN };
 }
