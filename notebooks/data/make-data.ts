@@ -21,6 +21,7 @@ export const DEMO_SEEDS: Readonly<Record<string, number>> = Object.freeze({
   cinderfell: 20260403,
   larkspur: 20260404,
   ashgrove: 20260416,
+  hollowmere: 20260417,
 });
 
 /**
