@@ -59,7 +59,7 @@ export function hypothesisM2lnL(t: FilterTrack, range: SpeciesRange, parameter: 
 /**
  * Fits one hypothesis by minimising `hypothesisM2lnL` over its parameter (a 20-point scan, then
  * golden-section search, Kiefer 1953 (memory)): δ in (0, 3·spacing] for a stopping track; ln p₀
- * in [ln p_min, ln(βγ 500 · m)] for one that leaves, p_min = the momentum whose CSDA range is the
+ * in [ln p_min, ln(βγ 900 · m)] for one that leaves (the range tables end at βγ 1000), p_min = the momentum whose CSDA range is the
  * observed path. Errors: a stopping track's from the filter (curvature offset at the first hit);
  * a leaving track's from the second difference of −2 ln L (Δ = 1), NaN on a bound.
  */
@@ -67,7 +67,7 @@ export function fitHypothesis(t: FilterTrack, range: SpeciesRange, ctx: Hypothes
   const sLast = t.path3[t.n - 1];
   const pMin = range.momentumGeV(sLast) * (1 + 1e-6) + 1e-9;
   const lo = ctx.stops ? 0.1 * ctx.spacingM : Math.log(pMin);
-  const hi = ctx.stops ? 2 * ctx.spacingM : Math.log(Math.max(500 * ctx.massGeV, pMin * 1.01));
+  const hi = ctx.stops ? 2 * ctx.spacingM : Math.log(Math.max(900 * ctx.massGeV, pMin * 1.01));
   const toParam = (v: number) => (ctx.stops ? v : Math.exp(v));
   const f = (v: number) => hypothesisM2lnL(t, range, toParam(v), ctx, scratch).total;
   const n = 20;
