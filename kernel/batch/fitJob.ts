@@ -10,6 +10,8 @@ export interface FitJobOptions {
   readonly hitErrorM?: number;
   readonly material?: string;
   readonly particle: string;
+  /** With a material: 'matter' (default) or 'plain-helix'. */
+  readonly fit?: 'matter' | 'plain-helix';
 }
 
 /**
@@ -21,7 +23,10 @@ export interface FitJobOptions {
 export const FIT_JOB: BatchJob<FitJobOptions> = {
   name: 'fit',
   run(hits: HitTable, o: FitJobOptions): JobOutput {
-    const tracks = measureTracks(hits, { fieldT: o.fieldT, method: o.method, chargeMagnitude: o.chargeMagnitude, hitErrorM: o.hitErrorM });
+    const tracks = measureTracks(hits, {
+      fieldT: o.fieldT, method: o.method, chargeMagnitude: o.chargeMagnitude, hitErrorM: o.hitErrorM,
+      material: o.material, particle: o.particle, fit: o.fit,
+    });
     const base = trackTableColumns(tracks);
     let columns: Column[] = [...base.columns];
     let samples: Record<string, Float64Array> | undefined;
@@ -37,7 +42,7 @@ export const FIT_JOB: BatchJob<FitJobOptions> = {
     const estimated = hits.sigmaX === undefined && o.hitErrorM === undefined;
     const labels = hits.source.idLabels;
     columns = columns.map((c) => {
-      if (c.name === 'chi2' && estimated) return { ...c, values: new Float64Array(tracks.count).fill(NaN) };
+      if ((c.name === 'chi2' || c.name === 'chi2_prob') && estimated) return { ...c, values: new Float64Array(tracks.count).fill(NaN) };
       if (c.name === 'event' && labels?.event) return { name: c.name, values: idColumnText(c.values as ArrayLike<number>, labels.event) };
       if (c.name === 'track' && labels?.track) return { name: c.name, values: idColumnText(c.values as ArrayLike<number>, labels.track) };
       return c;

@@ -13,10 +13,14 @@
  * This is the curvature form of Karimäki, NIM A305 (1991) 187, with the sign of d0 chosen so
  * that d0 ≈ −(signed residual of the reference point).
  */
-/** `method-error`: a method written with `defineFitMethod` threw or gave no curvature on this track. */
-export type FitStatus = 'ok' | 'too-few-hits' | 'degenerate' | 'not-converged' | 'bad-input' | 'method-error';
+/**
+ * `method-error`: a method written with `defineFitMethod` threw or gave no curvature on this track.
+ * `poor-fit`: converged, but the χ² probability is below 1e-3 (`POOR_FIT_PROBABILITY`; set by the
+ * track table, not by circle fits). `cannot-reach` and `diverged`: the fit with material (lib/fit/matter).
+ */
+export type FitStatus = 'ok' | 'too-few-hits' | 'degenerate' | 'not-converged' | 'bad-input' | 'method-error' | 'poor-fit' | 'cannot-reach' | 'diverged';
 
-export const FIT_STATUS: readonly FitStatus[] = ['ok', 'too-few-hits', 'degenerate', 'not-converged', 'bad-input', 'method-error'];
+export const FIT_STATUS: readonly FitStatus[] = ['ok', 'too-few-hits', 'degenerate', 'not-converged', 'bad-input', 'method-error', 'poor-fit', 'cannot-reach', 'diverged'];
 
 export interface CircleFit {
   readonly kappa: number;
@@ -80,7 +84,7 @@ export function allocateCircleFits(count: number): CircleFitColumns {
 }
 
 export const STATUS_CODE: Readonly<Record<FitStatus, number>> = Object.freeze({
-  ok: 0, 'too-few-hits': 1, degenerate: 2, 'not-converged': 3, 'bad-input': 4, 'method-error': 5,
+  ok: 0, 'too-few-hits': 1, degenerate: 2, 'not-converged': 3, 'bad-input': 4, 'method-error': 5, 'poor-fit': 6, 'cannot-reach': 7, 'diverged': 8,
 });
 
 /** Reads fit k out of the columns as a CircleFit object. */

@@ -11,3 +11,5 @@ export { GEOMETRIC_FIT_DEFAULTS, GEOMETRIC_METHOD, type GeometricFitOptions } fr
 export { KASA_METHOD } from './kasaCircle.js';
 export { isPreparedPlaneHits, preparePlaneHits, type PlaneHits, type PreparedPlaneHits } from './preparePlaneHits.js';
 export { TAUBIN_METHOD } from './taubinCircle.js';
+export { fitTrackInMatter, fitTracksInMatter, matterFitScratch, MATTER_FIT_DEFAULTS, MATTER_FIT_MIN_HITS, MATTER_FIT_MIN_PROBABILITY, MATTER_FIT_STATUS } from './matter/index.js';
+export type { MatterFitColumns, MatterTrackColumnsHits, MatterFitScratch, MatterFitOptions, MatterFitState, MatterFitStatus, MatterTrackFit, MatterTrackHits } from './matter/index.js';

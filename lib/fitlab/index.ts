@@ -7,3 +7,5 @@ export { fitLabSample, type FitLabSample, type FitLabSampleOptions } from './sam
 export { fitLabSampleFromRun, type SampleFromRunOptions } from './sampleFromRun.js';
 export { fitLabTables } from './tables.js';
 export { withNoiseHits } from './withNoiseHits.js';
+export { matterSample, type MatterSample, type MatterSampleOptions } from './matterSample.js';
+export { matterFitLab, type MatterFitLabReport, type MatterFitLabBin, type MatterFitMerit, type MatterFitLabOptions } from './matterFitLab.js';

@@ -7,6 +7,18 @@ import { fitMethod } from '../fit/fitMethods.js';
 import type { HitTable } from '../io/hitTable.js';
 import { gatherRows, indexTracks } from '../io/indexTracks.js';
 import { momenta, type MomentumColumns } from './momentum.js';
+import { chi2Survival } from '../analysis/chi2Survival.js';
+import { fitTracksInMatter, type MatterFitColumns } from '../fit/matter/fitTracksInMatter.js';
+import { MATTER_FIT_MIN_PROBABILITY, MATTER_FIT_STATUS } from '../fit/matter/matterTrackFit.js';
+import { material as lookupMaterial, type Material } from '../matter/materials.js';
+import { particle as lookupParticle, PION_PLUS, type Particle } from '../particles.js';
+import { matterMomenta } from './matterMomenta.js';
+
+/** χ² probability below which a fitted track is flagged 'poor-fit' (the fit-with-material threshold, 1e-3). */
+export const POOR_FIT_PROBABILITY = MATTER_FIT_MIN_PROBABILITY;
+
+/** Which fit gives the momenta: the helix with material effects, or the plain helix (or circle) fit. */
+export type TrackFitKind = 'matter' | 'plain-helix';
 
 export interface MeasureTracksOptions {
   /** B_z [T], signed (negative: the field points along −z). Required. */
@@ -17,6 +29,16 @@ export interface MeasureTracksOptions {
   readonly chargeMagnitude?: number;
   /** Error [m] to use for hits that carry none; omitted → estimated from each track's residuals. */
   readonly hitErrorM?: number;
+  /**
+   * Chamber medium: with it, p_GeV is the momentum at the first hit from the fit with material
+   * (energy loss of `particle`, multiple scattering; σ(p) includes the scattering), unless
+   * `fit: 'plain-helix'`. Needs hit errors (sigma columns or `hitErrorM`).
+   */
+  readonly material?: Material | string;
+  /** Mass hypothesis for the fit with material; default pi+. */
+  readonly particle?: Particle | string;
+  /** 'matter' (default with a material) or 'plain-helix' (one helix, no material; the only choice without one). */
+  readonly fit?: TrackFitKind;
 }
 
 /**
@@ -43,7 +65,15 @@ export interface TrackTable {
   readonly chi2: Float64Array;
   readonly ndf: Int32Array;
   readonly iterations: Int32Array;
+  /** P(χ²_ndf ≥ χ²); NaN when the hit errors were estimated from the residuals (χ² = ndf then). */
+  readonly chi2Prob: Float64Array;
+  /** 'poor-fit' marks converged fits with chi2Prob < POOR_FIT_PROBABILITY. */
   readonly status: readonly FitStatus[];
+  /** Which fit gave the momenta, and under which mass hypothesis ('matter' only). */
+  readonly fit: TrackFitKind;
+  readonly particle?: string;
+  /** The fits with material (state and covariance at the first hit, last-hit momentum, path, residual range). */
+  readonly matter?: MatterFitColumns;
   readonly momentum: MomentumColumns;
   /** True when the hits carry z, so p and tan λ are measured (otherwise only p_T). */
   readonly hasZ: boolean;
@@ -64,7 +94,11 @@ export interface TrackTable {
 
 /**
  * Groups hits into tracks, fits each (helix when z is present, circle otherwise) and converts
- * curvature to momentum. Lengths in metres, field in tesla.
+ * curvature to momentum. Lengths in metres, field in tesla. With a `material`, the fit with
+ * material effects (lib/fit/matter) gives p at the first hit under the `particle` hypothesis,
+ * with σ(p) including multiple scattering; `fit: 'plain-helix'` keeps the one-helix fit, which
+ * measures a mean curvature and so is biased low on a track that slows down.
+ * Every fit carries its χ² probability; a converged fit below POOR_FIT_PROBABILITY is 'poor-fit'.
  * @example measureTracks(readHits('run.csv'), { fieldT: 1.5 }).momentum.ptGeV
  */
 export function measureTracks(hits: HitTable, options: MeasureTracksOptions): TrackTable {
@@ -83,13 +117,34 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
   const fitOptions = { method, fieldT: options.fieldT };
   const helix = hasZ ? fitHelices({ ...planeHits, z: table.z!, sigmaZ: table.sigmaZ }, index.offsets, fitOptions) : undefined;
   const circle = helix ? helix.circle : fitCircles(planeHits, index.offsets, fitOptions);
-  const momentum = momenta(helix ?? circle, options.fieldT, { chargeMagnitude: options.chargeMagnitude });
   const n = index.count;
   const nhits = new Int32Array(n);
   for (let k = 0; k < n; k++) nhits[k] = index.offsets[k + 1] - index.offsets[k];
+  const fit: TrackFitKind = options.material !== undefined && options.fit !== 'plain-helix' ? 'matter' : 'plain-helix';
+  if (options.fit !== undefined && options.fit !== 'matter' && options.fit !== 'plain-helix') throw msg.badArgument('fit', options.fit, "'matter' or 'plain-helix'");
+  if (fit === 'matter') {
+    if (sigmaX === undefined) throw msg.badArgument('hitErrorM', undefined, "hit errors for the fit with material: sigma columns, hitErrorM (--hit-error), or the plain helix fit (fit: 'plain-helix', --plain-helix)");
+    const medium = typeof options.material === 'string' ? lookupMaterial(options.material) : options.material!;
+    const species = options.particle === undefined ? PION_PLUS : typeof options.particle === 'string' ? lookupParticle(options.particle) : options.particle;
+    const matter = fitTracksInMatter({ ...planeHits, z: table.z, sigmaZ: table.sigmaZ }, index.offsets, { fieldT: options.fieldT, medium, particle: species, hitErrorM: options.hitErrorM });
+    const status = Array.from(matter.status, (s) => MATTER_FIT_STATUS[s] as FitStatus);
+    return {
+      count: n, event: index.event, track: index.track, nhits,
+      kappa: matter.kappa, phi0: matter.phi, d0: new Float64Array(n), z0: hasZ ? matter.zM : new Float64Array(n).fill(NaN),
+      xRef: matter.xM, yRef: matter.yM, chi2: matter.chi2, ndf: matter.ndf, iterations: matter.iterations,
+      chi2Prob: matter.pValue, status, fit, particle: species.name, matter,
+      momentum: matterMomenta(matter), hasZ, method: 'matter', fieldT: options.fieldT,
+      hits: table, offsets: index.offsets, hitRows, statusCounts: countStatuses(status), unassignedHits,
+    };
+  }
+  const momentum = momenta(helix ?? circle, options.fieldT, { chargeMagnitude: options.chargeMagnitude });
+  const chi2Prob = new Float64Array(n);
   const status = Array.from(circle.status, (s) => FIT_STATUS[s]);
-  const statusCounts = Object.fromEntries(FIT_STATUS.map((s) => [s, 0])) as Record<FitStatus, number>;
-  for (const s of status) statusCounts[s]++;
+  for (let k = 0; k < n; k++) {
+    chi2Prob[k] = circle.errorsEstimated[k] === 1 ? NaN : chi2Survival(circle.chi2[k], circle.ndf[k]);
+    if (status[k] === 'ok' && chi2Prob[k] < POOR_FIT_PROBABILITY) status[k] = 'poor-fit';
+  }
+  const statusCounts = countStatuses(status);
   return {
     count: n,
     event: index.event,
@@ -104,7 +159,9 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
     chi2: circle.chi2,
     ndf: circle.ndf,
     iterations: circle.iterations,
+    chi2Prob,
     status,
+    fit,
     momentum,
     hasZ,
     method: method.name,
@@ -115,6 +172,12 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
     statusCounts,
     unassignedHits,
   };
+}
+
+function countStatuses(status: readonly FitStatus[]): Record<FitStatus, number> {
+  const counts = Object.fromEntries(FIT_STATUS.map((s) => [s, 0])) as Record<FitStatus, number>;
+  for (const s of status) counts[s]++;
+  return counts;
 }
 
 /**

@@ -4,7 +4,9 @@ import type { TrackTable } from './measureTracks.js';
 /**
  * The track table as output columns, in the order `sagitta fit` writes them: snake_case names
  * ending in their unit (`_m`, `_rad`, `_GeV_c` for momenta). `p_GeV_c`, `tan_lambda`, `z0_m` and
- * `sigma_p_GeV_c` are empty when the hits carry no z.
+ * `sigma_p_GeV_c` are empty when the hits carry no z. `chi2_prob` is P(χ²_ndf ≥ χ²). After a fit with
+ * material: `p_last_GeV_c` and its error at the last hit, the 3-D `path_m` first → last hit and the
+ * hypothesis' CSDA `residual_range_m` left at the last hit.
  */
 export function trackTableColumns(t: TrackTable): ColumnTable {
   const m = t.momentum;
@@ -27,8 +29,15 @@ export function trackTableColumns(t: TrackTable): ColumnTable {
       { name: 'kappa_significance', values: m.curvatureSignificance, digits: 4 },
       { name: 'chi2', values: t.chi2, digits: 6 },
       { name: 'ndf', values: t.ndf, digits: 0 },
+      { name: 'chi2_prob', values: t.chi2Prob, digits: 6 },
       { name: 'iterations', values: t.iterations, digits: 0 },
       { name: 'status', values: t.status },
+      ...(t.matter ? [
+        { name: 'p_last_GeV_c', values: t.matter.pLastGeV },
+        { name: 'sigma_p_last_GeV_c', values: t.matter.sigmaPLastGeV, digits: 4 },
+        { name: 'path_m', values: t.matter.pathLengthM },
+        { name: 'residual_range_m', values: t.matter.residualRangeM },
+      ] : []),
     ],
   };
 }

@@ -11,6 +11,7 @@ import { wantProgress } from '../../batch/progress.js';
 import { stdoutTarget } from '../../batch/resultSink.js';
 import { runBatch, type BatchTotals } from '../../batch/runBatch.js';
 import { parseShard, type Shard } from '../../batch/shard.js';
+import { POOR_FIT_PROBABILITY } from '../../../lib/track/measureTracks.js';
 import { usage } from '../usage.js';
 import { parseThreads } from '../threads.js';
 
@@ -25,6 +26,8 @@ export interface FitCommandOptions {
   material?: string;
   /** Mass hypothesis for β in the multiple-scattering term (with --material). */
   particle?: string;
+  /** With --material: keep the plain helix fit instead of the fit with material effects. */
+  plainHelix?: boolean;
   threads?: string;
   shard?: string;
   quiet?: boolean;
@@ -54,8 +57,9 @@ export function registerFit(program: Command): void {
     .option('--length-unit <unit>', 'unit of length columns whose header has none, e.g. x[cm] overrides it', READ_HITS_DEFAULTS.lengthUnit)
     .option('--hit-error <quantity>', 'position error for hits without a sigma column, e.g. "200 um" (default: estimated from each track\'s residuals)')
     .option('--charge-number <z>', 'charge magnitude |z| of the particles (2 for alpha particles)', '1')
-    .option('--material <name>', 'medium the tracks cross, e.g. argon-gas, liquid-hydrogen, liquid-propane: adds the momentum error budget columns')
-    .option('--particle <name>', 'mass hypothesis for β in the multiple-scattering term (with --material)', 'pi+')
+    .option('--material <name>', 'medium the tracks cross, e.g. argon-gas, liquid-hydrogen, liquid-propane: fits with energy loss and multiple scattering, p at the first hit, and adds the error budget columns')
+    .option('--particle <name>', 'mass hypothesis for the fit with material (energy loss, β in the scattering term)', 'pi+')
+    .option('--plain-helix', 'with --material: fit one plain helix per track as without a material (for comparison; biased low on slowing tracks)')
     .option('--threads <n>', `worker threads (default: all ${availableParallelism()} cores); the output is the same for any count`)
     .option('--shard <K/N>', 'fit only the K-th of N slices of the events (by event id), e.g. 3/8; combine the parts with "sagitta merge"')
     .option('-q, --quiet', 'no progress bar (there is none off a terminal anyway)')
@@ -65,9 +69,18 @@ Hits of one track must be in the order the particle travelled: the turning sense
 sign of the charge, is read from that order (B along +z: positive particles turn clockwise).
 
 Output columns: event, track, n_hits, charge, radius_m, pt_GeV_c, p_GeV_c, tan_lambda, phi0_rad,
-d0_m, z0_m, sigma_pt_GeV_c, sigma_p_GeV_c, kappa_significance, chi2, ndf, iterations, status.
-p_GeV_c, tan_lambda and z0_m need a z column; chi2 is empty when the hit errors were estimated
-from the residuals. Status is ok, too-few-hits, degenerate, not-converged or bad-input.
+d0_m, z0_m, sigma_pt_GeV_c, sigma_p_GeV_c, kappa_significance, chi2, ndf, chi2_prob, iterations,
+status. p_GeV_c, tan_lambda and z0_m need a z column; chi2 and chi2_prob (the chi-square
+probability) are empty when the hit errors were estimated from the residuals. Status is ok,
+poor-fit (converged, chi2_prob below 0.001), too-few-hits, degenerate, not-converged, bad-input,
+and with --material also cannot-reach (the --particle hypothesis ranges out before a hit) or
+diverged.
+
+With --material (and not --plain-helix): a helix fit with the mean energy loss of --particle
+and multiple scattering in the medium (Kalman filter with smoother); p_GeV_c, phi0_rad and
+the direction are at the first hit, sigma_p_GeV_c includes the scattering, and the columns
+p_last_GeV_c, sigma_p_last_GeV_c, path_m and residual_range_m follow status. It needs hit errors
+(sigma columns or --hit-error).
 Ids are exact whole numbers up to 2^63 - 1.
 
 With --material: sigma_p_meas_GeV_c (from the hit errors, exact least squares for each track's
@@ -114,7 +127,7 @@ function checkOptions(hitsPath: string, o: FitCommandOptions): CheckedFit {
   lookupParticle(particle);
   const format = o.out === undefined ? 'csv' : resultFormatOf(o.out);
   return {
-    job: { fieldT, method: o.fitter, chargeMagnitude, hitErrorM, material: o.material, particle },
+    job: { fieldT, method: o.fitter, chargeMagnitude, hitErrorM, material: o.material, particle, fit: o.plainHelix ? 'plain-helix' : 'matter' },
     threads: o.threads === undefined ? undefined : parseThreads(o.threads),
     shard: o.shard === undefined ? undefined : parseShard(o.shard),
     format,
@@ -165,6 +178,8 @@ function fitMeta(hitsPath: string, t: BatchTotals, c: CheckedFit, o: FitCommandO
     charge_number: c.job.chargeMagnitude,
     material: o.material ?? null,
     particle: o.material !== undefined ? c.job.particle : null,
+    fit: o.material !== undefined && !o.plainHelix ? 'matter' : 'plain-helix',
+    poor_fit_probability: POOR_FIT_PROBABILITY,
     counts,
     ...(c.shard ? { shard: `${c.shard.index}/${c.shard.count}` } : {}),
   };
@@ -172,15 +187,19 @@ function fitMeta(hitsPath: string, t: BatchTotals, c: CheckedFit, o: FitCommandO
 
 function fitSummary(hitsPath: string, t: BatchTotals, c: CheckedFit, o: FitCommandOptions, seconds: number): string {
   const n = t.counts;
-  const statuses = Object.entries(n).filter(([k, v]) => k.startsWith('status_') && k !== 'status_ok' && v > 0).map(([k, v]) => `${k.slice(7)} ${v}`);
-  const failed = (n.tracks ?? 0) - (n.status_ok ?? 0);
+  const statuses = Object.entries(n).filter(([k, v]) => k.startsWith('status_') && k !== 'status_ok' && k !== 'status_poor-fit' && v > 0).map(([k, v]) => `${k.slice(7)} ${v}`);
+  const poor = n['status_poor-fit'] ?? 0;
+  const failed = (n.tracks ?? 0) - (n.status_ok ?? 0) - poor;
+  const matter = o.material !== undefined && !o.plainHelix;
   const units = Object.entries(t.units).map(([col, u]) => `${col}[${u}]`).join(' ');
   const errors = t.estimatedErrors ? 'hit errors estimated from the residuals (chi2 left empty)' : c.job.hitErrorM !== undefined ? `hit error ${o.hitError}` : 'hit errors from the file';
   const lines = [
     `sagitta fit: ${hitsPath}: ${n.track_hits ?? 0} hits on ${n.tracks ?? 0} tracks` +
       (n.unassigned_hits ? `, ${n.unassigned_hits} unassigned hits (track < 0) set aside` : '') + `; lengths read as ${units}; ${errors}`,
-    `  field ${c.job.fieldT} T along ${c.job.fieldT > 0 ? '+z' : '-z'}, fitter ${t.method ?? c.job.method}${t.hasZ ? ', helix (z present)' : ', circle only (no z: p and tan(lambda) not measured)'}`,
-    `  fitted ${n.status_ok ?? 0}, failed ${failed}${statuses.length ? ` (${statuses.join(', ')})` : ''}`,
+    `  field ${c.job.fieldT} T along ${c.job.fieldT > 0 ? '+z' : '-z'}, ` + (matter
+      ? `fit with material: energy loss of ${c.job.particle} and multiple scattering in ${o.material}, p at the first hit`
+      : `fitter ${t.method ?? c.job.method}${t.hasZ ? ', helix (z present)' : ', circle only (no z: p and tan(lambda) not measured)'}`),
+    `  fitted ${(n.status_ok ?? 0) + poor}` + (poor ? ` (${poor} poor fits: chi2 probability below 0.001)` : '') + `, failed ${failed}${statuses.length ? ` (${statuses.join(', ')})` : ''}`,
   ];
   if (c.shard) lines.push(`  shard ${c.shard.index}/${c.shard.count}: ${n.other_shard_hits ?? 0} hits of other slices' events skipped`);
   if (t.readWhole) lines.push('  the events of this file are not grouped (an event reappears after others): read whole instead of streamed');

@@ -1,0 +1,118 @@
+import { backwardPass, forwardPass } from './filterPasses.js';
+import { GEV_PER_TESLA_METRE } from '../../constants.js';
+import { kineticAndStoppingAtRange, type LossModel } from './lossModel.js';
+import type { MatterFitScratch } from './matterFitScratch.js';
+import type { MatterTrackHits } from './matterTrackFit.js';
+import { buildReference, REFERENCE_DIVERGED, REFERENCE_OK, type ReferenceSettings } from './referenceTrack.js';
+import { seedState } from './seedState.js';
+
+/** Outcome of the iterations: the converged reference stays in the scratch. */
+export interface MatterFitRun {
+  readonly status: 'ok' | 'cannot-reach' | 'diverged';
+  readonly reachedHits: number;
+  readonly iterations: number;
+  readonly chi2: number;
+  /** tan λ of the final reference. */
+  readonly tanLambda: number;
+}
+
+/**
+ * A change below this fraction of its error ends the iterations (the change itself is applied,
+ * so what is left is of second order: ≲ 1 % of σ).
+ */
+const CONVERGED_SIGMAS = 0.1;
+/** Halvings of a step that overshot (the hypothesis stopped short) before giving up. */
+const MAX_HALVINGS = 8;
+
+/**
+ * Gauss–Newton on the first-hit state: seed, then per iteration build the reference and run the
+ * backward filter; move the start by the filtered deviation, halving the move when the new
+ * start cannot reach every hit; stop when every component moved by < 1 % of its error. Then one
+ * forward pass on the last reference for the last-hit state and the smoothed residuals.
+ */
+export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, set: ReferenceSettings, sc: MatterFitScratch, maxIterations: number): MatterFitRun {
+  const n = hits.x.length;
+  const hasZ = hits.z !== undefined;
+  const start = new Float64Array(6), good = new Float64Array(6), delta = new Float64Array(6);
+  if (!seedState(hits, model, set.fieldT, set.energyLoss, start)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN };
+  const prior = new Float64Array(5);
+  let lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
+  while (iterations < maxIterations && tries < maxIterations + 3 * MAX_HALVINGS) {
+    tries++;
+    const code = buildReference(model, hits, start, set, sc);
+    lastBuildGood = code === REFERENCE_OK;
+    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN };
+    if (code !== REFERENCE_OK) {
+      reached = code;
+        if (++halvings > MAX_HALVINGS) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN };
+      lambda *= 0.5;
+      if (haveGood) moveStart(model, set, sc, start, good, delta, lambda, goodRange);
+      else start[3] *= 0.7; // the seed stops short: raise its momentum
+      continue;
+    }
+    iterations++;
+    if (!haveGood) setPrior(prior, start);
+    chi2 = backwardPass(sc, n, hasZ, prior);
+    const b = sc.firstB, zb = sc.firstZ;
+    good[0] = sc.x[0]; good[1] = sc.y[0]; good[2] = sc.phi[0]; good[3] = sc.kappa[0]; good[4] = sc.z[0]; good[5] = start[5];
+    haveGood = true;
+    lambda = 1; halvings = 0;
+    const nx = -Math.sin(good[2]), ny = Math.cos(good[2]);
+    delta[0] = b[0] * nx; delta[1] = b[0] * ny; delta[2] = b[1]; delta[3] = b[2];
+    delta[4] = hasZ ? zb[0] : 0; delta[5] = hasZ ? zb[1] : 0;
+    const small = (d: number, v: number) => d * d <= CONVERGED_SIGMAS * CONVERGED_SIGMAS * v;
+    converged = small(b[0], b[3]) && small(b[1], b[7]) && small(b[2], b[11]) && (!hasZ || (small(zb[0], zb[2]) && small(zb[1], zb[5])));
+    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN };
+    if (converged) break;
+    goodRange = sc.range[0];
+    moveStart(model, set, sc, start, good, delta, 1, goodRange);
+  }
+  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN };
+  if (!converged) {
+    // Accept the last reachable state only when its last move was within its error; rebuild its
+    // reference when a later trial overwrote it.
+    if (!(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN };
+    if (!lastBuildGood) {
+      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN };
+      chi2 = backwardPass(sc, n, hasZ, prior);
+    }
+    // Report the reachable state itself, not the move beyond it.
+    sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0;
+  }
+  forwardPass(sc, n, hasZ, prior);
+  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5] };
+}
+
+/**
+ * start = good + λ·delta, except the curvature with energy loss: its change is made linear in
+ * the residual range at the first hit (δR = dR/dκ·δκ), in which the track's end is nearly
+ * linear — so a stopping track converges from either side instead of creeping up to the
+ * stopping point; a move to R ≤ 0 becomes a momentum too low to reach anything (halved again).
+ */
+function moveStart(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, start: Float64Array, good: Float64Array, delta: Float64Array, lambda: number, goodRange: number): void {
+  for (let k = 0; k < 6; k++) start[k] = good[k] + lambda * delta[k];
+  if (!set.energyLoss || !Number.isFinite(goodRange) || good[3] === 0) return;
+  const t = good[5], sec = Math.sqrt(1 + t * t);
+  const cK = GEV_PER_TESLA_METRE * model.chargeAbs * Math.abs(set.fieldT) * sec;
+  const m = model.massMeV;
+  const tmp = sc.tmp;
+  kineticAndStoppingAtRange(model, goodRange, tmp);
+  const t0 = tmp[0], s0 = tmp[1];
+  const pm = Math.sqrt(t0 * (t0 + 2 * m)), beta = pm / (t0 + m);
+  const dRdK = (beta / s0) * (-pm / good[3]);
+  const r1 = goodRange + lambda * dRdK * delta[3];
+  if (!(r1 > 0) || !(s0 > 0)) { start[3] = good[3] * 4; return; }
+  kineticAndStoppingAtRange(model, r1, tmp);
+  const p1 = Math.sqrt(tmp[0] * (tmp[0] + 2 * m)) / 1000;
+  start[3] = (Math.sign(good[3]) * cK) / p1;
+}
+
+/**
+ * Wide prior of the deviations, centred on the reference: 1 cm across the track (and in z),
+ * 0.3 rad of direction, three times the seed curvature plus 0.1/m, one unit of tan λ — far
+ * wider than what any track measures, so it adds no information that matters.
+ */
+function setPrior(prior: Float64Array, start: Float64Array): void {
+  const k = 3 * Math.abs(start[3]) + 0.1;
+  prior[0] = 1e-4; prior[1] = 0.09; prior[2] = k * k; prior[3] = 1e-4; prior[4] = 1;
+}

@@ -1,0 +1,216 @@
+import { GEV_PER_TESLA_METRE } from '../../constants.js';
+import { kineticAndStoppingAtRange, rangeAtKinetic, type LossModel } from './lossModel.js';
+import type { MatterFitScratch } from './matterFitScratch.js';
+import type { MatterTrackHits } from './matterTrackFit.js';
+
+/** Settings of one reference build (plain data). */
+export interface ReferenceSettings {
+  readonly fieldT: number;
+  readonly energyLoss: boolean;
+  readonly multipleScattering: boolean;
+  /** Hit error [m] where the hits carry none. */
+  readonly hitErrorM: number;
+}
+
+/** Largest turning angle of one propagation step [rad]; keeps the arc with mean curvature accurate. */
+const MAX_TURN_RAD = 0.05;
+/** Largest fraction of the residual range one step may use (steps shrink as the particle slows). */
+const MAX_RANGE_FRACTION = 0.1;
+/**
+ * The point of closest approach is found to this distance along the track [m]: a shift s along
+ * the track changes the residual across it by only κ·s²/2.
+ */
+const APPROACH_TOLERANCE_M = 1e-8;
+
+/** `buildReference` result: all hits reached. */
+export const REFERENCE_OK = -1;
+/** `buildReference` result: a non-finite state (an index ≥ 0 is the first hit the hypothesis cannot reach). */
+export const REFERENCE_DIVERGED = -2;
+
+/**
+ * The reference trajectory for the linearised fit: from the start state (x, y, φ, κ, z, tan λ) at
+ * the first hit, the helix in a uniform B_z with the mean (CSDA) energy loss of the hypothesis,
+ * followed to the point closest to each hit in the bending plane. Steps are arcs with the mean
+ * of the curvatures at their ends (trapezoid rule for the turning angle); they shrink to
+ * ≤ 0.05 rad of turning and ≤ 10 % of the residual range, so the low-momentum end of a stopping
+ * track is followed finely. Along the way it builds, per hit step, the 3×3 Jacobian of the
+ * bending-plane deviations (u across the track, ψ of direction, δκ) — the small-deviation
+ * solution u'' = δκ − κ²u on an arc, with δκ carried by ∂κ(s)/∂κ(0) = (p₀/p)²·β₀S/(βS₀) from the
+ * range–energy relation R(p) = R(p₀) − s — and the process noise: Highland θ₀ per step for a
+ * thick scatterer (var u = θ₀²l²/3, cov(u,ψ) = θ₀²l/(2cos λ), var ψ = θ₀²/cos²λ; the (z, tan λ)
+ * pair alike with the factors 1/cos λ and 1/cos²λ; PDG RPP "Passage of particles through
+ * matter", multiple scattering), plus Bohr straggling on κ. The bending plane and (z, tan λ)
+ * are linearised separately (their coupling through cos λ in κ and the path length is second
+ * order and left out). Returns REFERENCE_OK, REFERENCE_DIVERGED, or the index of the first hit
+ * the hypothesis cannot reach (its range ends before).
+ */
+export function buildReference(model: LossModel, hits: MatterTrackHits, start: Float64Array, set: ReferenceSettings, sc: MatterFitScratch): number {
+  const n = hits.x.length;
+  const hx = hits.x, hy = hits.y, hz = hits.z;
+  const tanL = start[5];
+  const secL = Math.sqrt(1 + tanL * tanL), cosL = 1 / secL;
+  const cK = GEV_PER_TESLA_METRE * model.chargeAbs * Math.abs(set.fieldT) * secL; // |κ| = cK / p
+  const cur = sc.cur;
+  const kap0 = start[3];
+  const sgn = kap0 < 0 ? -1 : 1;
+  cur[0] = start[0]; cur[1] = start[1]; cur[2] = start[2]; cur[3] = kap0;
+  cur[7] = cK / Math.abs(kap0);
+  cur[4] = Infinity; cur[5] = Infinity; cur[6] = 0;
+  if (set.energyLoss && Number.isFinite(cur[7])) {
+    const m = model.massMeV, pm = 1000 * cur[7];
+    const t = Math.sqrt(pm * pm + m * m) - m;
+    const r = rangeAtKinetic(model, t);
+    if (Number.isFinite(r)) {
+      kineticAndStoppingAtRange(model, r, sc.tmp);
+      cur[4] = r; cur[5] = sc.tmp[0]; cur[6] = sc.tmp[1];
+    }
+  }
+  cur[8] = start[4]; cur[9] = 0;
+  sc.tmp[8] = tanL; sc.tmp[9] = secL; sc.tmp[10] = cK; sc.tmp[11] = sgn;
+  storeHit(sc, 0, hits, set);
+  sc.ds[0] = 0;
+  for (let i = 1; i < n; i++) {
+    const F = sc.stepF, Q = sc.stepQ, Qz = sc.stepQz;
+    F.fill(0); F[0] = 1; F[4] = 1; F[8] = 1; Q.fill(0); Qz.fill(0);
+    let dsTotal = 0;
+    for (let it = 0; it < 8; it++) {
+      // Arc to the point of the current circle closest to the hit: angle atan2(κ·a, 1 − κ·b) with
+      // (a, b) the hit along and across the direction (exact for constant κ; then corrected).
+      const c = Math.cos(cur[2]), s = Math.sin(cur[2]);
+      const ex = hx[i] - cur[0], ey = hy[i] - cur[1];
+      const along = ex * c + ey * s;
+      if (it > 0 && Math.abs(along) < APPROACH_TOLERANCE_M) break;
+      const kap = cur[3], across = -ex * s + ey * c;
+      const d = Math.abs(kap * along) < 1e-9 ? along : Math.atan2(kap * along, 1 - kap * across) / kap;
+      if (set.energyLoss && d > 0 && d * secL * model.gcm2PerM >= cur[4]) return i;
+      let remaining = d;
+      while (remaining !== 0) {
+        const kap = Math.abs(cur[3]);
+        let ds = remaining;
+        const turnLimit = MAX_TURN_RAD / kap;
+        if (Math.abs(ds) > turnLimit) ds = Math.sign(ds) * turnLimit;
+        if (set.energyLoss && ds > 0 && Number.isFinite(cur[4])) {
+          const rangeLimit = (MAX_RANGE_FRACTION * cur[4] * cosL) / model.gcm2PerM;
+          if (ds > rangeLimit && remaining > rangeLimit * 1.0001) ds = rangeLimit;
+        }
+        if (!step(model, set, sc, ds)) return REFERENCE_DIVERGED;
+        dsTotal += ds;
+        remaining = Math.abs(remaining - ds) < 1e-15 ? 0 : remaining - ds;
+      }
+    }
+    if (!Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3])) return REFERENCE_DIVERGED;
+    sc.ds[i] = dsTotal;
+    const o = 9 * i;
+    for (let k = 0; k < 9; k++) { sc.F[o + k] = F[k]; sc.Q[o + k] = Q[k]; }
+    sc.Qz[3 * i] = Qz[0]; sc.Qz[3 * i + 1] = Qz[1]; sc.Qz[3 * i + 2] = Qz[2];
+    storeHit(sc, i, hits, set);
+  }
+  return REFERENCE_OK;
+}
+
+function storeHit(sc: MatterFitScratch, i: number, hits: MatterTrackHits, set: ReferenceSettings): void {
+  const cur = sc.cur;
+  const c = Math.cos(cur[2]), s = Math.sin(cur[2]);
+  sc.x[i] = cur[0]; sc.y[i] = cur[1]; sc.phi[i] = cur[2]; sc.kappa[i] = cur[3];
+  sc.range[i] = cur[4]; sc.p[i] = cur[7]; sc.z[i] = cur[8]; sc.path[i] = cur[9];
+  sc.mr[i] = -s * (hits.x[i] - cur[0]) + c * (hits.y[i] - cur[1]);
+  const sx = hits.sigmaX ? hits.sigmaX[i] : set.hitErrorM;
+  const sy = hits.sigmaY ? hits.sigmaY[i] : sx;
+  sc.mv[i] = s * s * sx * sx + c * c * sy * sy;
+  if (hits.z) {
+    const sz = hits.sigmaZ ? hits.sigmaZ[i] : sx;
+    sc.zr[i] = hits.z[i] - cur[8];
+    sc.zv[i] = sz * sz;
+  }
+}
+
+/**
+ * One arc of transverse length ds [m] (negative: backwards) from the current state (geometry in
+ * tmp[8..11]: tan λ, sec λ, |κ|·p, sign of κ); updates
+ * the state and the step's Jacobian and noise. False when the state became non-finite.
+ */
+function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds: number): boolean {
+  const cur = sc.cur, tmp = sc.tmp;
+  const tanL = tmp[8], secL = tmp[9], cK = tmp[10], sgn = tmp[11];
+  const l = ds * secL;
+  const kapS = cur[3], pS = cur[7];
+  let kapE = kapS, pE = pS, g = 1;
+  const m = model.massMeV;
+  if (set.energyLoss && Number.isFinite(cur[4])) {
+    const rE = cur[4] - l * model.gcm2PerM;
+    kineticAndStoppingAtRange(model, rE, tmp);
+    const tE = tmp[0], sE = tmp[1];
+    const pEm = Math.sqrt(tE * (tE + 2 * m));
+    pE = pEm / 1000;
+    kapE = (sgn * cK) / pE;
+    const betaS = (1000 * pS) / (cur[5] + m), betaE = pEm / (tE + m);
+    const ratio = pS / pE;
+    g = cur[6] > 0 ? (ratio * ratio * betaS * sE) / (betaE * cur[6]) : 1;
+    cur[4] = rE; cur[5] = tE; cur[6] = sE; cur[7] = pE; cur[3] = kapE;
+  }
+  const kapM = 0.5 * (kapS + kapE);
+  const a = kapM * ds;
+  const phi = cur[2];
+  const cphi = Math.cos(phi), sphi = Math.sin(phi);
+  let ca: number, sa: number, sOverK: number, oneMinusCOverK2: number;
+  if (Math.abs(a) < 1e-2) {
+    const a2 = a * a;
+    ca = 1 - 0.5 * a2 * (1 - a2 / 12);
+    sa = a * (1 - a2 / 6 * (1 - a2 / 20));
+    sOverK = ds * (1 - a2 / 6 * (1 - a2 / 20));
+    oneMinusCOverK2 = 0.5 * ds * ds * (1 - a2 / 12 * (1 - a2 / 30));
+  } else {
+    ca = Math.cos(a); sa = Math.sin(a);
+    sOverK = sa / kapM;
+    oneMinusCOverK2 = (1 - ca) / (kapM * kapM);
+  }
+  // Position along the arc: Δx = (sin(φ+a) − sin φ)/κ, Δy = (cos φ − cos(φ+a))/κ, in the stable form.
+  cur[0] += sOverK * cphi - kapM * oneMinusCOverK2 * sphi;
+  cur[1] += sOverK * sphi + kapM * oneMinusCOverK2 * cphi;
+  cur[2] = phi + a;
+  cur[8] += ds * tanL;
+  cur[9] += Math.abs(l);
+  // Jacobian of this arc: [[c, s/κ, (1−c)/κ²·ḡ], [−κ s, c, s/κ·ḡ], [0, 0, g]], ḡ = (1+g)/2.
+  const gm = 0.5 * (1 + g);
+  const f00 = ca, f01 = sOverK, f02 = oneMinusCOverK2 * gm;
+  const f10 = -kapM * sa, f11 = ca, f12 = sOverK * gm;
+  const F = sc.stepF, Q = sc.stepQ;
+  // F ← Fs·F (F's last row is [0, 0, G]).
+  for (let c = 0; c < 3; c++) {
+    const a0 = F[c], a1 = F[3 + c], a2 = F[6 + c];
+    F[c] = f00 * a0 + f01 * a1 + f02 * a2;
+    F[3 + c] = f10 * a0 + f11 * a1 + f12 * a2;
+    F[6 + c] = g * a2;
+  }
+  // Q ← Fs·Q·Fsᵀ + Qs.
+  const q00 = Q[0], q01 = Q[1], q02 = Q[2], q11 = Q[4], q12 = Q[5], q22 = Q[8];
+  const r00 = f00 * q00 + f01 * q01 + f02 * q02, r01 = f00 * q01 + f01 * q11 + f02 * q12, r02 = f00 * q02 + f01 * q12 + f02 * q22;
+  const r10 = f10 * q00 + f11 * q01 + f12 * q02, r11 = f10 * q01 + f11 * q11 + f12 * q12, r12 = f10 * q02 + f11 * q12 + f12 * q22;
+  let n00 = r00 * f00 + r01 * f01 + r02 * f02;
+  let n01 = r00 * f10 + r01 * f11 + r02 * f12;
+  let n11 = r10 * f10 + r11 * f11 + r12 * f12;
+  const n02 = r02 * g, n12 = r12 * g;
+  let n22 = g * g * q22;
+  const Qz = sc.stepQz;
+  // (z, t) propagation [[1, ds], [0, 1]].
+  let z00 = Qz[0] + 2 * ds * Qz[1] + ds * ds * Qz[2];
+  let z01 = Qz[1] + ds * Qz[2];
+  let z11 = Qz[2];
+  const al = Math.abs(l);
+  if (set.multipleScattering && al > 0) {
+    const pM = 0.5 * (pS + pE);
+    const beta = pM / Math.sqrt(pM * pM + (m / 1000) * (m / 1000));
+    const th = model.theta0Rad(pM, beta, al, cur[9] - al);
+    const t2 = th * th;
+    n00 += (t2 * al * al) / 3; n01 += (t2 * al * secL) / 2; n11 += t2 * secL * secL;
+    z00 += (t2 * al * al * secL * secL) / 3; z01 += (t2 * al * secL * secL * secL) / 2; z11 += t2 * secL * secL * secL * secL;
+  }
+  if (set.energyLoss && model.stragglingMeV2PerM > 0 && Number.isFinite(cur[4])) {
+    const pm = 1000 * pE, beta = pm / Math.sqrt(pm * pm + m * m);
+    const dk = kapE / (pm * beta);
+    n22 += dk * dk * model.stragglingMeV2PerM * al;
+  }
+  Q[0] = n00; Q[1] = n01; Q[2] = n02; Q[3] = n01; Q[4] = n11; Q[5] = n12; Q[6] = n02; Q[7] = n12; Q[8] = n22;
+  Qz[0] = z00; Qz[1] = z01; Qz[2] = z11;
+  return Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3]);
+}
