@@ -18,3 +18,4 @@ export { isElectronLike } from './matter/stoppingPower.js';
 export { PLOTLY_MIME } from './plot/figure.js';
 export { provenanceSnapshot, type ProvenanceSnapshot } from './provenance.js';
 export { metresPerUnit } from './units.js';
+export { speciesList } from './track/measureByIdentity.js';
