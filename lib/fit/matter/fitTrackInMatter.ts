@@ -57,7 +57,9 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
   const ctx = { fieldT: options.fieldT, chargeAbs: model.chargeAbs, massMeV: model.massMeV, s_m: 0 };
   const residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
   const spacingM = sc.path[n - 1] / (n - 1);
-  if (residualRangeM < spacingM) addStopPointVariance(model, sc, n, spacingM);
+  const stopVariance = residualRangeM < spacingM ? ((spacingM * model.gcm2PerM) ** 2) / 12 : 0;
+  const extra = Math.max(stopVariance, run.extraRangeVariance);
+  if (extra > 0) addRangeVariance(model, sc, n, extra);
   const ref = Float64Array.of(sc.x[0], sc.y[0], sc.phi[0], sc.kappa[0], sc.z[0], run.tanLambda);
   const first = finishState(ref, sc.firstB, sc.firstZ, hasZ, ctx);
   const e = n - 1;
@@ -84,14 +86,16 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
 }
 
 /**
- * A hypothesis that stops before a next hit one spacing on leaves the stopping point unknown
- * within that spacing, and near the stop the linearised error in p (from the steep rise of the
- * curvature) is far too small. The residual range at the last hit is then taken as uniform over
- * one mean 3-D spacing (σ_R = spacing/√12) and its effect on κ at the first and last hit,
- * dκ/dR = −(κ/p)·S/β from the range–energy relation, is added to their variances.
+ * Near the end of its range a track's curvature rises so steeply that the linearised error in p
+ * is far too small. Two corrections, the larger is used: a hypothesis that stops before a next
+ * hit one spacing on leaves the stopping point unknown within that spacing (residual range
+ * uniform over one mean 3-D spacing, σ_R = spacing/√12); a track that ends within a few
+ * spacings of its range end gets the excess of its χ²-profile error (`rangeProfileSigma`). The
+ * variance `varianceGcm2` of the residual range is carried to κ at the first and the last hit
+ * through dκ/dR = −(κ/p)·S/β (range–energy relation) and added to their variances.
  */
-function addStopPointVariance(model: LossModel, sc: MatterFitScratch, n: number, spacingM: number): void {
-  const sigmaR = (spacingM / Math.sqrt(12)) * model.gcm2PerM;
+function addRangeVariance(model: LossModel, sc: MatterFitScratch, n: number, varianceGcm2: number): void {
+  const sigmaR = Math.sqrt(varianceGcm2);
   const out = sc.tmp, m = model.massMeV;
   for (const [i, b] of [[0, sc.firstB], [n - 1, sc.lastB]] as const) {
     kineticAndStoppingAtRange(model, Math.max(sc.range[i], 1e-12), out);

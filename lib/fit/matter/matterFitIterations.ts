@@ -1,6 +1,7 @@
 import { backwardPass, forwardPass } from './filterPasses.js';
 import { GEV_PER_TESLA_METRE } from '../../constants.js';
-import { kineticAndStoppingAtRange, type LossModel } from './lossModel.js';
+import { kineticAndStoppingAtRange, rangeAtKinetic, type LossModel } from './lossModel.js';
+import { rangeProfileSigma } from './rangeProfile.js';
 import type { MatterFitScratch } from './matterFitScratch.js';
 import type { MatterTrackHits } from './matterTrackFit.js';
 import { buildReference, REFERENCE_DIVERGED, REFERENCE_OK, type ReferenceSettings } from './referenceTrack.js';
@@ -14,7 +15,15 @@ export interface MatterFitRun {
   readonly chi2: number;
   /** tan λ of the final reference. */
   readonly tanLambda: number;
+  /**
+   * Variance [(g/cm²)²] to add to the residual range at the first hit beyond the linearised one,
+   * from the χ² profile of a track that ends near the end of its range (0 otherwise).
+   */
+  readonly extraRangeVariance: number;
 }
+
+/** Tracks whose residual range at the last hit is below this many mean spacings get the χ² profile. */
+const PROFILE_SPACINGS = 5;
 
 /**
  * A change below this fraction of its error ends the iterations (the change itself is applied,
@@ -27,32 +36,39 @@ const MAX_HALVINGS = 8;
 /**
  * Gauss–Newton on the first-hit state: seed, then per iteration build the reference and run the
  * backward filter; move the start by the filtered deviation, halving the move when the new
- * start cannot reach every hit; stop when every component moved by < 1 % of its error. Then one
+ * start cannot reach every hit or raises χ² (by more than max(2, 2 %)); stop when every component moved by < 1 % of its error. Then one
  * forward pass on the last reference for the last-hit state and the smoothed residuals.
  */
 export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, set: ReferenceSettings, sc: MatterFitScratch, maxIterations: number): MatterFitRun {
   const n = hits.x.length;
   const hasZ = hits.z !== undefined;
   const start = new Float64Array(6), good = new Float64Array(6), delta = new Float64Array(6);
-  if (!seedState(hits, model, set.fieldT, set.energyLoss, start)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN };
+  if (!seedState(hits, model, set.fieldT, set.energyLoss, start)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
   const prior = new Float64Array(5);
-  let lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
+  let goodChi2 = Infinity, lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
   while (iterations < maxIterations && tries < maxIterations + 3 * MAX_HALVINGS) {
     tries++;
     const code = buildReference(model, hits, start, set, sc);
     lastBuildGood = code === REFERENCE_OK;
-    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN };
+    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
     if (code !== REFERENCE_OK) {
       reached = code;
-        if (++halvings > MAX_HALVINGS) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN };
+        if (++halvings > MAX_HALVINGS) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
       lambda *= 0.5;
       if (haveGood) moveStart(model, set, sc, start, good, delta, lambda, goodRange);
       else start[3] *= 0.7; // the seed stops short: raise its momentum
       continue;
     }
-    iterations++;
     if (!haveGood) setPrior(prior, start);
     chi2 = backwardPass(sc, n, hasZ, prior);
+    if (haveGood && chi2 > goodChi2 + Math.max(2, 0.02 * goodChi2) && halvings < MAX_HALVINGS) {
+      // The move made the fit worse (it overshot into the steep end of the range): halve it.
+      halvings++; lambda *= 0.5; lastBuildGood = false;
+      moveStart(model, set, sc, start, good, delta, lambda, goodRange);
+      continue;
+    }
+    goodChi2 = chi2;
+    iterations++;
     const b = sc.firstB, zb = sc.firstZ;
     good[0] = sc.x[0]; good[1] = sc.y[0]; good[2] = sc.phi[0]; good[3] = sc.kappa[0]; good[4] = sc.z[0]; good[5] = start[5];
     haveGood = true;
@@ -62,25 +78,44 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     delta[4] = hasZ ? zb[0] : 0; delta[5] = hasZ ? zb[1] : 0;
     const small = (d: number, v: number) => d * d <= CONVERGED_SIGMAS * CONVERGED_SIGMAS * v;
     converged = small(b[0], b[3]) && small(b[1], b[7]) && small(b[2], b[11]) && (!hasZ || (small(zb[0], zb[2]) && small(zb[1], zb[5])));
-    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN };
+    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
     if (converged) break;
     goodRange = sc.range[0];
     moveStart(model, set, sc, start, good, delta, 1, goodRange);
   }
-  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN };
+  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
   if (!converged) {
     // Accept the last reachable state only when its last move was within its error; rebuild its
     // reference when a later trial overwrote it.
-    if (!(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN };
+    if (!(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
     if (!lastBuildGood) {
-      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN };
+      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
       chi2 = backwardPass(sc, n, hasZ, prior);
     }
     // Report the reachable state itself, not the move beyond it.
     sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0;
   }
+  let extraRangeVariance = 0;
+  const spacingGcm2 = (sc.path[n - 1] / (n - 1)) * model.gcm2PerM;
+  if (set.energyLoss && sc.range[n - 1] < PROFILE_SPACINGS * spacingGcm2) {
+    const b = sc.firstB, est = Float64Array.from(good);
+    est[0] += delta[0]; est[1] += delta[1]; est[2] += b[1] * (converged ? 1 : 0); est[3] += b[2] * (converged ? 1 : 0);
+    const t = good[5], sec = Math.sqrt(1 + t * t);
+    const sigmaLinK = Math.sqrt(sc.firstB[11]);
+    const sigmaR = rangeProfileSigma(model, hits, set, sc, est, prior);
+    // Linearised σ(R₀) again from the κ error, to take the excess only.
+    const m = model.massMeV, cK = GEV_PER_TESLA_METRE * model.chargeAbs * Math.abs(set.fieldT) * sec;
+    const p0 = (1000 * cK) / Math.abs(est[3]);
+    kineticAndStoppingAtRange(model, rangeAtKinetic(model, Math.sqrt(p0 * p0 + m * m) - m), sc.tmp);
+    const sigmaLin = (p0 / Math.abs(est[3])) * ((p0 / (sc.tmp[0] + m)) / sc.tmp[1]) * sigmaLinK;
+    if (Number.isFinite(sigmaR) && sigmaR > sigmaLin) extraRangeVariance = sigmaR * sigmaR - sigmaLin * sigmaLin;
+    // The scan overwrote the scratch: rebuild the fitted reference.
+    if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+    chi2 = backwardPass(sc, n, hasZ, prior);
+    if (!converged) { sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0; }
+  }
   forwardPass(sc, n, hasZ, prior);
-  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5] };
+  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5], extraRangeVariance };
 }
 
 /**
