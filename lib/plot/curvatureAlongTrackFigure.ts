@@ -1,10 +1,12 @@
-import type { Material } from '../matter/materials.js';
 import { particle as lookupParticle } from '../particles.js';
 import type { TrackIdentity } from '../track/identifyTrack.js';
 import { predictedCurvature } from '../track/profileAlongTrack.js';
-import { speciesRange } from '../track/speciesRange.js';
+import { speciesRange, type SpeciesRange } from '../track/speciesRange.js';
 import type { Figure } from './figure.js';
 import { xyFigure, type XYSeries } from './xyFigure.js';
+
+/** A lib/matter material (the type as lib/track carries it, so lib/plot imports no matter). */
+type Material = SpeciesRange['material'];
 
 /**
  * Curvature along one track: each segment's |κ| [1/m] with its measurement error at its

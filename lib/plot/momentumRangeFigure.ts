@@ -1,8 +1,10 @@
-import type { Material } from '../matter/materials.js';
 import type { Particle } from '../particles.js';
-import { speciesRange } from '../track/speciesRange.js';
+import { speciesRange, type SpeciesRange } from '../track/speciesRange.js';
 import type { Figure } from './figure.js';
 import { xyFigure, type XYSeries } from './xyFigure.js';
+
+/** A lib/matter material (the type as lib/track carries it, so lib/plot imports no matter). */
+type Material = SpeciesRange['material'];
 
 /** Measured points of one group (e.g. one true or chosen species). */
 export interface MomentumRangePoints {
