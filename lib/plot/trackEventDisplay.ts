@@ -24,7 +24,7 @@ export function eventArcs(hits: HitTable, tracks: TrackTable, event: number): Ev
   const trackIndexOf = new Map<number, number>();
   const drawn: DisplayTrack[] = [];
   for (let k = 0; k < tracks.count; k++) {
-    if (tracks.event[k] !== event || tracks.status[k] !== 'ok' || tracks.track[k] < 0) continue;
+    if (tracks.event[k] !== event || (tracks.status[k] !== 'ok' && tracks.status[k] !== 'poor-fit') || tracks.track[k] < 0) continue;
     const kappa = tracks.kappa[k], phi0 = tracks.phi0[k], d0 = tracks.d0[k];
     if (!(Math.abs(kappa) > 0)) continue;
     const lever = 1 / kappa - d0;

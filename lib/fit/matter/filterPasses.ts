@@ -13,13 +13,15 @@ import type { MatterFitScratch } from './matterFitScratch.js';
  *   combining at each hit its prediction with the backward pass's filtered state (two-filter
  *   smoother, equivalent to Rauch–Tung–Striebel; Fraser & Potter, IEEE TAC 14 (1969) 387), gives
  *   the smoothed residuals.
- * Each returns the χ² of its predicted residuals (the fit χ² of the linear problem).
+ * Each returns the χ² of its predicted residuals (the fit χ² of the linear problem); the
+ * backward pass also leaves Σ ln(variance of each predicted residual) in sc.tmp[14], so that
+ * χ² + that sum is −2 ln L up to a constant when the noise itself depends on the state.
  */
 export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array): number {
   let x0 = 0, x1 = 0, x2 = 0;
   let c00 = prior[0], c01 = 0, c02 = 0, c11 = prior[1], c12 = 0, c22 = prior[2];
   let z0 = 0, z1 = 0, d00 = prior[3], d01 = 0, d11 = prior[4];
-  let chi2 = 0;
+  let chi2 = 0, lnDet = 0;
   for (let i = n - 1; i >= 0; i--) {
     if (i < n - 1) {
       // Back through step i+1: x_i = F⁻¹ (x_{i+1} − w), C_i = F⁻¹ (C + Q) F⁻ᵀ.
@@ -52,7 +54,7 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
     }
     // Update with hit i.
     const r = sc.mr[i] - x0, sv = c00 + sc.mv[i];
-    chi2 += (r * r) / sv;
+    chi2 += (r * r) / sv; lnDet += Math.log(sv);
     const k0 = c00 / sv, k1 = c01 / sv, k2 = c02 / sv;
     x0 += k0 * r; x1 += k1 * r; x2 += k2 * r;
     c22 -= k2 * c02; c12 -= k1 * c02; c11 -= k1 * c01; c02 -= k0 * c02; c01 -= k0 * c01; c00 -= k0 * c00;
@@ -60,7 +62,7 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
     bs[b] = x0; bs[b + 1] = x1; bs[b + 2] = x2; bs[b + 3] = c00; bs[b + 4] = c01; bs[b + 5] = c02; bs[b + 6] = c11; bs[b + 7] = c12; bs[b + 8] = c22;
     if (hasZ) {
       const rz = sc.zr[i] - z0, svz = d00 + sc.zv[i];
-      chi2 += (rz * rz) / svz;
+      chi2 += (rz * rz) / svz; lnDet += Math.log(svz);
       const kz0 = d00 / svz, kz1 = d01 / svz;
       z0 += kz0 * rz; z1 += kz1 * rz;
       d11 -= kz1 * d01; d01 -= kz0 * d01; d00 -= kz0 * d00;
@@ -69,6 +71,7 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
     }
   }
   writeEnd(sc.firstB, sc.firstZ, x0, x1, x2, c00, c01, c02, c11, c12, c22, z0, z1, d00, d01, d11);
+  sc.tmp[14] = lnDet;
   return chi2;
 }
 

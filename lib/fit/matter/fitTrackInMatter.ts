@@ -58,7 +58,8 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
   const residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
   const spacingM = sc.path[n - 1] / (n - 1);
   const stopVariance = residualRangeM < spacingM ? ((spacingM * model.gcm2PerM) ** 2) / 12 : 0;
-  const extra = Math.max(stopVariance, run.extraRangeVariance);
+  // The profile, where it was made, supersedes the stopping-point variance (it sees the wall).
+  const extra = run.profiled ? run.extraRangeVariance : stopVariance;
   if (extra > 0) addRangeVariance(model, sc, n, extra);
   const ref = Float64Array.of(sc.x[0], sc.y[0], sc.phi[0], sc.kappa[0], sc.z[0], run.tanLambda);
   const first = finishState(ref, sc.firstB, sc.firstZ, hasZ, ctx);

@@ -20,9 +20,11 @@ export interface MatterFitRun {
    * from the χ² profile of a track that ends near the end of its range (0 otherwise).
    */
   readonly extraRangeVariance: number;
+  /** Whether the −2 ln L profile was made (a track ending within a few spacings of its range end). */
+  readonly profiled: boolean;
 }
 
-/** Tracks whose residual range at the last hit is below this many mean spacings get the χ² profile. */
+/** Tracks whose residual range at the last hit is below this many mean spacings get the −2 ln L profile. */
 const PROFILE_SPACINGS = 5;
 
 /**
@@ -43,17 +45,17 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
   const n = hits.x.length;
   const hasZ = hits.z !== undefined;
   const start = new Float64Array(6), good = new Float64Array(6), delta = new Float64Array(6);
-  if (!seedState(hits, model, set.fieldT, set.energyLoss, start)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+  if (!seedState(hits, model, set.fieldT, set.energyLoss, start)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
   const prior = new Float64Array(5);
   let goodChi2 = Infinity, lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
   while (iterations < maxIterations && tries < maxIterations + 3 * MAX_HALVINGS) {
     tries++;
     const code = buildReference(model, hits, start, set, sc);
     lastBuildGood = code === REFERENCE_OK;
-    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
     if (code !== REFERENCE_OK) {
       reached = code;
-        if (++halvings > MAX_HALVINGS) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+        if (++halvings > MAX_HALVINGS) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
       lambda *= 0.5;
       if (haveGood) moveStart(model, set, sc, start, good, delta, lambda, goodRange);
       else start[3] *= 0.7; // the seed stops short: raise its momentum
@@ -78,24 +80,24 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     delta[4] = hasZ ? zb[0] : 0; delta[5] = hasZ ? zb[1] : 0;
     const small = (d: number, v: number) => d * d <= CONVERGED_SIGMAS * CONVERGED_SIGMAS * v;
     converged = small(b[0], b[3]) && small(b[1], b[7]) && small(b[2], b[11]) && (!hasZ || (small(zb[0], zb[2]) && small(zb[1], zb[5])));
-    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
     if (converged) break;
     goodRange = sc.range[0];
     moveStart(model, set, sc, start, good, delta, 1, goodRange);
   }
-  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
   if (!converged) {
     // Accept the last reachable state only when its last move was within its error; rebuild its
     // reference when a later trial overwrote it.
-    if (!(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+    if (!(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
     if (!lastBuildGood) {
-      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
       chi2 = backwardPass(sc, n, hasZ, prior);
     }
     // Report the reachable state itself, not the move beyond it.
     sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0;
   }
-  let extraRangeVariance = 0;
+  let extraRangeVariance = 0, profiled = false;
   const spacingGcm2 = (sc.path[n - 1] / (n - 1)) * model.gcm2PerM;
   if (set.energyLoss && sc.range[n - 1] < PROFILE_SPACINGS * spacingGcm2) {
     const b = sc.firstB, est = Float64Array.from(good);
@@ -103,6 +105,7 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     const t = good[5], sec = Math.sqrt(1 + t * t);
     const sigmaLinK = Math.sqrt(sc.firstB[11]);
     const sigmaR = rangeProfileSigma(model, hits, set, sc, est, prior);
+    profiled = Number.isFinite(sigmaR);
     // Linearised σ(R₀) again from the κ error, to take the excess only.
     const m = model.massMeV, cK = GEV_PER_TESLA_METRE * model.chargeAbs * Math.abs(set.fieldT) * sec;
     const p0 = (1000 * cK) / Math.abs(est[3]);
@@ -110,12 +113,12 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     const sigmaLin = (p0 / Math.abs(est[3])) * ((p0 / (sc.tmp[0] + m)) / sc.tmp[1]) * sigmaLinK;
     if (Number.isFinite(sigmaR) && sigmaR > sigmaLin) extraRangeVariance = sigmaR * sigmaR - sigmaLin * sigmaLin;
     // The scan overwrote the scratch: rebuild the fitted reference.
-    if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0 };
+    if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
     chi2 = backwardPass(sc, n, hasZ, prior);
     if (!converged) { sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0; }
   }
   forwardPass(sc, n, hasZ, prior);
-  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5], extraRangeVariance };
+  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5], extraRangeVariance, profiled };
 }
 
 /**

@@ -9,15 +9,17 @@ import { buildReference, REFERENCE_OK, type ReferenceSettings } from './referenc
 const SCAN_STEPS = 7;
 
 /**
- * Error of the residual range at the first hit [g/cm²] from the profile of χ² — for tracks that
- * end close to the end of their range, where the curvature rises so steeply that the linearised
- * error is far too small. χ²(R₀) is the backward filter's χ² on the reference started with the
- * residual range R₀ (the curvature it implies) and the other parameters of `est`, plus the
- * linear cost (δκ̂)²/C_κκ of holding the curvature there. The scan moves away from the fitted R̂₀
- * in steps of ½, 1, 2, … linearised errors until χ² has risen by 1 on each side (a side where
- * the hypothesis can no longer reach the last hit ends at the last reachable step); the error is
- * the mean of the two half-widths, never less than the linearised one (common practice: the
- * Δχ² = 1 interval of a profile likelihood, PDG RPP "Statistics"). Overwrites the scratch.
+ * Error of the residual range at the first hit [g/cm²] from the profile of −2 ln L — for tracks
+ * that end close to the end of their range, where the curvature rises so steeply that the
+ * linearised error is far too small, and where the scattering and straggling noise, which grow
+ * without bound as the particle slows, make a hypothesis that stops just after the last hit
+ * look better in χ² than it is. −2 ln L(R₀) = χ² + Σ ln(variance of each predicted residual)
+ * (Gaussian likelihood of the innovations; common practice when the noise depends on the
+ * state) + (δκ̂)²/C_κκ, the linear cost of holding the curvature at the value R₀ implies, on the
+ * reference started there with the other parameters of `est`. The scan moves to larger R₀ in
+ * steps of ½, 1, 2, … linearised errors until −2 ln L is 1 above its smallest value; the error
+ * is the distance from the fit to that point, never less than the linearised one (the Δ = 1
+ * interval of a profile likelihood, PDG RPP "Statistics"). Overwrites the scratch.
  */
 export function rangeProfileSigma(model: LossModel, hits: MatterTrackHits, set: ReferenceSettings, sc: MatterFitScratch, est: Float64Array, prior: Float64Array): number {
   const n = hits.x.length, hasZ = hits.z !== undefined;
@@ -33,7 +35,7 @@ export function rangeProfileSigma(model: LossModel, hits: MatterTrackHits, set: 
     trial[3] = (sign * cK) / p;
     if (buildReference(model, hits, trial, set, sc) !== REFERENCE_OK) return NaN;
     const chi2 = backwardPass(sc, n, hasZ, prior);
-    return chi2 + (sc.firstB[2] * sc.firstB[2]) / sc.firstB[11];
+    return chi2 + sc.tmp[14] + (sc.firstB[2] * sc.firstB[2]) / sc.firstB[11];
   };
   const base = profile(r0);
   if (!Number.isFinite(base)) return NaN;
@@ -42,17 +44,18 @@ export function rangeProfileSigma(model: LossModel, hits: MatterTrackHits, set: 
   const beta = p0 / (sc.tmp[0] + m);
   const sigmaLin = (p0 / Math.abs(est[3])) * (beta / sc.tmp[1]) * Math.sqrt(sc.firstB[11]);
   if (!(sigmaLin > 0)) return NaN;
-  let sum = 0;
-  for (const side of [1, -1]) {
-    let prevD = 0, prevRise = 0, width = NaN;
-    for (let j = 0; j < SCAN_STEPS; j++) {
-      const d = 0.5 * sigmaLin * 2 ** j;
-      const rise = profile(r0 + side * d) - base;
-      if (!Number.isFinite(rise)) { width = prevD; break; }
-      if (rise >= 1) { width = prevD + ((d - prevD) * (1 - prevRise)) / Math.max(rise - prevRise, 1e-12); break; }
-      prevD = d; prevRise = Math.max(rise, 0);
-    }
-    sum += Number.isFinite(width) ? width : prevD;
+  // Scan towards larger ranges (higher momentum at the first hit), where the likelihood is
+  // shallow; the other side ends at the wall where the hypothesis stops short. The minimum may
+  // lie inside the scan: the width is measured from the fit to where −2 ln L is 1 above it.
+  let min = base, width = NaN, prevD = 0, prevQ = base;
+  for (let j = 0; j < SCAN_STEPS; j++) {
+    const d = 0.5 * sigmaLin * 2 ** j;
+    const q = profile(r0 + d);
+    if (!Number.isFinite(q)) break;
+    if (q < min) min = q;
+    if (q - min >= 1 && d > 0) { width = prevD + ((d - prevD) * (min + 1 - prevQ)) / Math.max(q - prevQ, 1e-12); break; }
+    prevD = d; prevQ = q;
   }
-  return Math.max(0.5 * sum, sigmaLin);
+  if (!Number.isFinite(width)) width = prevD;
+  return Math.max(width, sigmaLin);
 }

@@ -65,7 +65,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
       cur[4] = r; cur[5] = sc.tmp[0]; cur[6] = sc.tmp[1];
     }
   }
-  cur[8] = start[4]; cur[9] = 0;
+  cur[8] = start[4]; cur[9] = 0; cur[10] = Math.cos(start[2]); cur[11] = Math.sin(start[2]);
   sc.tmp[8] = tanL; sc.tmp[9] = secL; sc.tmp[10] = cK; sc.tmp[11] = sgn;
   storeHit(sc, 0, hits, set);
   sc.ds[0] = 0;
@@ -76,7 +76,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
     for (let it = 0; it < 8; it++) {
       // Arc to the point of the current circle closest to the hit: angle atan2(κ·a, 1 − κ·b) with
       // (a, b) the hit along and across the direction (exact for constant κ; then corrected).
-      const c = Math.cos(cur[2]), s = Math.sin(cur[2]);
+      const c = cur[10], s = cur[11];
       const ex = hx[i] - cur[0], ey = hy[i] - cur[1];
       const along = ex * c + ey * s;
       if (it > 0 && Math.abs(along) < APPROACH_TOLERANCE_M) break;
@@ -110,7 +110,10 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
 
 function storeHit(sc: MatterFitScratch, i: number, hits: MatterTrackHits, set: ReferenceSettings): void {
   const cur = sc.cur;
-  const c = Math.cos(cur[2]), s = Math.sin(cur[2]);
+  // Direction cosines are carried by rotation in `step`; renormalised once per hit.
+  const norm = 1 / Math.hypot(cur[10], cur[11]);
+  cur[10] *= norm; cur[11] *= norm;
+  const c = cur[10], s = cur[11];
   sc.x[i] = cur[0]; sc.y[i] = cur[1]; sc.phi[i] = cur[2]; sc.kappa[i] = cur[3];
   sc.range[i] = cur[4]; sc.p[i] = cur[7]; sc.z[i] = cur[8]; sc.path[i] = cur[9];
   sc.mr[i] = -s * (hits.x[i] - cur[0]) + c * (hits.y[i] - cur[1]);
@@ -125,8 +128,9 @@ function storeHit(sc: MatterFitScratch, i: number, hits: MatterTrackHits, set: R
 }
 
 /**
- * One arc of transverse length ds [m] (negative: backwards) from the current state (geometry in
- * tmp[8..11]: tan λ, sec λ, |κ|·p, sign of κ); updates
+ * One arc of transverse length ds [m] (negative: backwards) from the current state (cur: x, y,
+ * φ, κ, residual range, T, S, p, z, path, cos φ, sin φ; geometry in tmp[8..11]: tan λ, sec λ,
+ * |κ|·p, sign of κ); updates
  * the state and the step's Jacobian and noise. False when the state became non-finite.
  */
 function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds: number): boolean {
@@ -151,7 +155,7 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
   const kapM = 0.5 * (kapS + kapE);
   const a = kapM * ds;
   const phi = cur[2];
-  const cphi = Math.cos(phi), sphi = Math.sin(phi);
+  const cphi = cur[10], sphi = cur[11];
   let ca: number, sa: number, sOverK: number, oneMinusCOverK2: number;
   if (Math.abs(a) < 1e-2) {
     const a2 = a * a;
@@ -168,6 +172,7 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
   cur[0] += sOverK * cphi - kapM * oneMinusCOverK2 * sphi;
   cur[1] += sOverK * sphi + kapM * oneMinusCOverK2 * cphi;
   cur[2] = phi + a;
+  cur[10] = cphi * ca - sphi * sa; cur[11] = sphi * ca + cphi * sa;
   cur[8] += ds * tanL;
   cur[9] += Math.abs(l);
   // Jacobian of this arc: [[c, s/κ, (1−c)/κ²·ḡ], [−κ s, c, s/κ·ḡ], [0, 0, g]], ḡ = (1+g)/2.
