@@ -78,12 +78,25 @@ export { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns
 export { trackHits, type OneTrackHits } from './track/trackHits.js';
 export { trackRows } from './track/trackRows.js';
 export { trackTableColumns } from './track/trackTableColumns.js';
+// stopping tracks and identification by range
+export { PID_SPECIES, chargedSpecies } from './track/chargedSpecies.js';
+export { IDENTIFY_DEFAULTS, MIN_HITS, UNDECIDED, identifyTrack, type IdentifyTrackOptions, type TrackHypothesis, type TrackIdentity } from './track/identifyTrack.js';
+export { identifyTracks, type IdentifiedTracks } from './track/identifyTracks.js';
+export { type HypothesisFit } from './track/fitHypothesis.js';
+export { initialMomentumFromRange } from './track/initialMomentumFromRange.js';
+export { LINK_STOP_DECAYS_DEFAULTS, linkStopDecays, type LinkStopDecaysOptions, type StopDecayLinks } from './track/linkStopDecays.js';
+export { meanHitSpacingM, pathLengthsM, residualRangesM } from './track/pathLength.js';
+export { momentumAgainstResidualRange, predictedCurvature, type MomentumAgainstRange } from './track/profileAlongTrack.js';
+export { SEGMENT_CURVATURE_DEFAULTS, segmentCurvatures, type SegmentCurvatureOptions, type SegmentCurvatures, type SegmentHits } from './track/segmentCurvatures.js';
+export { ELECTRON_RANGE_SPREAD, RANGE_TABLE_ACCURACY, speciesRange, type SpeciesRange } from './track/speciesRange.js';
+export { STOPS_INSIDE_DEFAULTS, curvatureSlopeSignificance, stopsInside, type FiducialBox, type StopDecision, type StopsInsideOptions } from './track/stopsInside.js';
 
 // ── analysis: histograms, fitting layer, statistics
 export { addHistograms } from './analysis/addHistograms.js';
 export { binCounts, type BinnedCounts } from './analysis/binCounts.js';
 export { binErrors, type BinErrorOptions, type BinErrors } from './analysis/binErrors.js';
 export { chi2Quantile } from './analysis/chi2Quantile.js';
+export { michelEndpoint } from './analysis/michelEndpoint.js';
 export { chi2Survival } from './analysis/chi2Survival.js';
 export { erf, erfc } from './analysis/erf.js';
 export { fitHistogram, type BinnedMethod, type FitHistogramOptions } from './analysis/fitHistogram.js';
@@ -149,10 +162,12 @@ export { magneticRigidityTm, rigidityFromKineticTm } from './beam/rigidity.js';
 export { selectedSpeedMPerS } from './beam/velocitySelector.js';
 
 // ── plot: figure specs and event displays
+export { curvatureAlongTrackFigure } from './plot/curvatureAlongTrackFigure.js';
 export { EventDisplay, eventDisplay, type DisplayHits, type DisplayTrack, type EventDisplayOptions } from './plot/eventDisplay.js';
 export { Figure, type PlotSpec, type PlotTrace } from './plot/figure.js';
 export { histogramFigure, type HistogramOptions } from './plot/histogram.js';
 export { histogram2dFigure, type Histogram2DFigureOptions } from './plot/histogram2dFigure.js';
+export { momentumRangeFigure, type MomentumRangePoints } from './plot/momentumRangeFigure.js';
 export { DENSITY_SCALE, PALETTE, SERIES_COLOURS, SERIES_DASHES, SERIES_MARKERS, chargeColour, seriesStyle, type SeriesStyle } from './plot/palette.js';
 export { spectrumFigure, type SpectrumFigureOptions } from './plot/spectrumFigure.js';
 export { figureSvg, type FigureSvgOptions } from './plot/static/figureSvg.js';

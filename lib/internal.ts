@@ -19,5 +19,6 @@ export { isElectronLike } from './matter/stoppingPower.js';
 export { PLOTLY_MIME } from './plot/figure.js';
 export { provenanceSnapshot, type ProvenanceSnapshot } from './provenance.js';
 export { checkHitOrder } from './track/hitOrderCheck.js';
+export { speciesList } from './track/measureByIdentity.js';
 export { POOR_FIT_PROBABILITY } from './track/measureTracks.js';
 export { metresPerUnit } from './units.js';

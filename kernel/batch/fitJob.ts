@@ -1,5 +1,5 @@
 import { type Column, type ColumnTable, type HitTable, material as lookupMaterial, measureTracks, particle as lookupParticle, resolutionBudget, resolutionBudgetColumns, trackTableColumns } from '../../lib/index.js';
-import { checkHitOrder, idColumnText } from '../../lib/internal.js';
+import { checkHitOrder, idColumnText, speciesList } from '../../lib/internal.js';
 import type { BatchJob, JobOutput } from './batchJob.js';
 
 /** What `sagitta fit` asks of every chunk; plain data, so it can be sent to a worker. */
@@ -9,9 +9,12 @@ export interface FitJobOptions {
   readonly chargeMagnitude: number;
   readonly hitErrorM?: number;
   readonly material?: string;
+  /** One species, or 'auto' / a comma list for identification by range. */
   readonly particle: string;
   /** With a material: 'matter' (default) or 'plain-helix'. */
   readonly fit?: 'matter' | 'plain-helix';
+  /** Fiducial box [m] for the stop decision of identification by range. */
+  readonly volume?: { readonly min: readonly [number, number, number]; readonly max: readonly [number, number, number] };
 }
 
 /**
@@ -25,13 +28,14 @@ export const FIT_JOB: BatchJob<FitJobOptions> = {
   run(hits: HitTable, o: FitJobOptions): JobOutput {
     const tracks = measureTracks(hits, {
       fieldT: o.fieldT, method: o.method, chargeMagnitude: o.chargeMagnitude, hitErrorM: o.hitErrorM,
-      material: o.material, particle: o.particle, fit: o.fit,
+      material: o.material, particle: o.particle, fit: o.fit, volume: o.volume,
     });
     checkHitOrder(tracks);
     const base = trackTableColumns(tracks);
     let columns: Column[] = [...base.columns];
     let samples: Record<string, Float64Array> | undefined;
-    if (o.material !== undefined) {
+    const identifying = speciesList(o.particle) !== undefined;
+    if (o.material !== undefined && !identifying) {
       const budget = resolutionBudget(tracks, { material: lookupMaterial(o.material), particle: lookupParticle(o.particle), hitErrorM: o.hitErrorM });
       columns.push(...resolutionBudgetColumns(budget));
       const p = tracks.hasZ ? tracks.momentum.pGeV : tracks.momentum.ptGeV;
@@ -51,6 +55,10 @@ export const FIT_JOB: BatchJob<FitJobOptions> = {
     const table: ColumnTable = { rows: tracks.count, columns };
     const counts: Record<string, number> = { tracks: tracks.count, track_hits: tracks.hits.length, unassigned_hits: tracks.unassignedHits };
     for (const [s, c] of Object.entries(tracks.statusCounts)) counts[`status_${s}`] = c;
+    if (tracks.identity) {
+      for (const p of tracks.identity.pid) counts[`pid_${p}`] = (counts[`pid_${p}`] ?? 0) + 1;
+      counts.stopping = tracks.identity.stops.reduce((a, v) => a + v, 0);
+    }
     // Position in the input of each track's first hit (for merging sharded results in input order).
     const position = tracks.hits.source.position;
     let firstHit: Float64Array | undefined;

@@ -36,3 +36,4 @@ export { customShape, isShape, type Model, type ModelFunction, type Shape } from
 export { sumShapes } from './shapes/sumShapes.js';
 export { voigt } from './shapes/voigt.js';
 export { weightedMean, type WeightedMean } from './weightedMean.js';
+export { michelEndpoint } from './michelEndpoint.js';

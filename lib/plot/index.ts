@@ -10,3 +10,5 @@ export { figureSvg, type FigureSvgOptions } from './static/figureSvg.js';
 export { svgToPng } from './static/svgToPng.js';
 export { eventArcs, trackEventDisplay, type EventArcs } from './trackEventDisplay.js';
 export { xyFigure, type XYOptions, type XYSeries } from './xyFigure.js';
+export { curvatureAlongTrackFigure } from './curvatureAlongTrackFigure.js';
+export { momentumRangeFigure, type MomentumRangePoints } from './momentumRangeFigure.js';

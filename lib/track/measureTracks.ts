@@ -13,6 +13,9 @@ import { MATTER_FIT_MIN_PROBABILITY, MATTER_FIT_STATUS } from '../fit/matter/mat
 import { material as lookupMaterial, type Material } from '../matter/materials.js';
 import { particle as lookupParticle, PION_PLUS, type Particle } from '../particles.js';
 import { matterMomenta } from './matterMomenta.js';
+import { measureByIdentity, speciesList } from './measureByIdentity.js';
+import type { IdentifiedTracks } from './identifyTracks.js';
+import type { FiducialBox } from './stopsInside.js';
 
 /** χ² probability below which a fitted track is flagged 'poor-fit' (the fit-with-material threshold, 1e-3). */
 export const POOR_FIT_PROBABILITY = MATTER_FIT_MIN_PROBABILITY;
@@ -35,8 +38,14 @@ export interface MeasureTracksOptions {
    * `fit: 'plain-helix'`. Needs hit errors (sigma columns or `hitErrorM`).
    */
   readonly material?: Material | string;
-  /** Mass hypothesis for the fit with material; default pi+. */
-  readonly particle?: Particle | string;
+  /**
+   * Mass hypothesis for the fit with material; default pi+. 'auto' (e, μ, π, K, p), a list, or
+   * text with commas ('mu-,pi-,proton'): identify each track by range (`identifyTracks`) and
+   * report it under the chosen species (`identity` in the table).
+   */
+  readonly particle?: Particle | string | readonly (Particle | string)[];
+  /** With several species: the fiducial volume for the stop decision (`stopsInside`); omitted → the curvature-rise criterion. */
+  readonly volume?: FiducialBox;
   /** 'matter' (default with a material) or 'plain-helix' (one helix, no material; the only choice without one). */
   readonly fit?: TrackFitKind;
 }
@@ -74,6 +83,8 @@ export interface TrackTable {
   readonly particle?: string;
   /** The fits with material (state and covariance at the first hit, last-hit momentum, path, residual range). */
   readonly matter?: MatterFitColumns;
+  /** With `particle: 'auto'` or a list: the identification of every track (pid, margin, stop, bound). */
+  readonly identity?: IdentifiedTracks;
   readonly momentum: MomentumColumns;
   /** True when the hits carry z, so p and tan λ are measured (otherwise only p_T). */
   readonly hasZ: boolean;
@@ -105,6 +116,11 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
   const method = fitMethod(options.method ?? CIRCLE_FIT_DEFAULTS.method);
   if (options.hitErrorM !== undefined && !(options.hitErrorM > 0)) throw msg.badArgument('hitErrorM', options.hitErrorM, 'a positive hit error in metres');
   if (!Number.isFinite(options.fieldT) || options.fieldT === 0) throw msg.badArgument('fieldT', options.fieldT, 'a non-zero magnetic field in tesla (signed along +z)');
+  const several = speciesList(options.particle);
+  if (several !== undefined) {
+    if (options.material === undefined || options.fit === 'plain-helix') throw msg.badArgument('particle', String(options.particle), "one species without a material or with the plain helix fit; identification by range needs a material and the fit with material");
+    return measureByIdentity(hits, options, several, measureTracks);
+  }
   const { assigned, keptRows, unassignedHits } = splitUnassigned(hits);
   const { table, index, rows } = indexTracks(assigned);
   const hitRows = rows === undefined ? keptRows : Int32Array.from(rows, (r) => keptRows[r]);
@@ -125,7 +141,7 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
   if (fit === 'matter') {
     if (sigmaX === undefined) throw msg.badArgument('hitErrorM', undefined, "hit errors for the fit with material: sigma columns, hitErrorM (--hit-error), or the plain helix fit (fit: 'plain-helix', --plain-helix)");
     const medium = typeof options.material === 'string' ? lookupMaterial(options.material) : options.material!;
-    const species = options.particle === undefined ? PION_PLUS : typeof options.particle === 'string' ? lookupParticle(options.particle) : options.particle;
+    const species = options.particle === undefined ? PION_PLUS : typeof options.particle === 'string' ? lookupParticle(options.particle) : (options.particle as Particle);
     const matter = fitTracksInMatter({ ...planeHits, z: table.z, sigmaZ: table.sigmaZ }, index.offsets, { fieldT: options.fieldT, medium, particle: species, hitErrorM: options.hitErrorM });
     const status = Array.from(matter.status, (s) => MATTER_FIT_STATUS[s] as FitStatus);
     return {

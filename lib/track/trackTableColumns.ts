@@ -6,7 +6,11 @@ import type { TrackTable } from './measureTracks.js';
  * ending in their unit (`_m`, `_rad`, `_GeV_c` for momenta). `p_GeV_c`, `tan_lambda`, `z0_m` and
  * `sigma_p_GeV_c` are empty when the hits carry no z. `chi2_prob` is P(χ²_ndf ≥ χ²). After a fit with
  * material: `p_last_GeV_c` and its error at the last hit, the 3-D `path_m` first → last hit and the
- * hypothesis' CSDA `residual_range_m` left at the last hit.
+ * hypothesis' CSDA `residual_range_m` left at the last hit. After identification by range
+ * (`particle: 'auto'` or a list): `pid` (the chosen species, or 'undecided'), `pid_delta_m2lnL`
+ * (−2 ln L of the runner-up minus the best), `stops` (1 when the track stops inside) and
+ * `p_min_GeV_c` (least first-hit momentum that reaches the last hit, the bound for a track that
+ * leaves); p and σ(p) are then those of the chosen species.
  */
 export function trackTableColumns(t: TrackTable): ColumnTable {
   const m = t.momentum;
@@ -37,6 +41,12 @@ export function trackTableColumns(t: TrackTable): ColumnTable {
         { name: 'sigma_p_last_GeV_c', values: t.matter.sigmaPLastGeV, digits: 4 },
         { name: 'path_m', values: t.matter.pathLengthM },
         { name: 'residual_range_m', values: t.matter.residualRangeM },
+      ] : []),
+      ...(t.identity ? [
+        { name: 'pid', values: t.identity.pid },
+        { name: 'pid_delta_m2lnL', values: t.identity.deltaM2lnL, digits: 6 },
+        { name: 'stops', values: t.identity.stops, digits: 0 },
+        { name: 'p_min_GeV_c', values: t.identity.pMinGeV },
       ] : []),
     ],
   };

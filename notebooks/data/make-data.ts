@@ -22,6 +22,7 @@ export const DEMO_SEEDS: Readonly<Record<string, number>> = Object.freeze({
   larkspur: 20260404,
   ashgrove: 20260416,
   fenwick: 20260611,
+  hollowmere: 20260417,
 });
 
 /**

@@ -58,6 +58,20 @@ export const EXAMPLE_CHECKS: Readonly<Record<string, (r: Record<string, number>)
     expect(r.robustCleanResolution).toBeLessThan(1.05 * r.geometricCleanResolution); // nothing lost on clean hits
     expect(r.robustPullWidth).toBeLessThan(r.geometricPullWidth); // narrower, though not yet 1 (the notebook says why)
   },
+  // Identification by range on simulated truth (seed 20260417). Targets of issue 9: ≥ 95 % of p
+  // and K, electron spirals as electrons — met; ≥ 90 % of π and μ — not met (78 % and 80 % on
+  // this run; the notebook says why), so the π/μ lines guard what is reached, not the target.
+  // Michel endpoint W = (m_μ² + m_e²)/(2 m_μ) = 52.830 MeV from PDG 2022 masses: within 2 σ.
+  '05-hollowmere-stopping.ipynb': (r) => {
+    expect(r.protonRight / r.protonTotal).toBeGreaterThanOrEqual(0.95);
+    expect(r.kaonRight / r.kaonTotal).toBeGreaterThanOrEqual(0.95);
+    expect(r.electronRight).toBe(r.electronTotal);
+    expect(r.pionRight / r.pionTotal).toBeGreaterThanOrEqual(0.75);
+    expect(r.muonRight / r.muonTotal).toBeGreaterThanOrEqual(0.75);
+    expect(r.michelPdgMeV).toBeCloseTo(52.8304, 3);
+    expect(Math.abs(r.michelMeV - r.michelPdgMeV)).toBeLessThan(2 * r.sigmaMichelMeV);
+    expect(r.sigmaMichelMeV).toBeLessThan(4);
+  },
 };
 
 /** The object printed on the notebook's `sagitta-check` line, or undefined. */

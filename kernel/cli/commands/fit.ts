@@ -2,7 +2,7 @@ import { Command, Option } from 'commander';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { fieldTesla, fitMethods, formatWarning, lengthMetres, material as lookupMaterial, particle as lookupParticle, READ_HITS_DEFAULTS } from '../../../lib/index.js';
-import { metresPerUnit, msg } from '../../../lib/internal.js';
+import { metresPerUnit, msg, speciesList } from '../../../lib/internal.js';
 import type { FitJobOptions } from '../../batch/fitJob.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { planOutputs } from '../../batch/outputPlan.js';
@@ -26,6 +26,8 @@ export interface FitCommandOptions {
   material?: string;
   /** Mass hypothesis for β in the multiple-scattering term (with --material). */
   particle?: string;
+  /** Full sizes x,y,z of the sensitive box centred on the origin, for the stop decision. */
+  volume?: string;
   /** With --material: keep the plain helix fit instead of the fit with material effects. */
   plainHelix?: boolean;
   threads?: string;
@@ -38,6 +40,7 @@ export const FIT_EXAMPLES = [
   'sagitta fit notebooks/data/brindlemoor-hits.csv --field "15 kG" --out out/tracks.csv',
   'sagitta fit notebooks/data/brindlemoor-hits.csv --field "1.5 T" --material liquid-hydrogen --out out/tracks.json',
   'sagitta fit notebooks/data/brindlemoor-hits.csv --field "1.5 T" --shard 2/4 --out out/part-2.csv',
+  'sagitta fit notebooks/data/hollowmere-hits.csv --field "2 T" --material liquid-propane --particle auto --volume "160 cm,100 cm,60 cm" --out out/pid.csv',
 ];
 
 /**
@@ -58,7 +61,8 @@ export function registerFit(program: Command): void {
     .option('--hit-error <quantity>', 'position error for hits without a sigma column, e.g. "200 um" (default: estimated from each track\'s residuals)')
     .option('--charge-number <z>', 'charge magnitude |z| of the particles (2 for alpha particles)', '1')
     .option('--material <name>', 'medium the tracks cross, e.g. argon-gas, liquid-hydrogen, liquid-propane: fits with energy loss and multiple scattering, p at the first hit, and adds the error budget columns')
-    .option('--particle <name>', 'mass hypothesis for the fit with material (energy loss, β in the scattering term)', 'pi+')
+    .option('--particle <name>', 'mass hypothesis for the fit with material (energy loss, β in the scattering term); "auto" identifies each track by range among e, mu, pi, K, p, or give a list such as mu-,pi-,proton', 'pi+')
+    .option('--volume <x,y,z>', 'with --particle auto or a list: full sizes of the sensitive box centred on the origin, e.g. "160 cm,100 cm,60 cm"; a track whose last hit lies 2 cm or more inside every face stops (without it: the curvature must rise along the track)')
     .option('--plain-helix', 'with --material: fit one plain helix per track as without a material (for comparison; biased low on slowing tracks)')
     .option('--threads <n>', `worker threads (default: all ${availableParallelism()} cores); the output is the same for any count`)
     .option('--shard <K/N>', 'fit only the K-th of N slices of the events (by event id), e.g. 3/8; combine the parts with "sagitta merge"')
@@ -86,6 +90,17 @@ Ids are exact whole numbers up to 2^63 - 1.
 With --material: sigma_p_meas_GeV_c (from the hit errors, exact least squares for each track's
 hits), sigma_p_ms_GeV_c (multiple scattering in the medium over the track length, Gluckstern/PDG
 form, β from --particle) and sigma_p_total_GeV_c (quadrature sum).
+
+With --material and --particle auto (or a list such as mu-,pi-,proton): each track is fitted
+under every species and the one with the least -2 ln L is chosen (a Kalman filter about the
+species' range-momentum profile, with scattering and straggling; for a track that stops, the
+length must agree with the range). Columns pid (the species, in the names sagitta range
+--particle reads, or undecided), pid_delta_m2lnL (-2 ln L of the runner-up minus the best),
+stops (1 when the last hit lies 2 cm or more inside --volume, or without it when the curvature
+rises significantly along the track) and p_min_GeV_c (least momentum
+that reaches the last hit) follow; p_GeV_c and sigma_p_GeV_c are those of the chosen species. A
+track that does not stop is named only when the margin is at least 9, else undecided. The error
+budget columns are not written then (they need one species).
 
 Large files are read in pieces of whole events, so memory stays bounded; a file whose events are
 not grouped (an event reappears after others) is read whole instead. With --shard K/N, each
@@ -124,10 +139,21 @@ function checkOptions(hitsPath: string, o: FitCommandOptions): CheckedFit {
   if (!(chargeMagnitude > 0 && chargeMagnitude <= 200)) throw msg.badArgument('--charge-number', o.chargeNumber, 'a positive number such as 1 or 2');
   if (o.material !== undefined) lookupMaterial(o.material);
   const particle = o.particle ?? 'pi+';
-  lookupParticle(particle);
+  const several = speciesList(particle);
+  if (several !== undefined) {
+    if (o.material === undefined || o.plainHelix) throw msg.badArgument('--particle', particle, 'one species without --material or with --plain-helix: identification by range ("auto" or a list) needs --material and the fit with material');
+  } else lookupParticle(particle);
+  let volume: FitJobOptions['volume'];
+  if (o.volume !== undefined) {
+    const parts = o.volume.split(',');
+    if (parts.length !== 3) throw msg.badArgument('--volume', o.volume, 'three full sizes x,y,z with units, e.g. "160 cm,100 cm,60 cm"');
+    const size = parts.map((t) => lengthMetres(t, { what: '--volume' }));
+    if (!size.every((v) => v > 0 && Number.isFinite(v))) throw msg.badArgument('--volume', o.volume, 'three positive sizes, e.g. "160 cm,100 cm,60 cm"');
+    volume = { min: [-size[0] / 2, -size[1] / 2, -size[2] / 2], max: [size[0] / 2, size[1] / 2, size[2] / 2] };
+  }
   const format = o.out === undefined ? 'csv' : resultFormatOf(o.out);
   return {
-    job: { fieldT, method: o.fitter, chargeMagnitude, hitErrorM, material: o.material, particle, fit: o.plainHelix ? 'plain-helix' : 'matter' },
+    job: { fieldT, method: o.fitter, chargeMagnitude, hitErrorM, material: o.material, particle, fit: o.plainHelix ? 'plain-helix' : 'matter', volume },
     threads: o.threads === undefined ? undefined : parseThreads(o.threads),
     shard: o.shard === undefined ? undefined : parseShard(o.shard),
     format,
@@ -196,7 +222,9 @@ function fitSummary(hitsPath: string, t: BatchTotals, c: CheckedFit, o: FitComma
   const lines = [
     `sagitta fit: ${hitsPath}: ${n.track_hits ?? 0} hits on ${n.tracks ?? 0} tracks` +
       (n.unassigned_hits ? `, ${n.unassigned_hits} unassigned hits (track < 0) set aside` : '') + `; lengths read as ${units}; ${errors}`,
-    `  field ${c.job.fieldT} T along ${c.job.fieldT > 0 ? '+z' : '-z'}, ` + (matter
+    `  field ${c.job.fieldT} T along ${c.job.fieldT > 0 ? '+z' : '-z'}, ` + (matter && speciesList(c.job.particle)
+      ? `identification by range among ${speciesList(c.job.particle)!.map((p) => p.name).join(', ')} in ${o.material}; each track fitted with material under its chosen species, p at the first hit`
+      : matter
       ? `fit with material: energy loss of ${c.job.particle} and multiple scattering in ${o.material}, p at the first hit`
       : `fitter ${t.method ?? c.job.method}${t.hasZ ? ', helix (z present)' : ', circle only (no z: p and tan(lambda) not measured)'}`),
     `  fitted ${(n.status_ok ?? 0) + poor}` + (poor ? ` (${poor} poor fits: chi2 probability below 0.001)` : '') + `, failed ${failed}${statuses.length ? ` (${statuses.join(', ')})` : ''}`,
@@ -204,7 +232,9 @@ function fitSummary(hitsPath: string, t: BatchTotals, c: CheckedFit, o: FitComma
   if (c.shard) lines.push(`  shard ${c.shard.index}/${c.shard.count}: ${n.other_shard_hits ?? 0} hits of other slices' events skipped`);
   if (t.readWhole) lines.push('  the events of this file are not grouped (an event reappears after others): read whole instead of streamed');
   lines.push(`  time ${seconds.toFixed(2)} s, ${t.threads} thread${t.threads === 1 ? '' : 's'}${o.out ? `; results in ${o.out}` : ''}`);
-  if (o.material !== undefined) {
+  const pids = Object.entries(n).filter(([k]) => k.startsWith('pid_')).map(([k, v]) => `${k.slice(4)} ${v}`);
+  if (pids.length) lines.push(`  pid: ${pids.join(', ')}; ${n.stopping ?? 0} tracks stop (${c.job.volume ? 'last hit 2 cm or more inside --volume' : 'curvature rising along the track'})`);
+  if (o.material !== undefined && !speciesList(c.job.particle)) {
     lines.push(`  error budget in ${o.material} (β from ${c.job.particle}): median σp/p measurement ${medianPercent(t.samples.measurement)}, multiple scattering ${medianPercent(t.samples.scattering)}`);
   }
   for (const w of t.warnings) lines.push(`  ${formatWarning(w)}`);

@@ -1,0 +1,72 @@
+import type { FitStatus } from '../fit/circleFit.js';
+import type { HitTable } from '../io/hitTable.js';
+import { material as lookupMaterial } from '../matter/materials.js';
+import { particle as lookupParticle, type Particle } from '../particles.js';
+import { PID_SPECIES } from './chargedSpecies.js';
+import { identifyTracks } from './identifyTracks.js';
+import type { MeasureTracksOptions, TrackTable } from './measureTracks.js';
+
+/**
+ * The species list a `particle` option asks for, or undefined for a single hypothesis:
+ * 'auto' → e, μ, π, K, p; a list, or text with commas ('mu-,pi-,p') → those species.
+ */
+export function speciesList(particle: MeasureTracksOptions['particle']): readonly Particle[] | undefined {
+  if (particle === undefined) return undefined;
+  if (Array.isArray(particle)) return particle.map((p) => (typeof p === 'string' ? lookupParticle(p) : p));
+  if (typeof particle !== 'string') return undefined;
+  if (particle.trim().toLowerCase() === 'auto') return PID_SPECIES;
+  return particle.includes(',') ? particle.split(',').map((p) => lookupParticle(p)) : undefined;
+}
+
+/** Picks row k of column `from[choice[k]]` for every per-track column (w values a row) of the tables. */
+function pickRows<T extends object>(tables: readonly T[], choice: Int32Array, n: number): T {
+  const first = tables[0] as Record<string, unknown>;
+  const out: Record<string, unknown> = { ...first };
+  for (const [key, value] of Object.entries(first)) {
+    if (ArrayBuffer.isView(value) && !(value instanceof DataView) && n > 0 && (value as Float64Array).length % n === 0 && (value as Float64Array).length > 0) {
+      const w = (value as Float64Array).length / n;
+      const col = (value as Float64Array).slice();
+      for (let k = 0; k < n; k++) {
+        const src = (tables[choice[k]] as Record<string, unknown>)[key] as Float64Array;
+        for (let j = 0; j < w; j++) col[k * w + j] = src[k * w + j];
+      }
+      out[key] = col;
+    } else if (Array.isArray(value) && value.length === n) {
+      out[key] = Array.from({ length: n }, (_, k) => ((tables[choice[k]] as Record<string, unknown>)[key] as unknown[])[k]);
+    }
+  }
+  return out as T;
+}
+
+/**
+ * `measureTracks` with `particle: 'auto'` or a list: identifies each track by range
+ * (`identifyTracks`: the choice, its −2 ln L margin, the stop decision) and reports its momenta
+ * from the fit with material (lib/fit/matter) under the chosen species — under the best
+ * hypothesis also when the track is 'undecided'. Each species that is best for some track is
+ * fitted once over all tracks, and each row is taken from its own species' fit.
+ */
+export function measureByIdentity(hits: HitTable, options: MeasureTracksOptions, species: readonly Particle[], measure: (h: HitTable, o: MeasureTracksOptions) => TrackTable): TrackTable {
+  const mat = typeof options.material === 'string' ? lookupMaterial(options.material) : options.material!;
+  const plain = measure(hits, { ...options, particle: undefined, fit: 'plain-helix' });
+  const ids = identifyTracks(plain, { fieldT: options.fieldT, material: mat, species, volume: options.volume, hitErrorM: options.hitErrorM, chargeMagnitude: options.chargeMagnitude });
+  const n = plain.count;
+  const best = Int32Array.from(ids.identities, (id) => id.best);
+  const used = [...new Set(best)].sort((a, b) => a - b);
+  const fitted = new Map<number, TrackTable>();
+  for (const i of used.length ? used : [0]) fitted.set(i, measure(hits, { ...options, particle: species[i] }));
+  const order = [...fitted.keys()];
+  const tables = order.map((i) => fitted.get(i)!);
+  const choice = Int32Array.from(best, (b) => Math.max(order.indexOf(b), 0));
+  const picked = pickRows(tables, choice, n);
+  const status = picked.status as FitStatus[];
+  const statusCounts = Object.fromEntries(Object.keys(tables[0].statusCounts).map((s) => [s, 0])) as Record<FitStatus, number>;
+  for (const s of status) statusCounts[s]++;
+  return {
+    ...picked,
+    momentum: pickRows(tables.map((t) => t.momentum), choice, n),
+    matter: tables[0].matter ? pickRows(tables.map((t) => t.matter!), choice, n) : undefined,
+    statusCounts,
+    particle: 'auto',
+    identity: ids,
+  };
+}
