@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { closeSync, openSync, readFileSync, statSync } from 'node:fs';
-import { msg } from '../../lib/errors.js';
-import type { SagittaWarning } from '../../lib/warnings.js';
+import { type SagittaWarning } from '../../lib/index.js';
+import { msg } from '../../lib/internal.js';
 import { loadBatchJob } from './batchJobs.js';
 import { columnarChunks } from './columnarChunks.js';
 import { inputFormatOf, type InputFormat } from './inputFormat.js';
@@ -143,6 +143,9 @@ async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, run: (c:
     addOutcome(totals, out);
     sink.begin(out.names);
     await sink.add(out.encoded, out.table);
+    // One turn of the event loop per chunk, so a Ctrl-C (SIGINT, SIGTERM) is handled promptly
+    // even when every chunk is worked in this thread: the command stops with nothing written.
+    await new Promise((resolve) => setImmediate(resolve));
   };
   for await (const chunk of source) {
     if (firstChunk && chunk.kind === 'csv') lineBase = chunk.layout!.bodyLine - 1;

@@ -1,8 +1,8 @@
 #!/usr/bin/env node
-// Entry point of the `sagitta` command. Sagitta ships TypeScript sources and runs them through
-// tsx's loader, so there is no build step between a clone and a working command.
+// The `sagitta` command in a checkout: registers tsx's loader and runs the TypeScript sources, so
+// there is no build step between a clone and a working command. The installed package runs its
+// build instead (package.json "bin": dist/kernel/entry/sagitta.js).
 import { register } from 'tsx/esm/api';
 
 register();
-const { main } = await import('../cli/main.ts');
-process.exitCode = await main(process.argv);
+await import('../entry/sagitta.ts');

@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { msg } from '../../lib/errors.js';
-import { inputError } from '../../lib/io/readInputFile.js';
+import { inputError, msg } from '../../lib/internal.js';
 import type { Notebook } from './types.js';
 import { validateNotebook } from './validate.js';
 

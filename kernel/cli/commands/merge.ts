@@ -1,5 +1,5 @@
 import type { Command } from 'commander';
-import { msg } from '../../../lib/errors.js';
+import { msg } from '../../../lib/internal.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { mergeParts } from '../../batch/mergeParts.js';
 import { planOutputs } from '../../batch/outputPlan.js';
@@ -42,7 +42,7 @@ ${MERGE_EXAMPLES.map((e) => `  ${e}`).join('\n')}`)
       const files = new OutputSet(outputs);
       try {
         const totals = await mergeParts(parts, format, (bytes) => files.write('--out', bytes));
-        files.commit();
+        await files.commitWhenSettled();
         process.stderr.write(`sagitta merge: ${totals.rows} rows from ${totals.parts} parts → ${options.out}\n`);
       } catch (err) {
         files.abandon();

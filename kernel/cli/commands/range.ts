@@ -1,17 +1,7 @@
 import type { Command } from 'commander';
-import { particle as lookupParticle, type Particle } from '../../../lib/particles.js';
-import { arealDensityGcm2, energyMeV, lengthMetres, momentumGeV } from '../../../lib/units.js';
-import { msg, SagittaError } from '../../../lib/errors.js';
+import { arealDensityGcm2, consumeWarnings, csdaRange, energyMeV, kinematicsFromKinetic, kineticEnergyFromRange, kineticFromMomentum, lengthMetres, massStoppingPower, type Material, material as lookupMaterial, momentumGeV, type Particle, particle as lookupParticle, rangeCutoffMeV, rangeMaxMeV, rangeTable, SagittaError, type SagittaWarning, stoppingRegime } from '../../../lib/index.js';
+import { isElectronLike, msg, parseMaterialFile, readInputFile } from '../../../lib/internal.js';
 import { UsageError } from '../usage.js';
-import { readInputFile } from '../../../lib/io/readInputFile.js';
-import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings.js';
-import { material as lookupMaterial, type Material } from '../../../lib/matter/materials.js';
-import { kinematicsFromKinetic, kineticFromMomentum } from '../../../lib/matter/kinematics.js';
-import { isElectronLike, massStoppingPower } from '../../../lib/matter/stoppingPower.js';
-import { stoppingRegime } from '../../../lib/matter/electronicStopping.js';
-import { parseMaterialFile } from '../../../lib/matter/materialFile.js';
-import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV } from '../../../lib/matter/range.js';
-import { rangeTable } from '../../../lib/matter/rangeTable.js';
 
 export interface RangeCommandOptions {
   particle: string;
