@@ -71,6 +71,7 @@ export { rangeTableFrame } from './matter/rangeTableFrame.js';
 export { collisionStoppingPower, linearStoppingPower, massStoppingPower, radiativeStoppingPower } from './matter/stoppingPower.js';
 
 // ── track: momentum, error budget, per-track access
+export { BACKWARDS_SHARE, checkHitOrder } from './track/hitOrderCheck.js';
 export { measureTracks, type MeasureTracksOptions, type TrackTable } from './track/measureTracks.js';
 export { momenta, momentumAt, radiusOfCurvatureM, transverseMomentumGeV, type MomentumColumns, type MomentumOptions, type TrackMomentum } from './track/momentum.js';
 export { MS_GLUCKSTERN_FACTOR, curvatureSigmaEquallySpaced, curvatureSigmaLeastSquares, glucksternCurvatureSigma, momentumResolution, multipleScatteringCurvatureSigma, type MomentumResolution, type MomentumResolutionInput } from './track/resolution.js';

@@ -87,6 +87,17 @@ export class OutputSet {
     this.done = true;
   }
 
+  /**
+   * As `commit`, after one turn of the event loop, so that a signal that arrived while the work ran
+   * synchronously (Ctrl-C during a long fit or simulation) is handled first: the command then stops
+   * with nothing written instead of renaming its outputs into place and losing the signal.
+   */
+  async commitWhenSettled(): Promise<void> {
+    // Two turns, so that a poll phase (where signals are read) surely passes before the renames.
+    for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
+    this.commit();
+  }
+
   /** Closes and removes every temporary file; nothing is written. */
   abandon(): void {
     if (this.done) return;

@@ -1,3 +1,4 @@
+import { performance } from 'node:perf_hooks';
 import { availableParallelism } from 'node:os';
 import { closeSync, openSync, readFileSync, statSync } from 'node:fs';
 import { type SagittaWarning } from '../../lib/index.js';
@@ -129,6 +130,7 @@ async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, run: (c:
   const seen = new Set<number | string>();
   let lineBase = 0;
   let firstChunk = true;
+  let lastTurn = performance.now();
   const consume = async (): Promise<void> => {
     const settled = await inFlight.shift()!;
     if ('error' in settled) throw errorFromData(settled.error, lineBase);
@@ -143,6 +145,12 @@ async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, run: (c:
     addOutcome(totals, out);
     sink.begin(out.names);
     await sink.add(out.encoded, out.table);
+    // A turn of the event loop every 50 ms of work, so a Ctrl-C (SIGINT, SIGTERM) is handled
+    // promptly even when every chunk is worked in this thread: the command stops with nothing written.
+    if (performance.now() - lastTurn > 50) {
+      await new Promise((resolve) => setImmediate(resolve));
+      lastTurn = performance.now();
+    }
   };
   for await (const chunk of source) {
     if (firstChunk && chunk.kind === 'csv') lineBase = chunk.layout!.bodyLine - 1;

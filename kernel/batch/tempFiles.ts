@@ -18,8 +18,10 @@ export function registerTemp(path: string): void {
   process.on('exit', removeAllTemps);
   for (const signal of Object.keys(SIGNAL_EXIT) as NodeJS.Signals[]) {
     process.once(signal, () => {
+      // Outputs still pending are removed; ones already renamed into place (complete) are said so.
+      const pendingOutputs = pending.size > 0;
       removeAllTemps();
-      process.stderr.write(`\nsagitta: stopped by ${signal}; no output was written\n`);
+      process.stderr.write(`\nsagitta: stopped by ${signal}; ${pendingOutputs ? 'no output was written' : 'outputs already complete were kept'}\n`);
       process.exit(SIGNAL_EXIT[signal]);
     });
   }

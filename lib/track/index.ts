@@ -1,4 +1,5 @@
 // lib/track: everything this room offers the other rooms, by name (the public subset is in lib/index.ts).
+export { BACKWARDS_SHARE, checkHitOrder } from './hitOrderCheck.js';
 export { measureTracks, type MeasureTracksOptions, type TrackTable } from './measureTracks.js';
 export { momenta, momentumAt, radiusOfCurvatureM, transverseMomentumGeV, type MomentumColumns, type MomentumOptions, type TrackMomentum } from './momentum.js';
 export { MS_GLUCKSTERN_FACTOR, curvatureSigmaEquallySpaced, curvatureSigmaLeastSquares, glucksternCurvatureSigma, momentumResolution, multipleScatteringCurvatureSigma, type MomentumResolution, type MomentumResolutionInput } from './resolution.js';

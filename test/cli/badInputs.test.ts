@@ -125,6 +125,29 @@ describe('faults that need a real process', () => {
     }
   });
 
+  it.skipIf(!root && !process.env.CI)('an unreadable hit file and an unwritable folder are one line each (run as user nobody; root only)', () => {
+    if (!root) throw new Error('the permission test needs root to run the command as another user (CI runs as root)');
+    const dir = mkdtempSync(join(tmpdir(), 'sagitta-perm-'));
+    try {
+      writeFileSync(join(dir, 'hits.csv'), readFileSync('test/fixtures/bad/inputs/hits.csv'));
+      mkdirSync(join(dir, 'ro'));
+      spawnSync('chmod', ['777', dir]);
+      spawnSync('chmod', ['555', join(dir, 'ro')]);
+      const asNobody = (args: string[]) => spawnSync('setpriv', ['--reuid=65534', '--regid=65534', '--clear-groups', process.execPath, join(process.cwd(), CLI), ...args], { cwd: dir, encoding: 'utf8', timeout: 60_000 });
+      spawnSync('chmod', ['000', join(dir, 'hits.csv')]);
+      const unreadable = asNobody(['fit', 'hits.csv', '--field', '1 T']);
+      expect(unreadable.stderr.trim()).toBe("sagitta: hits.csv: cannot read (permission denied); check the file's permissions");
+      expect(unreadable.status).toBe(1);
+      spawnSync('chmod', ['644', join(dir, 'hits.csv')]);
+      const unwritable = asNobody(['fit', 'hits.csv', '--field', '1 T', '--out', 'ro/tracks.csv']);
+      expect(unwritable.stderr.trim()).toBe('sagitta: ro/tracks.csv: cannot write here (permission denied); choose a folder you can write into');
+      expect(unwritable.status).toBe(2);
+      expect(readdirSync(join(dir, 'ro'))).toEqual([]);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
   it('simulate writes hits, truth and run record together (all three appear, no temporary left)', () => {
     const dir = mkdtempSync(join(scratch, 'sim-'));
     writeFileSync(join(dir, 's.json'), readFileSync('test/fixtures/bad/inputs/tiny.scenario.json'));

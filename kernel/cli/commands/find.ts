@@ -1,8 +1,7 @@
 import { Command } from 'commander';
-import { existsSync, readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { fieldTesla, findTracks, fitCircles, type FoundTracks, GEV_PER_TESLA_METRE, type HitTable, lengthMetres, READ_HITS_DEFAULTS, recordInput } from '../../../lib/index.js';
-import { metresPerUnit, msg, parseCsvRows, parseHitsJsonl, readCsvLayout } from '../../../lib/internal.js';
+import { metresPerUnit, msg, parseCsvRows, parseHitsJsonl, readCsvLayout, readInputFile } from '../../../lib/internal.js';
 import { planOutputs } from '../../batch/outputPlan.js';
 import { OutputSet } from '../../batch/outputSet.js';
 import { labelledCsv, labelledJsonl } from '../labelledRows.js';
@@ -112,8 +111,7 @@ export function runFind(hitsPath: string, options: FindCommandOptions): string {
   const t0 = performance.now();
   const c = usage(() => checkOptions(hitsPath, options));
   const outputs = usage(() => (options.out === undefined ? [] : planOutputs([{ flag: '<hits>', path: hitsPath }], [{ flag: '--out', path: options.out }])));
-  if (!existsSync(hitsPath)) throw msg.fileNotFound(hitsPath);
-  const bytes = readFileSync(hitsPath);
+  const bytes = readInputFile(hitsPath, 'the hit file');
   recordInput(hitsPath, bytes);
   let table: HitTable, labelled: (f: FoundTracks) => Uint8Array;
   if (c.jsonl) {

@@ -182,7 +182,7 @@ export async function runFit(hitsPath: string, options: FitCommandOptions): Prom
       progress: wantProgress(options.quiet),
       progressLabel: 'fit',
     });
-    files?.commit();
+    await files?.commitWhenSettled();
   } catch (err) {
     files?.abandon();
     throw err;

@@ -42,7 +42,7 @@ ${MERGE_EXAMPLES.map((e) => `  ${e}`).join('\n')}`)
       const files = new OutputSet(outputs);
       try {
         const totals = await mergeParts(parts, format, (bytes) => files.write('--out', bytes));
-        files.commit();
+        await files.commitWhenSettled();
         process.stderr.write(`sagitta merge: ${totals.rows} rows from ${totals.parts} parts → ${options.out}\n`);
       } catch (err) {
         files.abandon();

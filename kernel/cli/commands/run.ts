@@ -110,7 +110,7 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
   const set = new OutputSet(outputs);
   try {
     for (const o of outputs) set.write(o.flag, bytes.get(o.flag) ?? '');
-    set.commit();
+    await set.commitWhenSettled();
   } catch (err) {
     set.abandon();
     throw err;

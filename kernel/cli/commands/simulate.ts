@@ -2,12 +2,12 @@ import { basename, dirname, join } from 'node:path';
 import type { Command } from 'commander';
 import { consumeWarnings, formatHitsCsv, formatRunRecordTotals, formatTruthCsv, readScenario, SCENARIO_SCHEMA, simulateChamberInParts, type SimulationTotals } from '../../../lib/index.js';
 import { msg } from '../../../lib/internal.js';
-
-/** Events simulated and written per part: a few MB of hits, whatever the scenario's event count. */
-const EVENTS_PER_PART = 500;
 import { planOutputs, type NamedPath } from '../../batch/outputPlan.js';
 import { OutputSet } from '../../batch/outputSet.js';
 import { usage } from '../usage.js';
+
+/** Events simulated and written per part: a few MB of hits, whatever the scenario's event count. */
+const EVENTS_PER_PART = 500;
 
 export interface SimulateCommandOptions {
   seed: string;
@@ -46,8 +46,15 @@ ${wrap(SIMULATE_CAUTION, 96)}
 Examples:
   sagitta simulate notebooks/data/brindlemoor.scenario.json --seed 7 --out hits.csv --truth truth.csv
   sagitta simulate --schema > scenario.schema.json`)
-    .action((scenario: string | undefined, options: SimulateCommandOptions) => {
-      const { stdout, stderr } = runSimulate(scenario, options);
+    .action(async (scenario: string | undefined, options: SimulateCommandOptions) => {
+      const { set, stdout, stderr } = simulateToOutputs(scenario, options);
+      try {
+        // A Ctrl-C that arrived during the (synchronous) simulation is handled here: nothing is written.
+        await set?.commitWhenSettled();
+      } catch (err) {
+        set?.abandon();
+        throw err;
+      }
       process.stdout.write(stdout);
       process.stderr.write(stderr);
     });
@@ -67,6 +74,18 @@ function wrap(text: string, width: number): string {
 
 /** The command's work without touching process streams (for tests). Writes the output files. */
 export function runSimulate(scenario: string | undefined, options: SimulateCommandOptions): { stdout: string; stderr: string } {
+  const { set, stdout, stderr } = simulateToOutputs(scenario, options);
+  try {
+    set?.commit();
+  } catch (err) {
+    set?.abandon();
+    throw err;
+  }
+  return { stdout, stderr };
+}
+
+/** Runs the simulation into the temporary outputs, not yet renamed into place (`set.commit()` does that). */
+function simulateToOutputs(scenario: string | undefined, options: SimulateCommandOptions): { set?: OutputSet; stdout: string; stderr: string } {
   if (options.schema) return { stdout: JSON.stringify(SCENARIO_SCHEMA, null, 2) + '\n', stderr: '' };
   const seed = usage(() => {
     if (scenario === undefined) throw msg.badArgument('<scenario>', '(none given)', 'a scenario file, e.g. sagitta simulate run.json --seed 7 (or --schema)');
@@ -101,7 +120,6 @@ export function runSimulate(scenario: string | undefined, options: SimulateComma
       first = false;
     }, EVENTS_PER_PART);
     set.write(record.flag, formatRunRecordTotals(totals, files));
-    set.commit();
   } catch (err) {
     set.abandon();
     throw err;
@@ -109,6 +127,7 @@ export function runSimulate(scenario: string | undefined, options: SimulateComma
   const warnings = consumeWarnings();
   const written = outputs.filter((o) => o !== record).map((o) => o.path).join(', ');
   return {
+    set,
     stdout: `simulated ${totals.events} events, ${totals.particles} particles, ${totals.hitRows} hits (scenario ${config.name}, seed ${seed}) → ${written}\n` +
       `run record (seed, scenario, counts; marks the hits as simulated for reports) → ${record.path}\n`,
     stderr: warnings.map((w) => `sagitta simulate: warning: ${w.message}\n`).join(''),

@@ -122,7 +122,7 @@ export async function runVertices(hitsPath: string, options: VerticesCommandOpti
       meta: (t) => ({ input: hitsPath, length_units: t.units, field_T: checked.job.fieldT, fitter: t.method ?? checked.job.method, material: options.material ?? null, primary_m: checked.job.primaryM, counts: t.counts }),
       progress: wantProgress(options.quiet), progressLabel: 'vertices',
     });
-    files?.commit();
+    await files?.commitWhenSettled();
   } catch (err) {
     files?.abandon();
     throw err;
