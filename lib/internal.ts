@@ -17,4 +17,5 @@ export { parseMaterialFile } from './matter/materialFile.js';
 export { isElectronLike } from './matter/stoppingPower.js';
 export { PLOTLY_MIME } from './plot/figure.js';
 export { provenanceSnapshot, type ProvenanceSnapshot } from './provenance.js';
+export { tableDisplay } from './table/tableDisplay.js';
 export { metresPerUnit } from './units.js';
