@@ -21,8 +21,6 @@
  */
 import { inspect } from 'node:util';
 import { asMime, type MimeBundle, type Presentable } from './asMime.js';
-import { TableView } from './table/tableView.js';
-import { frameToColumns, isColumnTable, isRecordArray, recordsToColumns } from './table/tableSource.js';
 
 export { asMime, type MimeBundle, type Presentable };
 
@@ -95,6 +93,23 @@ export async function ask(prompt: string, options: { password?: boolean } = {}):
   }
 }
 
+/** Shows tables (result tables, arrays of plain objects, DataFrames) as a bundle, or undefined for anything else. */
+export type TableDisplay = (value: unknown) => MimeBundle | undefined;
+
+const TABLE_DISPLAY_KEY = Symbol.for('sagitta.tableDisplay');
+
+type TableDisplayHolder = { [TABLE_DISPLAY_KEY]?: TableDisplay };
+
+/**
+ * Installs how tables display (lib/table does, when it loads: the core rooms import no other
+ * room). Kept on globalThis under a registered symbol, as the sink is, so copies of the module agree.
+ */
+export function setTableDisplay(display: TableDisplay | undefined): void {
+  const holder = globalThis as TableDisplayHolder;
+  if (display === undefined) delete holder[TABLE_DISPLAY_KEY];
+  else holder[TABLE_DISPLAY_KEY] = display;
+}
+
 /** True when `value` implements the `asMime` method. */
 export function isPresentable(value: unknown): value is Presentable {
   return (
@@ -116,8 +131,8 @@ export function mimeBundleOf(value: unknown): MimeBundle {
     if (typeof bundle['text/plain'] !== 'string') bundle['text/plain'] = plainText(value);
     return bundle;
   }
-  const table = isColumnTable(value) ? value : isRecordArray(value) ? recordsToColumns(value) : frameToColumns(value);
-  if (table !== undefined) return new TableView(table)[asMime]();
+  const table = (globalThis as TableDisplayHolder)[TABLE_DISPLAY_KEY]?.(value);
+  if (table !== undefined) return table;
   return { 'text/plain': plainText(value) };
 }
 

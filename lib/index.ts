@@ -15,6 +15,7 @@ export { WARNING_CODES, consumeWarnings, formatWarning, type SagittaWarning, typ
 // ── table: result tables of our own look, with selection verbs
 export { formatMeasured } from './table/formatCell.js';
 export { TABLE_CAUTION, TableView, tableView, type TableRow, type TableViewOptions } from './table/tableView.js';
+export { trackRows } from './table/trackRows.js';
 
 // ── io: reading and writing hit and result tables
 export { columnTableToDataFrame, formatCsv, rowObjects, type Column, type ColumnTable } from './io/columnTable.js';
@@ -77,7 +78,6 @@ export { momenta, momentumAt, radiusOfCurvatureM, transverseMomentumGeV, type Mo
 export { MS_GLUCKSTERN_FACTOR, curvatureSigmaEquallySpaced, curvatureSigmaLeastSquares, glucksternCurvatureSigma, momentumResolution, multipleScatteringCurvatureSigma, type MomentumResolution, type MomentumResolutionInput } from './track/resolution.js';
 export { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns, type ResolutionBudgetOptions } from './track/resolutionBudget.js';
 export { trackHits, type OneTrackHits } from './track/trackHits.js';
-export { trackRows } from './track/trackRows.js';
 export { trackTableColumns } from './track/trackTableColumns.js';
 // stopping tracks and identification by range
 export { PID_SPECIES, chargedSpecies } from './track/chargedSpecies.js';

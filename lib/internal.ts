@@ -21,4 +21,5 @@ export { provenanceSnapshot, type ProvenanceSnapshot } from './provenance.js';
 export { checkHitOrder } from './track/hitOrderCheck.js';
 export { speciesList } from './track/measureByIdentity.js';
 export { POOR_FIT_PROBABILITY } from './track/measureTracks.js';
+export { tableDisplay } from './table/tableDisplay.js';
 export { metresPerUnit } from './units.js';

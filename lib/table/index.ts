@@ -2,3 +2,5 @@
 export { TableView, tableView, TABLE_CAUTION, type TableRow, type TableViewOptions } from './tableView.js';
 export { columnHeading, type ColumnHeading } from './columnHeading.js';
 export { formatMeasured, formatSignificant } from './formatCell.js';
+export { trackRows } from './trackRows.js';
+export { tableDisplay } from './tableDisplay.js';

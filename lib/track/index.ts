@@ -5,7 +5,6 @@ export { momenta, momentumAt, radiusOfCurvatureM, transverseMomentumGeV, type Mo
 export { MS_GLUCKSTERN_FACTOR, curvatureSigmaEquallySpaced, curvatureSigmaLeastSquares, glucksternCurvatureSigma, momentumResolution, multipleScatteringCurvatureSigma, type MomentumResolution, type MomentumResolutionInput } from './resolution.js';
 export { resolutionBudget, resolutionBudgetColumns, type ResolutionBudgetColumns, type ResolutionBudgetOptions } from './resolutionBudget.js';
 export { trackHits, type OneTrackHits } from './trackHits.js';
-export { trackRows } from './trackRows.js';
 export { trackTableColumns } from './trackTableColumns.js';
 export { pathLengthsM, meanHitSpacingM, residualRangesM } from './pathLength.js';
 export { segmentCurvatures, SEGMENT_CURVATURE_DEFAULTS, type SegmentCurvatures, type SegmentCurvatureOptions, type SegmentHits } from './segmentCurvatures.js';

@@ -1,6 +1,7 @@
 /** The display channel (lib/plot/display.ts) the session installs its sink into. */
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { asMime, escapeHtml, mimeBundleOf, present, refresh, setDisplaySink, type MimeBundle } from '../../lib/display.js';
+import '../../lib/table/tableDisplay.js'; // installs the table display, as lib/index.ts and lib/internal.ts do
 
 afterEach(() => {
   setDisplaySink(undefined);

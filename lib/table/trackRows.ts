@@ -1,6 +1,6 @@
-import { TableView, type TableViewOptions } from '../table/tableView.js';
-import type { TrackTable } from './measureTracks.js';
-import { trackTableColumns } from './trackTableColumns.js';
+import type { TrackTable } from '../track/measureTracks.js';
+import { trackTableColumns } from '../track/trackTableColumns.js';
+import { TableView, type TableViewOptions } from './tableView.js';
 
 /**
  * The fitted tracks as a table view, one row per track keyed by event and track, with the
