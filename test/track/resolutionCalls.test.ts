@@ -36,6 +36,10 @@ describe('curvatureSigmaLeastSquares against an independent inversion', () => {
     expect(() => curvatureSigmaLeastSquares(Float64Array.of(0, 1, 2), Float64Array.of(1e-4, 0, 1e-4))).toThrow(/sigmaM = 0.*positive point errors in metres/);
     expect(() => curvatureSigmaLeastSquares(Float64Array.of(0, 1, 2), -1e-4)).toThrow(/sigmaM = -0.0001/);
   });
+  it('points at only two distinct positions cannot fix a parabola: NaN, not Infinity', () => {
+    // Centred sums are exact here and the normal matrix is singular (det = 0, cofactor 16).
+    expect(curvatureSigmaLeastSquares(Float64Array.of(-1, -1, 1, 1), 1)).toBeNaN();
+  });
 });
 
 describe('equally spaced forms: bad calls and the Gluckstern warning', () => {
@@ -67,6 +71,7 @@ describe('multipleScatteringCurvatureSigma and momentumResolution: scaling and b
     for (const bad of [{ momentumGeV: 0 }, { beta: 0 }, { beta: 1.01 }, { lengthM: 0 }, { radiationLengthM: 0 }]) {
       expect(() => multipleScatteringCurvatureSigma({ ...base, ...bad }), JSON.stringify(bad)).toThrow(/momentumGeV\/beta\/lengthM\/radiationLengthM = .*positive values with β ≤ 1/);
     }
+    expect(() => multipleScatteringCurvatureSigma({ ...base, momentumGeV: 0 })).toThrow('momentumGeV/beta/lengthM/radiationLengthM = [0,1,1,100] is not valid');
     expect(multipleScatteringCurvatureSigma({ ...base, beta: 1 })).toBeGreaterThan(0);
   });
   it('momentumResolution uses the nPoints given, divides by |z|, and refuses a zero or non-finite field and p ≤ 0', () => {
