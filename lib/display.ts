@@ -15,7 +15,7 @@
  *
  * No DOM and no kernel imports here (lib never imports kernel). The sink lives on globalThis
  * under a registered symbol, so two copies of this module (e.g. one loaded by the kernel, one by a
- * cell importing "sagitta") still share it.
+ * cell importing "sagitta-tracks") still share it.
  */
 import { inspect } from 'node:util';
 

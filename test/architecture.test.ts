@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { join, relative } from 'node:path';
+import { dirname, join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 /** The house rules of DEVELOPERS.md, checked on the source text. */
@@ -14,6 +14,7 @@ function tsFiles(dir: string): string[] {
 }
 
 const libFiles = tsFiles(join(root, 'lib')).map((p) => ({ path: relative(root, p), text: readFileSync(p, 'utf8') }));
+const kernelFiles = tsFiles(join(root, 'kernel')).map((p) => ({ path: relative(root, p), text: readFileSync(p, 'utf8') }));
 
 describe('architecture', () => {
   it('lib/ never imports kernel/', () => {
@@ -29,7 +30,7 @@ describe('architecture', () => {
   });
   it('lib/index.ts only re-exports', () => {
     const lines = readFileSync(join(root, 'lib/index.ts'), 'utf8').split('\n').filter((l) => l.trim() && !l.trim().startsWith('//'));
-    expect(lines.filter((l) => !/^export (\*|\{[^}]*\}|type \{[^}]*\}) from '/.test(l.trim()))).toEqual([]);
+    expect(lines.filter((l) => !/^export (\{[^}]*\}|type \{[^}]*\}) from '/.test(l.trim()))).toEqual([]);
   });
   it('lib/simulate imports from lib/vertex only its dependency-free kinematics leaves', () => {
     const allowed = new Set(['twoBodyMomentum', 'fourVector', 'lorentzBoost']);
@@ -51,5 +52,30 @@ describe('architecture', () => {
   it('nothing in the project reads the shared planning folder at run time', () => {
     const all = [...libFiles, ...tsFiles(join(root, 'kernel')).map((p) => ({ path: relative(root, p), text: readFileSync(p, 'utf8') }))];
     expect(all.filter((f) => f.text.includes('../shared')).map((f) => f.path)).toEqual([]);
+  });
+  it('index files name what they export: no export *', () => {
+    const indexes = [...libFiles, ...kernelFiles].filter((f) => f.path.endsWith('index.ts') || f.path === 'lib/internal.ts');
+    expect(indexes.filter((f) => /^export \*/m.test(f.text)).map((f) => f.path)).toEqual([]);
+  });
+  it('the kernel reaches the library only through lib/index.ts and lib/internal.ts', () => {
+    const offenders = kernelFiles.flatMap((f) =>
+      [...f.text.matchAll(/from\s+['"]((?:\.\.\/)+lib\/[^'"]+)['"]/g)].map((m) => m[1]).filter((spec) => !/\/lib\/(index|internal)\.js$/.test(spec)).map((spec) => `${f.path} → ${spec}`));
+    expect(offenders).toEqual([]);
+  });
+  it('rooms import each other downhill, in the order the data flows (io → fit → track/matter → analysis → plot)', () => {
+    // Which rooms each room may import (ARCHITECTURE: the rooms table). core = the files at lib/'s top.
+    const allowed: Record<string, string[]> = {
+      core: [], io: ['core'], matter: ['core'], analysis: ['core'], fit: ['core', 'matter'], find: ['core', 'io'],
+      track: ['core', 'fit', 'io', 'matter'], vertex: ['core', 'fit', 'io', 'matter', 'track', 'analysis'], beam: ['core', 'analysis'],
+      simulate: ['core', 'io', 'matter', 'vertex'], plot: ['core', 'analysis', 'io', 'track'],
+      fitlab: ['core', 'analysis', 'find', 'fit', 'io', 'matter', 'plot', 'simulate', 'track'],
+    };
+    const roomOf = (path: string) => (path.split('/').length > 2 ? path.split('/')[1] : 'core');
+    const offenders = libFiles.filter((f) => f.path !== 'lib/index.ts' && f.path !== 'lib/internal.ts').flatMap((f) =>
+      [...f.text.matchAll(/from\s+['"](\.[^'"]+)['"]/g)].map((m) => join(dirname(f.path), m[1])).filter((target) => {
+        const from = roomOf(f.path), to = roomOf(target);
+        return from !== to && !(allowed[from] ?? []).includes(to);
+      }).map((target) => `${f.path} → ${target}`));
+    expect(offenders).toEqual([]);
   });
 });

@@ -1,5 +1,4 @@
-import type { ColumnTable } from '../../lib/io/columnTable.js';
-import type { HitTable } from '../../lib/io/hitTable.js';
+import { type ColumnTable, type HitTable } from '../../lib/index.js';
 
 /**
  * A job the batch path runs on every chunk of whole events of a hit file — in the main thread

@@ -1,9 +1,6 @@
 import { createReadStream } from 'node:fs';
-import { msg } from '../../lib/errors.js';
-import type { HeaderField } from '../../lib/io/hitColumns.js';
-import { parseHeader } from '../../lib/io/hitColumns.js';
-import type { HitTable } from '../../lib/io/hitTable.js';
-import { hitTableFromColumns, type ColumnValues } from '../../lib/io/hitTableFromColumns.js';
+import { type HitTable } from '../../lib/index.js';
+import { type ColumnValues, type HeaderField, hitTableFromColumns, msg, parseHeader } from '../../lib/internal.js';
 import type { TableChunk } from './processChunk.js';
 
 /** Rows gathered before a table chunk is cut (at an event boundary). */

@@ -1,11 +1,5 @@
-import type { ColumnTable, Column } from '../../lib/io/columnTable.js';
-import type { HitTable } from '../../lib/io/hitTable.js';
-import { idColumnText } from '../../lib/io/hitIds.js';
-import { material as lookupMaterial } from '../../lib/matter/materials.js';
-import { particle as lookupParticle } from '../../lib/particles.js';
-import { measureTracks } from '../../lib/track/measureTracks.js';
-import { resolutionBudget, resolutionBudgetColumns } from '../../lib/track/resolutionBudget.js';
-import { trackTableColumns } from '../../lib/track/trackTableColumns.js';
+import { type Column, type ColumnTable, type HitTable, material as lookupMaterial, measureTracks, particle as lookupParticle, resolutionBudget, resolutionBudgetColumns, trackTableColumns } from '../../lib/index.js';
+import { idColumnText } from '../../lib/internal.js';
 import type { BatchJob, JobOutput } from './batchJob.js';
 
 /** What `sagitta fit` asks of every chunk; plain data, so it can be sent to a worker. */

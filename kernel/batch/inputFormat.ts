@@ -1,4 +1,4 @@
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 
 /** The hit-file formats the batch path reads, by file extension. */
 export type InputFormat = 'csv' | 'jsonl' | 'parquet' | 'arrow';

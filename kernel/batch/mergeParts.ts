@@ -1,4 +1,4 @@
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import { LineReader } from './lineReader.js';
 import { POSITION_COLUMN } from './processChunk.js';
 import { ResultSink, type ByteTarget } from './resultSink.js';

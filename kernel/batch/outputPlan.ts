@@ -1,6 +1,6 @@
 import { accessSync, constants, realpathSync, statSync, type Stats } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 
 /** A path a command reads or writes, with the flag (or argument name) it came from. */
 export interface NamedPath {

@@ -1,6 +1,6 @@
 import { closeSync, fsyncSync, ftruncateSync, openSync, renameSync, rmSync, writeSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import type { PlannedOutput } from './outputPlan.js';
 import { registerTemp, unregisterTemp } from './tempFiles.js';
 

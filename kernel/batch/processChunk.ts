@@ -1,11 +1,5 @@
-import { SagittaError } from '../../lib/errors.js';
-import { formatCsvBytes, rowObjects, type Column, type ColumnTable } from '../../lib/io/columnTable.js';
-import type { HitTable } from '../../lib/io/hitTable.js';
-import { idText } from '../../lib/io/hitIds.js';
-import { gatherRows } from '../../lib/io/indexTracks.js';
-import { parseCsvRows } from '../../lib/io/parseHitsCsv.js';
-import { parseJsonlRows } from '../../lib/io/parseHitsJsonl.js';
-import { consumeWarnings, type SagittaWarning } from '../../lib/warnings.js';
+import { type Column, type ColumnTable, consumeWarnings, type HitTable, rowObjects, SagittaError, type SagittaWarning } from '../../lib/index.js';
+import { formatCsvBytes, gatherRows, idText, parseCsvRows, parseJsonlRows } from '../../lib/internal.js';
 import type { BatchJob } from './batchJob.js';
 import { shardOfEvent, type Shard } from './shard.js';
 import type { TextChunk } from './textChunks.js';

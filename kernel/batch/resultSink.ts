@@ -1,5 +1,5 @@
 import { writeSync } from 'node:fs';
-import type { Column, ColumnTable } from '../../lib/io/columnTable.js';
+import { type Column, type ColumnTable } from '../../lib/index.js';
 import type { ResultFormat } from './processChunk.js';
 
 /** Where a sink's bytes go: a file of an OutputSet, or standard output. */

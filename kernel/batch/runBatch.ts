@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { closeSync, openSync, readFileSync, statSync } from 'node:fs';
-import { msg } from '../../lib/errors.js';
-import type { SagittaWarning } from '../../lib/warnings.js';
+import { type SagittaWarning } from '../../lib/index.js';
+import { msg } from '../../lib/internal.js';
 import { loadBatchJob } from './batchJobs.js';
 import { columnarChunks } from './columnarChunks.js';
 import { inputFormatOf, type InputFormat } from './inputFormat.js';

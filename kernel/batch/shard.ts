@@ -1,5 +1,4 @@
-import { msg } from '../../lib/errors.js';
-import { idText, type IdLabels } from '../../lib/io/hitIds.js';
+import { type IdLabels, idText, msg } from '../../lib/internal.js';
 
 /** The K-th of N slices of an input (1 ≤ K ≤ N), as given by `--shard K/N`. */
 export interface Shard {

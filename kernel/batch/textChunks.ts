@@ -1,8 +1,5 @@
 import { closeSync, openSync, readSync } from 'node:fs';
-import { msg } from '../../lib/errors.js';
-import type { HeaderField } from '../../lib/io/hitColumns.js';
-import { readCsvLayout, type CsvLayout } from '../../lib/io/csvLayout.js';
-import { jsonlFields } from '../../lib/io/parseHitsJsonl.js';
+import { type CsvLayout, type HeaderField, jsonlFields, msg, readCsvLayout } from '../../lib/internal.js';
 
 /** A piece of a CSV or JSON Lines hit file holding whole events, ready to be parsed anywhere. */
 export interface TextChunk {

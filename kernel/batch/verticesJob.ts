@@ -1,11 +1,5 @@
-import type { Column, ColumnTable } from '../../lib/io/columnTable.js';
-import type { HitTable } from '../../lib/io/hitTable.js';
-import { idColumnText } from '../../lib/io/hitIds.js';
-import { chamberMedium } from '../../lib/matter/chamberMedium.js';
-import { measureTracks } from '../../lib/track/measureTracks.js';
-import { findV0s } from '../../lib/vertex/findV0s.js';
-import { v0CandidateColumns } from '../../lib/vertex/v0CandidateColumns.js';
-import { vertexTracks } from '../../lib/vertex/vertexTracks.js';
+import { chamberMedium, type Column, type ColumnTable, findV0s, type HitTable, measureTracks, v0CandidateColumns, vertexTracks } from '../../lib/index.js';
+import { idColumnText } from '../../lib/internal.js';
 import type { BatchJob, JobOutput } from './batchJob.js';
 
 /** What `sagitta vertices` asks of every chunk; plain data, so it can be sent to a worker. */

@@ -1,7 +1,8 @@
 import { Worker } from 'node:worker_threads';
+import { workerUrl } from '../packageMode.js';
 import { errorFromData, type Chunk, type ChunkOutcome, type ChunkSettings, type ErrorData } from './processChunk.js';
 
-const ENTRY = new URL('./batchWorkerEntry.js', import.meta.url);
+const ENTRY = workerUrl('kernel/batch/batchWorker');
 
 type Reply = { id: number; outcome?: ChunkOutcome; error?: ErrorData; ready?: boolean };
 

@@ -1,18 +1,14 @@
 #!/usr/bin/env node
-// The kernel a notebook front end starts (kernel.json's argv): `sagitta-kernel <connection-file>`.
-// Like bin/sagitta.js it registers tsx's loader, so the TypeScript sources run without a build.
-import { register } from 'tsx/esm/api';
-
+// The kernel launcher (kernel.json's argv): in a checkout it registers tsx's loader and runs
+// kernel/entry/sagitta-kernel.ts from source; in an installed package it runs the build.
 // The front end that started us, read before anything slow runs (see runKernel).
-const parentPid = process.ppid;
-
-const connectionFile = process.argv[2];
-if (!connectionFile) {
-  process.stderr.write('usage: sagitta-kernel <connection-file>\n');
-  process.exit(2);
+globalThis.sagittaParentPid = process.ppid;
+const { existsSync } = await import('node:fs');
+const source = new URL('../entry/sagitta-kernel.ts', import.meta.url);
+if (existsSync(source)) {
+  const { register } = await import('tsx/esm/api');
+  register();
+  await import(source.href);
+} else {
+  await import(new URL('../../dist/kernel/entry/sagitta-kernel.js', import.meta.url).href);
 }
-register();
-const { runKernel } = await import('../protocol/main.ts');
-const code = await runKernel(connectionFile, parentPid);
-// Cells may leave timers or handles behind; a shut-down kernel must not linger because of them.
-process.exit(code);

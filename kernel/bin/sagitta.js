@@ -1,8 +1,15 @@
 #!/usr/bin/env node
-// Entry point of the `sagitta` command. Sagitta ships TypeScript sources and runs them through
-// tsx's loader, so there is no build step between a clone and a working command.
-import { register } from 'tsx/esm/api';
+// The `sagitta` command (package.json "bin"). In a checkout it registers tsx's loader and runs the
+// TypeScript sources, so there is no build step between a clone and a working command; in an
+// installed package, which ships no sources, it runs the build (dist/kernel/entry/sagitta.js) on
+// plain Node.
+import { existsSync } from 'node:fs';
 
-register();
-const { main } = await import('../cli/main.ts');
-process.exitCode = await main(process.argv);
+const source = new URL('../entry/sagitta.ts', import.meta.url);
+if (existsSync(source)) {
+  const { register } = await import('tsx/esm/api');
+  register();
+  await import(source.href);
+} else {
+  await import(new URL('../../dist/kernel/entry/sagitta.js', import.meta.url).href);
+}

@@ -1,4 +1,4 @@
-import type { HitTable } from '../../lib/io/hitTable.js';
+import { type HitTable } from '../../lib/index.js';
 
 const LF = 10, CR = 13, QUOTE = 34;
 

@@ -1,5 +1,5 @@
 import { Command, CommanderError } from 'commander';
-import { SagittaError } from '../../lib/errors.js';
+import { SagittaError } from '../../lib/index.js';
 import { sagittaVersion } from '../version.js';
 import { registerCommands } from './commands/index.js';
 import { EXIT, UsageError } from './usage.js';

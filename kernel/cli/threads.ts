@@ -1,4 +1,4 @@
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 
 /** Reads --threads: a whole number from 1 to 256. */
 export function parseThreads(text: string): number {

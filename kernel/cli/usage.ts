@@ -1,4 +1,4 @@
-import { SagittaError } from '../../lib/errors.js';
+import { SagittaError } from '../../lib/index.js';
 
 /**
  * The command line's one convention for exit codes (kernel/cli/main.ts):

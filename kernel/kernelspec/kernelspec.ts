@@ -5,7 +5,8 @@
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
+import { FROM_SOURCE, moduleUrl, packageRoot } from '../packageMode.js';
 import { sagittaVersion } from '../version.js';
 import { logoPng, logoSvg } from './logo.js';
 import { currentPlatformEnv, kernelsDirFor, kernelSearchPath, type PlatformEnv } from './paths.js';
@@ -14,7 +15,7 @@ export const DEFAULT_KERNEL_ID = 'sagitta';
 export const DEFAULT_DISPLAY_NAME = 'Sagitta (TypeScript)';
 
 /** The JS file kernel.json starts: it registers the TypeScript loader and serves the connection file. */
-export const kernelEntry: string = fileURLToPath(new URL('../bin/sagitta-kernel.js', import.meta.url));
+export const kernelEntry: string = FROM_SOURCE ? path.join(packageRoot, 'kernel', 'bin', 'sagitta-kernel.js') : fileURLToPath(moduleUrl('kernel/entry/sagitta-kernel'));
 
 export interface KernelJson {
   argv: string[];

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import type { Notebook } from './types.js';
 import { validateNotebook } from './validate.js';
 

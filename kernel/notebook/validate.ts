@@ -1,4 +1,4 @@
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import type { Cell, Notebook, Output } from './types.js';
 
 /**

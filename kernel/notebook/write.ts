@@ -1,4 +1,4 @@
-import { writeFileAtomic } from '../../lib/io/writeFileAtomic.js';
+import { writeFileAtomic } from '../../lib/internal.js';
 import type { Notebook } from './types.js';
 
 /** Notebook JSON as notebook editors write it: one-space indent, keys in insertion order, final newline. */

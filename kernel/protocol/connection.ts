@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 
 /** The connection file a front end writes before starting a kernel (messaging spec, "Connection files"). */
 export interface ConnectionInfo {

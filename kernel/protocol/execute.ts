@@ -1,4 +1,4 @@
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import type { CellHooks, Session } from '../session/types.js';
 import type { ExecutionHistory } from './history.js';
 import type { Header, Message } from './wire.js';

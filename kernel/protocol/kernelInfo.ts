@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { fileURLToPath } from 'node:url';
+import { requireFromPackage } from '../packageMode.js';
 import { sagittaVersion } from '../version.js';
 import { PROTOCOL_VERSION } from './wire.js';
 
@@ -9,8 +9,7 @@ import { PROTOCOL_VERSION } from './wire.js';
  * package.json so that answering kernel_info does not load the compiler.
  */
 export function cellCompilerVersion(): string {
-  const fromRoot = createRequire(fileURLToPath(new URL('../../package.json', import.meta.url)));
-  const fromTslab = createRequire(fromRoot.resolve('tslab/package.json'));
+  const fromTslab = createRequire(requireFromPackage.resolve('tslab/package.json'));
   const file = fromTslab.resolve('@tslab/typescript-for-tslab/package.json');
   return (JSON.parse(readFileSync(file, 'utf8')) as { version: string }).version;
 }

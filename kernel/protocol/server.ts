@@ -11,7 +11,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import { createPhaseFlag, startTicking } from '../session/phase.js';
 import type { Session } from '../session/types.js';
 import type { ConnectionInfo } from './connection.js';

@@ -1,6 +1,7 @@
+import { workerUrl } from '../packageMode.js';
 import { Worker } from 'node:worker_threads';
 import * as zmq from 'zeromq';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import { endpoint, type ConnectionInfo } from './connection.js';
 import type { ControlThreadData, FromControlThread, ToControlThread } from './controlThread.js';
 import { serveHeartbeat } from './heartbeat.js';
@@ -102,7 +103,7 @@ export class KernelSockets {
 
   private startControlThread(): Promise<void> {
     const workerData: ControlThreadData = { connection: this.o.connection, sessionId: this.o.sessionId, kernelId: this.o.kernelId, phase: this.o.phase };
-    const worker = new Worker(new URL('./controlThreadEntry.js', import.meta.url), { workerData });
+    const worker = new Worker(workerUrl('kernel/protocol/controlThread'), { workerData });
     this.worker = worker;
     return new Promise<void>((resolve, reject) => {
       worker.on('message', (m: FromControlThread) => {

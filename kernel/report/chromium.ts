@@ -2,7 +2,7 @@ import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { BrowserContext } from 'playwright-core';
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 
 /** The system Chromium (Debian package `chromium`); override with SAGITTA_CHROMIUM. Never downloaded. */
 export function chromiumPath(): string {

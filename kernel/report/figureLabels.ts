@@ -1,4 +1,4 @@
-import { escapeHtml } from '../../lib/display.js';
+import { escapeHtml } from '../../lib/internal.js';
 
 /**
  * Axis titles, figure titles and trace names with TeX-style sub- and superscripts rendered, as

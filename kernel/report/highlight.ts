@@ -1,4 +1,4 @@
-import { escapeHtml } from '../../lib/display.js';
+import { escapeHtml } from '../../lib/internal.js';
 
 /**
  * Light TypeScript colouring for the report's code panels: comments, strings, numbers and

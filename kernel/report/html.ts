@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { escapeHtml } from '../../lib/display.js';
+import { escapeHtml } from '../../lib/internal.js';
 import type { Cell, SagittaCellMeta } from '../notebook/types.js';
 import { joinSource } from '../notebook/source.js';
 import type { RunRecord } from '../runner/runRecord.js';

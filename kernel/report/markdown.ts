@@ -2,7 +2,7 @@ import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
 import { extname, resolve, sep } from 'node:path';
 import katex from 'katex';
 import MarkdownIt, { type StateBlock, type StateInline } from 'markdown-it';
-import { escapeHtml } from '../../lib/display.js';
+import { escapeHtml } from '../../lib/internal.js';
 import { sanitize } from './sanitize.js';
 
 /**

@@ -1,7 +1,6 @@
 import type { Output } from '../notebook/types.js';
 import { joinSource } from '../notebook/source.js';
-import { escapeHtml } from '../../lib/display.js';
-import { PLOTLY_MIME } from '../../lib/plot/figure.js';
+import { escapeHtml, PLOTLY_MIME } from '../../lib/internal.js';
 import { stripAnsi } from './escape.js';
 import { renderMarkdown, renderTex } from './markdown.js';
 import { sanitize } from './sanitize.js';

@@ -1,5 +1,5 @@
 import { pathToFileURL } from 'node:url';
-import { writeFileAtomic } from '../../lib/io/writeFileAtomic.js';
+import { writeFileAtomic } from '../../lib/internal.js';
 import { openChromium } from './chromium.js';
 
 /**

@@ -1,4 +1,4 @@
-import { escapeHtml } from '../../lib/display.js';
+import { escapeHtml } from '../../lib/internal.js';
 import type { Cell, SagittaCellMeta } from '../notebook/types.js';
 import type { RunRecord } from '../runner/runRecord.js';
 import { formatBytes, formatMs } from './formatNumbers.js';

@@ -1,4 +1,4 @@
-import type { MimeBundle } from '../../lib/display.js';
+import { type MimeBundle } from '../../lib/index.js';
 import { joinSource } from '../notebook/source.js';
 import type { CodeCell, DisplayDataOutput } from '../notebook/types.js';
 import type { ChildChannel } from './childChannel.js';

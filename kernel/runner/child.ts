@@ -6,9 +6,7 @@
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import { msg } from '../../lib/errors.js';
-import { knobSnapshot, supplyKnobs } from '../../lib/knob.js';
-import { provenanceSnapshot } from '../../lib/provenance.js';
+import { knobSnapshot, msg, provenanceSnapshot, supplyKnobs } from '../../lib/internal.js';
 import { tslabTs } from '../session/compilerShim.js';
 import { createSession } from '../session/index.js';
 import type { Session } from '../session/types.js';
@@ -58,7 +56,7 @@ async function handle(m: ToChild): Promise<void> {
     session = createSession({ workDir });
     // Compile and run an empty cell so the compiler is built before the first timed cell. (The
     // session's warmUp() is not called: it builds completion lists for the whole library, which
-    // measured ~4 s here against ~0.5 s for a first cell that imports "sagitta".)
+    // measured ~4 s here against ~0.5 s for a first cell that imports "sagitta-tracks".)
     await session.execute('', { stream() {}, display() {}, clear() {}, ask: noInput });
     send({ kind: 'ready', typescript: tslabTs.version, startMs: performance.now() - t0 });
   } else if (m.kind === 'cell') {

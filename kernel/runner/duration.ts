@@ -1,4 +1,4 @@
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 
 const UNITS: Readonly<Record<string, number>> = Object.freeze({ ms: 1, s: 1000, m: 60_000, min: 60_000, h: 3_600_000 });
 

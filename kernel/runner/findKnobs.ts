@@ -1,5 +1,5 @@
-import { msg, type SagittaError } from '../../lib/errors.js';
-import { knobKind, readKnobValue } from '../../lib/knob.js';
+import { type SagittaError } from '../../lib/index.js';
+import { knobKind, msg, readKnobValue } from '../../lib/internal.js';
 import { tslabTs as ts } from '../session/compilerShim.js';
 
 /** A `knob(name, default)` call found in a notebook's code. */

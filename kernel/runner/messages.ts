@@ -1,6 +1,5 @@
-import type { MimeBundle } from '../../lib/display.js';
-import type { KnobRecord } from '../../lib/knob.js';
-import type { ProvenanceSnapshot } from '../../lib/provenance.js';
+import { type MimeBundle } from '../../lib/index.js';
+import { type KnobRecord, type ProvenanceSnapshot } from '../../lib/internal.js';
 import type { CellOutcome } from '../session/types.js';
 import type { ModuleRecord } from './runRecord.js';
 

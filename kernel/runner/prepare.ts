@@ -1,4 +1,4 @@
-import { msg } from '../../lib/errors.js';
+import { msg } from '../../lib/internal.js';
 import { readNotebook, type LoadedNotebook } from '../notebook/read.js';
 import { joinSource } from '../notebook/source.js';
 import type { Notebook } from '../notebook/types.js';

@@ -1,9 +1,9 @@
+import { childExecArgv, moduleUrl } from '../packageMode.js';
 import { fork } from 'node:child_process';
 import path, { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { KnobRecord } from '../../lib/knob.js';
-import { SagittaError } from '../../lib/errors.js';
-import type { ProvenanceSnapshot } from '../../lib/provenance.js';
+import { SagittaError } from '../../lib/index.js';
+import { type KnobRecord, type ProvenanceSnapshot } from '../../lib/internal.js';
 import type { DisplayDataOutput, Notebook, SagittaCellMeta } from '../notebook/types.js';
 import { runCell } from './cellRecorder.js';
 import { pushStream } from './cellRecorder.js';
@@ -49,9 +49,7 @@ export interface NotebookRun {
 }
 
 const DEFAULTS = Object.freeze({ cellTimeoutMs: 120_000, keepGoing: false, startTimeoutMs: 120_000 });
-const CHILD = fileURLToPath(new URL('./child.ts', import.meta.url));
-/** tsx's loader, resolved from this package (the child's working folder may be anywhere). */
-const TSX_LOADER = import.meta.resolve('tsx');
+const CHILD = fileURLToPath(moduleUrl('kernel/runner/child'));
 /** Signals to `sagitta run` itself that stop the run (the notebook process is stopped, the record still written). */
 const STOP_SIGNALS: readonly NodeJS.Signals[] = ['SIGINT', 'SIGTERM', 'SIGHUP'];
 
@@ -71,7 +69,7 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
   const startedAt = new Date();
   const t0 = performance.now();
   const library = libraryRecord();
-  const child = fork(CHILD, [], { cwd: workDir, execArgv: ['--import', TSX_LOADER], stdio: ['ignore', 'pipe', 'pipe', 'ipc'], env: { ...process.env, FORCE_COLOR: '0' } });
+  const child = fork(CHILD, [], { cwd: workDir, execArgv: childExecArgv(), stdio: ['ignore', 'pipe', 'pipe', 'ipc'], env: { ...process.env, FORCE_COLOR: '0' } });
   const channel = new ChildChannel(child);
   let stoppedBy: NodeJS.Signals | undefined;
   const onSignal = (signal: NodeJS.Signals) => {

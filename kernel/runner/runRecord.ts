@@ -1,5 +1,5 @@
-import type { KnobRecord } from '../../lib/knob.js';
-import type { SeedRecord } from '../../lib/provenance.js';
+import { type SeedRecord } from '../../lib/index.js';
+import { type KnobRecord } from '../../lib/internal.js';
 
 /** What the run used of the library itself: enough to rebuild the same code. */
 export interface LibraryRecord {

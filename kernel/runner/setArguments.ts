@@ -1,5 +1,4 @@
-import { msg } from '../../lib/errors.js';
-import { checkKnobName } from '../../lib/knob.js';
+import { checkKnobName, msg } from '../../lib/internal.js';
 
 /**
  * Reads `--set name=value` arguments into knob values, as text: each is checked against the

@@ -1,6 +1,6 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import type { InputRecord } from '../../lib/provenance.js';
+import { type InputRecord } from '../../lib/index.js';
 import type { InputFile } from './runRecord.js';
 
 interface RunRecordFile {

@@ -16,25 +16,36 @@
  * Must run before tslab/dist/converter is first loaded (moduleRoot.ts imports this module first).
  */
 import { createRequire } from 'node:module';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { requireFromPackage } from '../packageMode.js';
 import { ESM_MAP_MARK } from './cellSourceMap.js';
 
 /** tslab's bundled TypeScript. */
 export type TslabTs = typeof import('@tslab/typescript-for-tslab');
 
-const packageRoot = path.resolve(fileURLToPath(new URL('../../', import.meta.url)));
-const requireHere = createRequire(path.join(packageRoot, 'package.json'));
-const requireFromTslab = createRequire(requireHere.resolve('tslab/package.json'));
+const requireFromTslab = createRequire(requireFromPackage.resolve('tslab/package.json'));
 export const tslabTs: TslabTs = requireFromTslab('@tslab/typescript-for-tslab') as TslabTs;
 
 /** The file name tslab gives the ESM output it turns into CommonJS. */
 const CONVERTED_NAME = 'custom.js';
 const INLINE_MAP = /\n?\/\/# sourceMappingURL=data:application\/json;base64,([A-Za-z0-9+/=]+)\s*$/;
 
+const cellFolders = new Set<string>();
+
+/**
+ * Folders cells run in. A notebook may itself sit inside a node_modules folder (the installed
+ * package's example notebooks): below such a folder only a further node_modules holds packages.
+ */
+export function addCellFolder(folder: string): void {
+  cellFolders.add(folder.replace(/\\/g, '/').replace(/\/$/, ''));
+}
+
+const IN_NODE_MODULES = /(^|\/)node_modules\//;
+
 /** True for compiler paths inside a node_modules folder (the library and its dependencies). */
 function isPackageFile(fileName: string): boolean {
-  return /[\\/]node_modules[\\/]/.test(fileName);
+  const f = fileName.replace(/\\/g, '/');
+  for (const folder of cellFolders) if (f.startsWith(`${folder}/`)) return IN_NODE_MODULES.test(f.slice(folder.length + 1));
+  return IN_NODE_MODULES.test(f);
 }
 
 type Builder = { getAllDependencies(sourceFile: unknown): readonly string[] };

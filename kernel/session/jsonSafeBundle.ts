@@ -1,4 +1,4 @@
-import type { MimeBundle } from '../../lib/display.js';
+import { type MimeBundle } from '../../lib/index.js';
 
 /**
  * A MIME bundle as JSON carries it — the one rule for outputs, applied by the session so that a

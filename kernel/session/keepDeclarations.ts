@@ -9,7 +9,7 @@ export interface KeepOptions {
 
 /**
  * The declarations text the compiler carries from cell to cell ("declare const fieldT: number;",
- * "import { readHits } from 'sagitta';", …) with some value declarations left out. Used after a
+ * "import { readHits } from 'sagitta-tracks';", …) with some value declarations left out. Used after a
  * cell stopped part-way: what it declared before the throw stays declared for later cells, what
  * it never reached is dropped (and an earlier cell's declaration of the same name comes back).
  * @example keepDeclarations('declare const a: number;\ndeclare let b: string;', { keep: (n) => n === 'a', types: true }) // 'declare const a: number;\n'

@@ -20,14 +20,16 @@ import { existsSync } from 'node:fs';
 import Module, { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import { tslabTs } from './compilerShim.js';
+import { FROM_SOURCE, libraryEntry, packageRoot, requireFromPackage } from '../packageMode.js';
+import { addCellFolder, tslabTs } from './compilerShim.js';
 
-export const PACKAGE_NAME = 'sagitta';
+/** The name notebooks import the library by (package.json "name"). */
+export const PACKAGE_NAME = 'sagitta-tracks';
 
-/** This package's root folder (where package.json is). */
-export const packageRoot: string = path.resolve(fileURLToPath(new URL('../../', import.meta.url)));
+export { packageRoot };
 
-const requireHere = createRequire(path.join(packageRoot, 'package.json'));
+const requireHere = requireFromPackage;
+const OWN_MANIFEST = path.join(packageRoot, 'package.json').replace(/\\/g, '/');
 
 export { tslabTs, type TslabTs } from './compilerShim.js';
 
@@ -58,7 +60,11 @@ function patchCompilerSys(): void {
   const directoryExists = sys.directoryExists.bind(sys);
   const getDirectories = sys.getDirectories.bind(sys);
   const readDirectory = sys.readDirectory.bind(sys);
-  sys.readFile = (p, encoding) => readFile(forwardPath(p), encoding);
+  sys.readFile = (p, encoding) => {
+    const real = forwardPath(p);
+    const text = readFile(real, encoding);
+    return FROM_SOURCE && text !== undefined && real === OWN_MANIFEST && real !== p.replace(/\\/g, '/') ? sourceManifest(text) : text;
+  };
   sys.fileExists = (p) => fileExists(forwardPath(p));
   sys.directoryExists = (p) => directoryExists(forwardPath(p));
   sys.getDirectories = (p) => getDirectories(forwardPath(p));
@@ -73,9 +79,19 @@ function patchCompilerSys(): void {
   }
 }
 
-/** Makes `<workDir>/node_modules/sagitta` visible to tslab's compiler. */
+/**
+ * In a checkout the build may not exist: the compiler is shown a manifest whose types are the
+ * library's sources (the installed package's manifest names dist/lib/index.d.ts).
+ */
+function sourceManifest(text: string): string {
+  const manifest = JSON.parse(text) as Record<string, unknown>;
+  return JSON.stringify({ ...manifest, types: './lib/index.ts', typings: undefined });
+}
+
+/** Makes `<workDir>/node_modules/sagitta-tracks` visible to tslab's compiler. */
 export function addCompilerRoot(workDir: string): void {
   patchCompilerSys();
+  addCellFolder(path.resolve(workDir));
   virtualRoots.add(path.join(path.resolve(workDir), 'node_modules').replace(/\\/g, '/'));
 }
 
@@ -89,7 +105,7 @@ let libraryLoading: Promise<void> | undefined;
 
 /** Loads the library once (through the ESM loader, i.e. tsx in the kernel); never rejects. */
 export function loadLibrary(): Promise<void> {
-  libraryLoading ??= import(pathToFileURL(path.join(packageRoot, 'lib', 'index.ts')).href).then(
+  libraryLoading ??= import(libraryEntry.href).then(
     (ns: Namespace) => {
       library = ns;
     },

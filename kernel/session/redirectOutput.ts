@@ -1,6 +1,6 @@
 import { Console } from 'node:console';
 import { Writable } from 'node:stream';
-import { setCellChannel, setDisplaySink } from '../../lib/display.js';
+import { setCellChannel, setDisplaySink } from '../../lib/internal.js';
 import { jsonSafeBundle } from './jsonSafeBundle.js';
 import type { CellHooks } from './types.js';
 

@@ -11,7 +11,7 @@
  * - the value of the last expression comes back as a MIME bundle (`mimeBundleOf`), not printed;
  * - errors come back as { ename, evalue, traceback } with stack frames at the cell's line and
  *   column, type errors as `CompileError`; a cell's warnings are drained and shown under it;
- * - "sagitta" is importable from a notebook in any folder (see moduleRoot.ts);
+ * - "sagitta-tracks" is importable from a notebook in any folder (see moduleRoot.ts);
  * - cursor positions are Unicode code points, as the messaging protocol counts them.
  *
  * Interrupts: `interrupt()` stops a cell that is waiting (an `await`); a cell that blocks the
@@ -23,10 +23,8 @@
  */
 import { createRequire } from 'node:module';
 import path from 'node:path';
-import type { MimeBundle } from '../../lib/display.js';
-import { mimeBundleOf } from '../../lib/display.js';
-import { consumeWarnings, formatWarning } from '../../lib/warnings.js';
-import { msg } from '../../lib/errors.js';
+import { consumeWarnings, formatWarning, type MimeBundle } from '../../lib/index.js';
+import { mimeBundleOf, msg } from '../../lib/internal.js';
 import { createCellExecutor } from './cellExecutor.js';
 import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError.js';
 import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot.js';
@@ -140,7 +138,7 @@ export function createSession(options: SessionOptions): Session {
   async function warmUp(): Promise<void> {
     await libraryReady;
     if (closed || running) return;
-    const probe = 'import * as sagitta from "sagitta";\nsagitta.';
+    const probe = 'import * as sagitta from "sagitta-tracks";\nsagitta.';
     converter.complete(executor.declarations, probe, probe.length);
   }
 

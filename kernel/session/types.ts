@@ -3,7 +3,7 @@
  * and the in-process execution session (kernel/session/session.ts). Plain data in, plain data out:
  * nothing here knows about sockets or child processes.
  */
-import type { MimeBundle } from '../../lib/display.js';
+import { type MimeBundle } from '../../lib/index.js';
 
 /** Callbacks a running cell uses to emit output while it runs. */
 export interface CellHooks {

@@ -50,6 +50,12 @@ export function erfc(x: number): number {
 
 /** Chebyshev nodes used to build the series, and the coefficients kept. */
 const NODES = 64;
+/**
+ * Coefficients kept: c₀ … c₂₃ fall from 1.15 to 1.8e-15; from c₂₄ on, every |cₖ| ≤ 1e-15 is the
+ * rounding noise of the sampled values (they no longer fall), which summing only adds to the
+ * result while costing time. With 24 terms the series matches the full 64 to ~3e-15 relative.
+ */
+const KEEP = 24;
 let chebyshev: Float64Array | undefined;
 
 /** e^(x²) erfc(x) for x ≥ 0 without underflow: from Q(½, x²) for small x, the bare continued fraction beyond. */
@@ -72,7 +78,5 @@ function chebyshevCoefficients(): Float64Array {
     for (let j = 0; j < NODES; j++) s += g[j] * Math.cos((Math.PI * k * (j + 0.5)) / NODES);
     c[k] = (2 / NODES) * s;
   }
-  let keep = NODES;
-  while (keep > 1 && Math.abs(c[keep - 1]) < 1e-18 * Math.abs(c[0])) keep--;
-  return c.slice(0, keep);
+  return c.slice(0, KEEP);
 }

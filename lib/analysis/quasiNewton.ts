@@ -38,6 +38,11 @@ export interface QuasiNewtonResult {
  * diagonal whenever a step is projected or the curvature condition fails. For likelihoods
  * written in χ² units (−2 ln L), the default tolerance 1e-9 means the minimum is located to
  * ~3e-5 of each error.
+ *
+ * Written here rather than taken from the registry: the small scalar minimisers there are
+ * unconstrained (fmin 0.0.4 says so in its description; numeric 1.2.6's uncmin likewise, from
+ * its documentation (memory)), while every fit here takes bounds, and none returns the inverse
+ * Hessian the first error estimate comes from.
  * @example minimizeQuasiNewton({ parameterCount: 1, value: (t) => (t[0] - 2) ** 2 }, [0]).theta // ≈ [2]
  */
 export function minimizeQuasiNewton(problem: ScalarProblem, start: ArrayLike<number>, settings: QuasiNewtonSettings = {}): QuasiNewtonResult {

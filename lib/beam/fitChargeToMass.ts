@@ -1,6 +1,6 @@
-import { chi2Survival } from '../analysis/chi2Survival.js';
+import type { ModelFitStatus } from '../analysis/fitResult.js';
+import { fitStraightLine } from '../analysis/fitStraightLine.js';
 import { msg } from '../errors.js';
-import { fitStraightLineXY } from './straightLineXYErrors.js';
 
 /** One point of an e/m series: accelerating voltage, field (or coil current) and orbit radius, with errors. */
 export interface ChargeToMassPoint {
@@ -39,6 +39,8 @@ export interface ChargeToMassFit {
   readonly ndf: number;
   /** P(χ² ≥ observed) for ndf degrees of freedom: the fit-quality figure. */
   readonly pValue: number;
+  /** 'ok', or how the straight-line fit failed (`FitResult.status`; values are then not to be trusted). */
+  readonly status: ModelFitStatus;
   /** x = (Br)²/2 [T²m²] and its error per point, for plotting V against x. */
   readonly x: Float64Array;
   readonly sigmaX: Float64Array;
@@ -48,9 +50,10 @@ export interface ChargeToMassFit {
  * q/m [C/kg] from a series of beam-tube points by regression: V = (q/m)·(Br)²/2 (from
  * q/m = 2V/(B²r²), common practice), a straight line in x = (Br)²/2 with errors on both axes —
  * σ_x from the field (or coil current) and radius errors, σ_V from the voltage — fitted through
- * the origin or with an offset (`fitStraightLineXY`, effective-variance χ²). The field-scale and
- * radius-scale uncertainties are common to every point, so they do not enter the fit; they are
- * given as the systematic error. Non-relativistic (as `chargeToMassFromOrbit`).
+ * the origin or with an offset (`fitStraightLine` of lib/analysis: the effective-variance χ²,
+ * which for a straight line is the Gaussian likelihood with errors on both axes; errors from its
+ * curvature). The field-scale and radius-scale uncertainties are common to every point, so they
+ * do not enter the fit; they are given as the systematic error. Non-relativistic (as `chargeToMassFromOrbit`).
  * @example fitChargeToMass(points, { teslaPerAmpere: 7.79e-4, fieldScaleRelative: 0.005 }).valueCPerKg
  */
 export function fitChargeToMass(points: readonly ChargeToMassPoint[], options: ChargeToMassFitOptions = {}): ChargeToMassFit {
@@ -74,11 +77,12 @@ export function fitChargeToMass(points: readonly ChargeToMassPoint[], options: C
     y[i] = p.voltageV;
     sy[i] = p.sigmaVoltageV;
   });
-  const fit = fitStraightLineXY(x, y, sx, sy, origin);
-  const syst = Math.abs(fit.slope) * Math.hypot(2 * (options.fieldScaleRelative ?? 0), 2 * (options.radiusScaleRelative ?? 0));
+  const fit = fitStraightLine({ x, y, sigma: sy, xSigma: sx }, { throughOrigin: origin });
+  const slope = fit.parameters.slope, offset = fit.parameters.intercept;
+  const syst = Math.abs(slope.value) * Math.hypot(2 * (options.fieldScaleRelative ?? 0), 2 * (options.radiusScaleRelative ?? 0));
   return {
-    valueCPerKg: fit.slope, sigmaStatCPerKg: fit.sigmaSlope, sigmaSystCPerKg: syst,
-    offsetV: fit.intercept, sigmaOffsetV: fit.sigmaIntercept, chi2: fit.chi2, ndf: fit.ndf,
-    pValue: fit.ndf > 0 ? chi2Survival(fit.chi2, fit.ndf) : NaN, x, sigmaX: sx,
+    valueCPerKg: slope.value, sigmaStatCPerKg: slope.error, sigmaSystCPerKg: syst,
+    offsetV: offset?.value ?? 0, sigmaOffsetV: offset?.error ?? 0, chi2: fit.chi2, ndf: fit.ndf,
+    pValue: fit.pValue, status: fit.status, x, sigmaX: sx,
   };
 }

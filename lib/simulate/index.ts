@@ -1,23 +1,22 @@
-// lib/simulate: seeded chamber simulator with truth (re-exports only).
-export { seededRandom, type SeededRandom } from './rng.js';
+// lib/simulate: everything this room offers the other rooms, by name (the public subset is in lib/index.ts).
 export { chamber, insideChamber, type Chamber, type ChamberField, type ChamberOptions } from './chamber.js';
-export { helixStep } from './helixStep.js';
-export { transportTrack } from './transport.js';
-export { TRANSPORT_DEFAULTS, type Sampling, type EnergyLossMode, type TransportOptions } from './transportOptions.js';
-export type { TrackStart, TrackEnd, EndReason, HitSink, DeltaSink, PositionAndDirection, ParticleInFlight } from './trackInFlight.js';
-export { rotateAbout } from './scatteringKick.js';
-export type { HelixMotion } from './helixStep.js';
-export { twoBodyDecay, type TwoBodyProducts } from './twoBodyDecay.js';
+export { DECAY_AT_REST, DECAY_IN_FLIGHT, NEUTRAL_DECAYS } from './decays.js';
+export { deltaRayCosTheta, deltaRayRatePerM, sampleDeltaRayKineticMeV } from './deltaRay.js';
+export { helixStep, type HelixMotion } from './helixStep.js';
 export { michelMaxEnergyMeV, sampleMichelFraction } from './michel.js';
-export { deltaRayRatePerM, sampleDeltaRayKineticMeV, deltaRayCosTheta } from './deltaRay.js';
-export { NEUTRAL_DECAYS, DECAY_AT_REST, DECAY_IN_FLIGHT } from './decays.js';
-export {
-  simulateChamber,
-  type SimulationConfig, type SimulationResult, type MeasurementModel, type TransportSettings, type Source,
-  type BeamSource, type BurstSource, type CosmicSource, type StoppingSource, type TruthTable, type HitTruth,
-} from './simulate.js';
-export { SCENARIO_SCHEMA } from './scenarioSchema.js';
-export { readScenario, parseScenario, resolveScenario, SCENARIO_DEFAULTS } from './scenario.js';
-export { formatHitsCsv, formatTruthCsv, formatRunRecord, TRUTH_CSV_COLUMNS } from './simulationCsv.js';
-export { truthToDataFrame } from './truthFrame.js';
 export { readTruth } from './readTruth.js';
+export { seededRandom, type SeededRandom } from './rng.js';
+export { rotateAbout } from './scatteringKick.js';
+export { SCENARIO_DEFAULTS, parseScenario, readScenario, resolveScenario } from './scenario.js';
+export { SCENARIO_SCHEMA } from './scenarioSchema.js';
+export { simulateChamber, type HitTruth, type MeasurementModel, type SimulationConfig, type SimulationResult, type Source, type TransportSettings, type TruthTable } from './simulate.js';
+export { TRUTH_CSV_COLUMNS, formatHitsCsv, formatRunRecord, formatTruthCsv } from './simulationCsv.js';
+export { type BeamSource } from './sources/beam.js';
+export { type BurstSource } from './sources/burst.js';
+export { type CosmicSource } from './sources/cosmic.js';
+export { type StoppingSource } from './sources/stopping.js';
+export { type DeltaSink, type EndReason, type HitSink, type ParticleInFlight, type PositionAndDirection, type TrackEnd, type TrackStart } from './trackInFlight.js';
+export { transportTrack } from './transport.js';
+export { TRANSPORT_DEFAULTS, type EnergyLossMode, type Sampling, type TransportOptions } from './transportOptions.js';
+export { truthToDataFrame } from './truthFrame.js';
+export { twoBodyDecay, type TwoBodyProducts } from './twoBodyDecay.js';

@@ -1,18 +1,18 @@
-// lib/vertex: four-vectors and kinematics, helix–helix vertices, V⁰ and kink finders, lifetimes (re-exports only).
-export { fourMomentum, sumFourVectors, invariantMassMeV, type FourVector } from './fourVector.js';
-export { boostFourVector, toRestFrame } from './lorentzBoost.js';
-export { twoBodyMomentumMeV } from './twoBodyMomentum.js';
+// lib/vertex: everything this room offers the other rooms, by name (the public subset is in lib/index.ts).
 export { armenteros } from './armenteros.js';
-export { invariantMassWithError, type MomentumWithCovariance } from './invariantMassError.js';
-export { helixPoint, helixPointJacobian, helixCentre, arcLengthNear, newHelixParameters, type HelixParameters } from './helixParameters.js';
-export { closestApproach, refineClosestApproach, circleCrossings, newClosestApproachScratch, CLOSEST_APPROACH_DEFAULTS, type ClosestApproach, type ClosestApproachScratch } from './closestApproach.js';
-export { fitTwoTrackVertex, nearestArcLength, newTwoTrackVertex, newVertexScratch, type TwoTrackVertex, type VertexScratch } from './twoTrackVertex.js';
-export { vertexTracks, loadHelix, transverseMomentumMeV, type VertexTracks, type VertexTracksOptions } from './vertexTracks.js';
-export { trackStateAt, energyLossFactor, newTrackState, type TrackState, type TrackStateOptions } from './trackState.js';
-export { v0Masses, newV0MassScratch, type V0MassContext, type DaughterHypotheses } from './v0Masses.js';
-export { findV0s, V0_FINDER_DEFAULTS, type V0FinderOptions, type V0FinderResult } from './findV0s.js';
-export type { V0Candidates } from './v0Candidates.js';
-export { v0CandidateColumns } from './v0CandidateColumns.js';
-export { fitLifetime, decayWindowInBox, type LifetimeFit } from './fitLifetime.js';
+export { CLOSEST_APPROACH_DEFAULTS, circleCrossings, closestApproach, newClosestApproachScratch, refineClosestApproach, type ClosestApproach, type ClosestApproachScratch } from './closestApproach.js';
+export { KINK_FINDER_DEFAULTS, findKinks, type KinkCandidates, type KinkFinderOptions, type KinkFinderResult } from './findKinks.js';
+export { V0_FINDER_DEFAULTS, findV0s, type V0FinderOptions, type V0FinderResult } from './findV0s.js';
+export { decayWindowInBox, fitLifetime, type LifetimeFit } from './fitLifetime.js';
 export { fitMassPeak, type MassPeakFit } from './fitMassPeak.js';
-export { findKinks, KINK_FINDER_DEFAULTS, type KinkFinderOptions, type KinkFinderResult, type KinkCandidates } from './findKinks.js';
+export { fourMomentum, invariantMassMeV, sumFourVectors, type FourVector } from './fourVector.js';
+export { arcLengthNear, helixCentre, helixPoint, helixPointJacobian, newHelixParameters, type HelixParameters } from './helixParameters.js';
+export { invariantMassWithError, type MomentumWithCovariance } from './invariantMassError.js';
+export { boostFourVector, toRestFrame } from './lorentzBoost.js';
+export { energyLossFactor, newTrackState, trackStateAt, type TrackState, type TrackStateOptions } from './trackState.js';
+export { twoBodyMomentumMeV } from './twoBodyMomentum.js';
+export { fitTwoTrackVertex, nearestArcLength, newTwoTrackVertex, newVertexScratch, type TwoTrackVertex, type VertexScratch } from './twoTrackVertex.js';
+export { v0CandidateColumns } from './v0CandidateColumns.js';
+export { type V0Candidates } from './v0Candidates.js';
+export { newV0MassScratch, v0Masses, type DaughterHypotheses, type V0MassContext } from './v0Masses.js';
+export { loadHelix, transverseMomentumMeV, vertexTracks, type VertexTracks, type VertexTracksOptions } from './vertexTracks.js';

@@ -5,7 +5,7 @@
  * smeared by its stated error; for the spectrometer, each ion's radius from its AME 2020 mass,
  * smeared likewise. Only for demo data.
  */
-import { ELECTRON_CHARGE_TO_MASS_C_KG, ELECTRON_MASS_U, helmholtzField, isotope, lengthMetres, orbitFieldUniformity, quantity, sectorRadiusM, seededRandom } from 'sagitta';
+import { ELECTRON_CHARGE_TO_MASS_C_KG, ELECTRON_MASS_U, helmholtzField, isotope, lengthMetres, orbitFieldUniformity, quantity, sectorRadiusM, seededRandom } from 'sagitta-tracks';
 
 interface Bench {
   readonly name: string;

@@ -8,7 +8,7 @@
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, seededRandom, simulateChamber, type SimulationResult } from 'sagitta';
+import { formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, seededRandom, simulateChamber, type SimulationResult } from 'sagitta-tracks';
 import { benchFiles } from './benchSeries.js';
 import { overlayEvents } from './overlay.js';
 
@@ -21,6 +21,7 @@ export const DEMO_SEEDS: Readonly<Record<string, number>> = Object.freeze({
   cinderfell: 20260403,
   larkspur: 20260404,
   ashgrove: 20260416,
+  fenwick: 20260611,
 });
 
 /**

@@ -5,7 +5,7 @@
  * holds, say, a V⁰ decay and prompt tracks from the same target. Used only to make demo data;
  * the simulator itself makes one source's particle per event.
  */
-import type { SimulationResult } from 'sagitta';
+import type { SimulationResult } from 'sagitta-tracks';
 
 function rowsByEvent(event: Float64Array): Map<number, number[]> {
   const m = new Map<number, number[]>();

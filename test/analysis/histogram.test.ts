@@ -26,6 +26,32 @@ describe('Histogram', () => {
     expect(h.overflow).toBe(1);
     expect(Array.from(h.widths())).toEqual([1, 2, 7]);
   });
+  it('variable bins through the look-up grid: every value, edges and their neighbours included, lands in the bin a linear scan finds (log, clustered and wide-ratio edges)', () => {
+    const rng = seededRandom(20261104, 'histogram guide');
+    const layouts = [
+      Array.from({ length: 101 }, (_, k) => 1e-3 * 10 ** (6 * k / 100)),           // 6 decades, log-spaced
+      [0, 1e-9, 2e-9, 0.5, 0.5 + 1e-12, 0.75, 1],                                     // tiny bins beside wide ones
+      Array.from({ length: 301 }, (_, k) => -3 + 6 * (k / 300) ** 3),                 // widths from 7e-5 to 0.06
+    ];
+    for (const edges of layouts) {
+      const lo = edges[0], hi = edges[edges.length - 1];
+      const values: number[] = [];
+      for (const e of edges) values.push(e, e * (1 - 2 ** -52), e * (1 + 2 ** -52), e - 1e-300, e + 1e-300);
+      for (let i = 0; i < 20_000; i++) values.push(lo + (hi - lo) * rng.uniform());
+      const h = new Histogram({ edges }).fill(values);
+      const expected = new Float64Array(edges.length - 1);
+      let under = 0, over = 0;
+      for (const v of values) {
+        if (v < lo) { under++; continue; }
+        if (v >= hi) { over++; continue; }
+        let k = 0;
+        while (!(edges[k] <= v && v < edges[k + 1])) k++;
+        expected[k]++;
+      }
+      expect(Array.from(h.sumW)).toEqual(Array.from(expected));
+      expect([h.underflow, h.overflow]).toEqual([under, over]);
+    }
+  });
   it('weights: Σw and Σw² per bin, under/overflow as sums of weights, a NaN weight is counted and skipped', () => {
     const h = new Histogram({ bins: 2, range: [0, 2] }).fill([0.5, 0.5, 1.5, 5, 0.2], [2, 3, 0.5, 4, NaN]);
     expect(Array.from(h.sumW)).toEqual([5, 0.5]);

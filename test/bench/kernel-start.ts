@@ -41,7 +41,7 @@ for (let run = 0; run < RUNS; run++) {
   await client.request('shell', 'execute_request', { code: '1 + 1' }, 120_000);
   firstCell.push(performance.now() - t1);
   const t2 = performance.now();
-  await client.request('shell', 'execute_request', { code: 'import { PROTON } from "sagitta";\nPROTON.massMeV' }, 120_000);
+  await client.request('shell', 'execute_request', { code: 'import { PROTON } from "sagitta-tracks";\nPROTON.massMeV' }, 120_000);
   firstImport.push(performance.now() - t2);
   if (run === 0) {
     for (let i = 0; i < WARM_CELLS; i++) {
@@ -63,7 +63,7 @@ let afterPause = NaN;
   await client.handshake(60_000, 50);
   await new Promise((resolve) => setTimeout(resolve, THINK_MS));
   const t = performance.now();
-  await client.request('shell', 'execute_request', { code: 'import { PROTON } from "sagitta";\nPROTON.massMeV' }, 120_000);
+  await client.request('shell', 'execute_request', { code: 'import { PROTON } from "sagitta-tracks";\nPROTON.massMeV' }, 120_000);
   afterPause = performance.now() - t;
   await client.request('control', 'shutdown_request', { restart: false });
   await withTimeout(client.exitCode, 15_000, 'kernel exit');
@@ -75,7 +75,7 @@ rmSync(work, { recursive: true, force: true });
 const ms = (x: number) => `${x.toFixed(0)} ms`;
 process.stdout.write(`kernel start → first idle: median ${ms(median(toIdle))} (min ${ms(Math.min(...toIdle))}, max ${ms(Math.max(...toIdle))}, ${RUNS} starts; target < 2500 ms)\n`);
 process.stdout.write(`first cell after idle ("1 + 1", session start-up included): median ${ms(median(firstCell))}\n`);
-process.stdout.write(`first cell importing "sagitta" (library load and check): median ${ms(median(firstImport))}\n`);
-process.stdout.write(`first cell importing "sagitta" ${THINK_MS / 1000} s after idle (warmed up meanwhile): ${ms(afterPause)}\n`);
+process.stdout.write(`first cell importing "sagitta-tracks" (library load and check): median ${ms(median(firstImport))}\n`);
+process.stdout.write(`first cell importing "sagitta-tracks" ${THINK_MS / 1000} s after idle (warmed up meanwhile): ${ms(afterPause)}\n`);
 process.stdout.write(`warm trivial cell round trip: median ${ms(median(warm))} (${WARM_CELLS} cells, ${(1000 / median(warm)).toFixed(1)} cells/s)\n`);
 process.exit(0);

@@ -35,7 +35,7 @@ const smallFile = join(dir, 'small.ipynb');
 writeFileSync(smallFile, notebook(small));
 
 const ten = [
-  "import { histogramFigure } from 'sagitta';",
+  "import { histogramFigure } from 'sagitta-tracks';",
   'const n = 20000;',
   'const xs = Array.from({ length: n }, (_, i) => Math.sin(i) * Math.sqrt(i));',
   'let sum = 0; for (const x of xs) sum += x;',

@@ -24,6 +24,27 @@ export const EXAMPLE_CHECKS: Readonly<Record<string, (r: Record<string, number>)
     expect(r.isotopesRight).toBe(r.isotopesTotal);
     expect(r.isotopesTotal).toBeGreaterThan(5);
   },
+  // The simulator's truth (notebooks/data/fenwick.scenario.json and the truth file): a 600 MeV/c
+  // beam with a 3 % spread, seen through the tracker's resolution and the helix fit's bias (both
+  // measured on the beam tracks against their true momenta), on cosmic rays with γ = 2.7. The
+  // fitted values must agree within two of their fitted errors (the data are one fixed seed).
+  '06-fenwick-spectrum.ipynb': (r) => {
+    expect(r.fitOk).toBe(1);
+    expect(Math.abs(r.peakMeanMeV - r.truthMeanMeV * (1 + r.biasRelative))).toBeLessThan(2 * r.sigmaPeakMeanMeV);
+    expect(Math.abs(r.peakSigmaMeV - r.truthSigmaMeV)).toBeLessThan(2 * r.sigmaPeakSigmaMeV);
+    expect(Math.abs(r.peakArea - r.beamTracksInRange)).toBeLessThan(2 * r.sigmaPeakArea);
+    expect(Math.abs(r.backgroundIndex - r.truthIndex)).toBeLessThan(2 * r.sigmaBackgroundIndex);
+    // The bias the notebook leaves uncorrected is small beside the statistical error and the width.
+    expect(Math.abs(r.biasRelative * r.truthMeanMeV)).toBeLessThan(0.5 * r.sigmaPeakMeanMeV);
+    // The errors are what ~600 beam tracks of 18 MeV/c spread give (σ/√N ≈ 0.75 MeV/c): not inflated
+    // to pass; the likelihood-ratio interval of the mean is within 10 % of the curvature error.
+    expect(r.sigmaPeakMeanMeV).toBeLessThan(1.0);
+    expect(Math.abs(r.meanScanMinus / r.sigmaPeakMeanMeV - 1)).toBeLessThan(0.1);
+    expect(Math.abs(r.meanScanPlus / r.sigmaPeakMeanMeV - 1)).toBeLessThan(0.1);
+    // The Baker–Cousins goodness of fit does not reject the model.
+    expect(r.ndf).toBeGreaterThan(30);
+    expect(r.pValue).toBeGreaterThan(0.01);
+  },
 };
 
 /** The object printed on the notebook's `sagitta-check` line, or undefined. */

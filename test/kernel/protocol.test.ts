@@ -72,7 +72,7 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
   it('execute: execute_input, stream (stdout and stderr), display_data, update_display_data and execute_result, between busy and idle', async () => {
     const { reply, iopub } = await run(
       [
-        'import { PROTON, present, refresh } from "sagitta";',
+        'import { PROTON, present, refresh } from "sagitta-tracks";',
         'import { doubled } from "./local";',
         'console.log("to stdout");',
         'console.error("to stderr");',
@@ -106,7 +106,7 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
   });
 
   it('a figure shows as application/vnd.plotly.v1+json with text/html and text/plain fallbacks', async () => {
-    const { reply, iopub } = await run('import { histogramFigure } from "sagitta";\nhistogramFigure([1, 2, 2, 3, 3, 3], { bins: 3 })');
+    const { reply, iopub } = await run('import { histogramFigure } from "sagitta-tracks";\nhistogramFigure([1, 2, 2, 3, 3, 3], { bins: 3 })');
     expect(reply.content.status).toBe('ok');
     const data = iopub.find((m) => m.header.msg_type === 'execute_result')!.content.data;
     expect(data['application/vnd.plotly.v1+json']).toHaveProperty('data');
@@ -117,7 +117,7 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
   it('an event display shows as image/svg+xml, shown mid-cell with present()', async () => {
     const { reply, iopub } = await run(
       [
-        'import { eventDisplay, present } from "sagitta";',
+        'import { eventDisplay, present } from "sagitta-tracks";',
         'const xs = [0, 0.1, 0.2, 0.3], ys = xs.map((x) => 2 - Math.sqrt(4 - x * x));',
         'present(eventDisplay({ xM: xs, yM: ys, track: [0, 0, 0, 0] }, [{ centerXM: 0, centerYM: 2, radiusM: 2, charge: 1 }], { fieldT: 1.5 }));',
       ].join('\n'),
@@ -210,7 +210,7 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
   });
 
   it('inspect: the signature and doc comment of a library function', async () => {
-    const code = 'import { particle } from "sagitta";\nparticle';
+    const code = 'import { particle } from "sagitta-tracks";\nparticle';
     const { reply } = await client.request('shell', 'inspect_request', { code, cursor_pos: [...code].length, detail_level: 0 });
     expect(reply.content.status).toBe('ok');
     expect(reply.content.found).toBe(true);
@@ -239,7 +239,7 @@ describe('sagitta kernel over zeromq (messaging protocol 5.3)', { timeout: 120_0
 
   it('clearOutput publishes clear_output (with wait); ask sends input_request on stdin when the front end allows input, and refuses when it does not', async () => {
     client.answerInput = (prompt) => `typed after ${prompt}`;
-    const { reply, iopub } = await run('import { ask, clearOutput } from "sagitta";\nconsole.log("old");\nclearOutput({ wait: true });\nawait ask("Run label? ")', { allow_stdin: true });
+    const { reply, iopub } = await run('import { ask, clearOutput } from "sagitta-tracks";\nconsole.log("old");\nclearOutput({ wait: true });\nawait ask("Run label? ")', { allow_stdin: true });
     expect(reply.content.status).toBe('ok');
     expect(iopub.find((m) => m.header.msg_type === 'clear_output')!.content).toEqual({ wait: true });
     const asked = client.inputRequests.at(-1)!;

@@ -23,8 +23,8 @@ const MARKDOWN = [
 ].join('\n');
 
 const CELLS = [
-  "import { readFileSync } from 'node:fs';\nimport { loadDanfo, histogramFigure, eventDisplay, present, asMime } from 'sagitta';\nconst rows = readFileSync('labels.csv', 'utf8').trim().split('\\n').slice(1).map((l) => l.split(','));\nconst labels = rows.map((r) => r[0]);\nconst values = rows.map((r) => Number(r[1]));\nconsole.log(labels.join(' | '));",
-  'new (loadDanfo().DataFrame)({ label: labels, value: values })',
+  "import { readFileSync } from 'node:fs';\nimport { histogramFigure, eventDisplay, present, asMime } from 'sagitta-tracks';\nimport { DataFrame } from 'danfojs-node';\nconst rows = readFileSync('labels.csv', 'utf8').trim().split('\\n').slice(1).map((l) => l.split(','));\nconst labels = rows.map((r) => r[0]);\nconst values = rows.map((r) => Number(r[1]));\nconsole.log(labels.join(' | '));",
+  'new DataFrame({ label: labels, value: values })',
   "histogramFigure(values, { title: labels[0] + ' ' + labels[3], name: labels[1], xTitle: labels[2], bins: 3 })",
   "eventDisplay({ xM: [0, 0.1, 0.2], yM: [0, 0.01, 0.04], track: [0, 0, 0] }, [{ centerXM: 0, centerYM: 0.5, radiusM: 0.5, charge: 1, label: labels[1] }], { title: labels[0] })",
   "present({ [asMime]: () => ({ 'text/html': `<p>${labels.join('</p><p>')}</p>`, 'text/plain': 'labels' }) });",

@@ -76,7 +76,7 @@ describe('runner helpers', () => {
 
   it('findKnobs reads knob(name, literal) calls with the parser; checkSuppliedKnobs checks type, unit, length and names', () => {
     const knobs = findKnobs([
-      { index: 1, code: 'import { knob } from "sagitta";\nconst fieldT = knob("field", "1.5 T"); // knob("ignored", 1) in a comment\nconst n = knob("shown", -3);' },
+      { index: 1, code: 'import { knob } from "sagitta-tracks";\nconst fieldT = knob("field", "1.5 T"); // knob("ignored", 1) in a comment\nconst n = knob("shown", -3);' },
       { index: 4, code: 'const w = sagitta.knob("window", [0, 2] as const);\nconst f = knob("file", path());' },
     ]);
     expect(knobs).toEqual([
@@ -96,8 +96,8 @@ describe('runner helpers', () => {
 describe('sagitta run (child process per run)', { timeout: 180_000 }, () => {
   it('a throwing cell: error output, later steps not run, exit 1, report and executed notebook written, source unchanged; knobs take --set values', async () => {
     const { dir, file, bytes } = notebookFile([
-      code('import { knob } from "sagitta";\nconst fieldT = knob("field", "1.5 T");\nconst label = knob("label", "default");'),
-      code('import { present, refresh } from "sagitta";\nconsole.log("B =", fieldT, label);\npresent("step 1", { id: "progress" });\nrefresh("progress", "step 2");\nfieldT * 2'),
+      code('import { knob } from "sagitta-tracks";\nconst fieldT = knob("field", "1.5 T");\nconst label = knob("label", "default");'),
+      code('import { present, refresh } from "sagitta-tracks";\nconsole.log("B =", fieldT, label);\npresent("step 1", { id: "progress" });\nrefresh("progress", "step 2");\nfieldT * 2'),
       code('throw new RangeError("field out of range")'),
       code('console.log("after")'),
     ]);
@@ -129,7 +129,7 @@ describe('sagitta run (child process per run)', { timeout: 180_000 }, () => {
   it('knob values of the wrong type or unit, or for no declared knob, are refused (BAD_KNOB) before any cell runs; a list keeps its length and types', async () => {
     const { dir, file } = notebookFile([
       code('import { writeFileSync } from "node:fs";\nwriteFileSync("ran.txt", "yes");'),
-      code('import { knob } from "sagitta";\nconst fieldT = knob("field", "1.5 T");\nconst window = knob("window", [0, 2]);\nconst [lo, hi]: readonly [number, number] = window;\nconsole.log(fieldT, lo + hi);'),
+      code('import { knob } from "sagitta-tracks";\nconst fieldT = knob("field", "1.5 T");\nconst window = knob("window", [0, 2]);\nconst [lo, hi]: readonly [number, number] = window;\nconsole.log(fieldT, lo + hi);'),
     ]);
     // One refused run names every problem (the kinds are covered one by one in test/knob.test.ts).
     const refused = await runCommand(file, { cellTimeout: '60s', set: ['field=1.2', 'window=[0,1,2]', 'fieldT=1.2 T'], executed: false }).catch((e: SagittaError) => e);

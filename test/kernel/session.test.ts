@@ -2,7 +2,7 @@
  * The in-process execution session (kernel/session) on tslab's converter and executor, driven
  * directly: results as MIME bundles, captured output, errors, interrupts, completion and
  * inspection with code-point cursors (messaging protocol 5.2+ counts cursor positions in Unicode
- * code points), and `import … from "sagitta"` from a folder outside this repository.
+ * code points), and `import … from "sagitta-tracks"` from a folder outside this repository.
  */
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -52,7 +52,7 @@ afterAll(() => {
 describe('createSession({ workDir }) outside the repository', { timeout: 120_000 }, () => {
   it('shows a cell\'s warnings under that cell and does not carry them into the next', async () => {
     const first = recorder();
-    await session.execute('import { highlandTheta0 } from "sagitta";\nhighlandTheta0({ momentumGeV: 1, beta: 1, charge: 1, thicknessOverX0: 1e-6 })', first.hooks);
+    await session.execute('import { highlandTheta0 } from "sagitta-tracks";\nhighlandTheta0({ momentumGeV: 1, beta: 1, charge: 1, thicknessOverX0: 1e-6 })', first.hooks);
     const shown = first.streams.filter((s) => s.name === 'stderr').map((s) => s.text).join('');
     expect(shown).toMatch(/^warning \[OUTSIDE_VALIDITY\]: highlandTheta0: x\/X₀ = 0.000001 is outside/);
     const second = recorder();
@@ -60,9 +60,9 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
     expect(second.streams.filter((s) => s.name === 'stderr')).toEqual([]);
   });
 
-  it('imports "sagitta" and a local .ts module next to the notebook; returns the last value as text/plain', async () => {
+  it('imports "sagitta-tracks" and a local .ts module next to the notebook; returns the last value as text/plain', async () => {
     const r = recorder();
-    const out = await session.execute('import { PROTON } from "sagitta";\nimport { BEAM_MOMENTUM_GEV } from "./beam";\n[PROTON.massMeV, BEAM_MOMENTUM_GEV]', r.hooks);
+    const out = await session.execute('import { PROTON } from "sagitta-tracks";\nimport { BEAM_MOMENTUM_GEV } from "./beam";\n[PROTON.massMeV, BEAM_MOMENTUM_GEV]', r.hooks);
     expect(out.status).toBe('ok');
     // Proton mass 938.27208816 MeV/c² (CODATA 2018).
     expect(out.result?.['text/plain']).toBe('[ 938.27208816, 1.2 ]');
@@ -103,7 +103,7 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
 
   it('present / refresh reach the display hook with the display id and the update flag', async () => {
     const r = recorder();
-    await session.execute('import { present, refresh } from "sagitta";\npresent("step 1", { id: "fit" });\nrefresh("fit", "step 2");', r.hooks);
+    await session.execute('import { present, refresh } from "sagitta-tracks";\npresent("step 1", { id: "fit" });\nrefresh("fit", "step 2");', r.hooks);
     expect(r.displays).toEqual([
       { bundle: { 'text/plain': 'step 1' }, options: { displayId: 'fit' } },
       { bundle: { 'text/plain': 'step 2' }, options: { displayId: 'fit', update: true } },
@@ -129,7 +129,7 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
   });
 
   it('a cell that throws part-way keeps the imports and declarations made before the throw; names after it are gone', async () => {
-    const failed = await session.execute('import { PROTON as P } from "sagitta";\nconst before = 2;\nfunction twice(x: number) { return before * x; }\nthrow new Error("half way");\nconst after = 3;', recorder().hooks);
+    const failed = await session.execute('import { PROTON as P } from "sagitta-tracks";\nconst before = 2;\nfunction twice(x: number) { return before * x; }\nthrow new Error("half way");\nconst after = 3;', recorder().hooks);
     expect(failed.error?.evalue).toBe('half way');
     const later = await session.execute('[twice(P.charge), before]', recorder().hooks);
     expect(later.status).toBe('ok');
@@ -156,7 +156,7 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
 
   it('clearOutput and ask reach the cell hooks', async () => {
     const r = recorder();
-    const out = await session.execute('import { ask, clearOutput } from "sagitta";\nclearOutput({ wait: true });\nclearOutput();\nawait ask("Run label: ")', r.hooks);
+    const out = await session.execute('import { ask, clearOutput } from "sagitta-tracks";\nclearOutput({ wait: true });\nclearOutput();\nawait ask("Run label: ")', r.hooks);
     expect(r.cleared).toEqual([true, false]);
     expect(out.result?.['text/plain']).toBe('answer to Run label: ');
   });
@@ -180,7 +180,7 @@ describe('createSession({ workDir }) outside the repository', { timeout: 120_000
   });
 
   it('inspect() gives the signature and doc comment as text/plain and text/markdown', async () => {
-    const code = 'import { particle } from "sagitta";\nparticle';
+    const code = 'import { particle } from "sagitta-tracks";\nparticle';
     const bundle = await session.inspect(code, [...code].length, 0);
     expect(bundle?.['text/plain']).toMatch(/function particle\(name: string\): Particle/);
     expect(bundle?.['text/markdown']).toMatch(/^```typescript\n/);

@@ -1,16 +1,8 @@
 import { Command } from 'commander';
 import { existsSync, readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
-import { msg } from '../../../lib/errors.js';
-import { GEV_PER_TESLA_METRE } from '../../../lib/constants.js';
-import { findTracks, type FoundTracks } from '../../../lib/find/findTracks.js';
-import { fitCircles } from '../../../lib/fit/fitCircles.js';
-import { readCsvLayout } from '../../../lib/io/csvLayout.js';
-import type { HitTable } from '../../../lib/io/hitTable.js';
-import { parseCsvRows, READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv.js';
-import { parseHitsJsonl } from '../../../lib/io/parseHitsJsonl.js';
-import { recordInput } from '../../../lib/provenance.js';
-import { fieldTesla, lengthMetres, metresPerUnit } from '../../../lib/units.js';
+import { fieldTesla, findTracks, fitCircles, type FoundTracks, GEV_PER_TESLA_METRE, type HitTable, lengthMetres, READ_HITS_DEFAULTS, recordInput } from '../../../lib/index.js';
+import { metresPerUnit, msg, parseCsvRows, parseHitsJsonl, readCsvLayout } from '../../../lib/internal.js';
 import { planOutputs } from '../../batch/outputPlan.js';
 import { OutputSet } from '../../batch/outputSet.js';
 import { labelledCsv, labelledJsonl } from '../labelledRows.js';

@@ -1,13 +1,8 @@
 import { Command, Option } from 'commander';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv.js';
-import { fitMethods } from '../../../lib/fit/fitMethods.js';
-import { fieldTesla, lengthMetres, metresPerUnit } from '../../../lib/units.js';
-import { msg } from '../../../lib/errors.js';
-import { material as lookupMaterial } from '../../../lib/matter/materials.js';
-import { particle as lookupParticle } from '../../../lib/particles.js';
-import { formatWarning } from '../../../lib/warnings.js';
+import { fieldTesla, fitMethods, formatWarning, lengthMetres, material as lookupMaterial, particle as lookupParticle, READ_HITS_DEFAULTS } from '../../../lib/index.js';
+import { metresPerUnit, msg } from '../../../lib/internal.js';
 import type { FitJobOptions } from '../../batch/fitJob.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { planOutputs } from '../../batch/outputPlan.js';

@@ -1,5 +1,5 @@
 import type { Command } from 'commander';
-import { msg } from '../../../lib/errors.js';
+import { msg } from '../../../lib/internal.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { mergeParts } from '../../batch/mergeParts.js';
 import { planOutputs } from '../../batch/outputPlan.js';

@@ -1,16 +1,7 @@
 import type { Command } from 'commander';
-import { particle as lookupParticle, type Particle } from '../../../lib/particles.js';
-import { arealDensityGcm2, energyMeV, lengthMetres, momentumGeV } from '../../../lib/units.js';
-import { msg } from '../../../lib/errors.js';
-import { consumeWarnings, type SagittaWarning } from '../../../lib/warnings.js';
-import { material as lookupMaterial, type Material } from '../../../lib/matter/materials.js';
-import { kinematicsFromKinetic, kineticFromMomentum } from '../../../lib/matter/kinematics.js';
-import { isElectronLike, massStoppingPower } from '../../../lib/matter/stoppingPower.js';
-import { stoppingRegime } from '../../../lib/matter/electronicStopping.js';
-import { parseMaterialFile } from '../../../lib/matter/materialFile.js';
+import { arealDensityGcm2, consumeWarnings, csdaRange, energyMeV, kinematicsFromKinetic, kineticEnergyFromRange, kineticFromMomentum, lengthMetres, massStoppingPower, type Material, material as lookupMaterial, momentumGeV, type Particle, particle as lookupParticle, rangeCutoffMeV, rangeMaxMeV, rangeTable, type SagittaWarning, stoppingRegime } from '../../../lib/index.js';
+import { isElectronLike, msg, parseMaterialFile } from '../../../lib/internal.js';
 import { existsSync, readFileSync } from 'node:fs';
-import { csdaRange, kineticEnergyFromRange, rangeCutoffMeV, rangeMaxMeV } from '../../../lib/matter/range.js';
-import { rangeTable } from '../../../lib/matter/rangeTable.js';
 
 export interface RangeCommandOptions {
   particle: string;

@@ -1,12 +1,8 @@
 import { writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import type { Command } from 'commander';
-import { msg } from '../../../lib/errors.js';
-import { consumeWarnings } from '../../../lib/warnings.js';
-import { readScenario } from '../../../lib/simulate/scenario.js';
-import { SCENARIO_SCHEMA } from '../../../lib/simulate/scenarioSchema.js';
-import { simulateChamber } from '../../../lib/simulate/simulate.js';
-import { formatHitsCsv, formatRunRecord, formatTruthCsv } from '../../../lib/simulate/simulationCsv.js';
+import { consumeWarnings, formatHitsCsv, formatRunRecord, formatTruthCsv, readScenario, SCENARIO_SCHEMA, simulateChamber } from '../../../lib/index.js';
+import { msg } from '../../../lib/internal.js';
 
 export interface SimulateCommandOptions {
   seed: string;

@@ -1,13 +1,8 @@
 import { Command, Option } from 'commander';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { msg } from '../../../lib/errors.js';
-import { fitMethods } from '../../../lib/fit/fitMethods.js';
-import { READ_HITS_DEFAULTS } from '../../../lib/io/parseHitsCsv.js';
-import { material as lookupMaterial } from '../../../lib/matter/materials.js';
-import { angleRad, fieldTesla, lengthMetres, metresPerUnit, pointMetres } from '../../../lib/units.js';
-import { V0_FINDER_DEFAULTS } from '../../../lib/vertex/findV0s.js';
-import { formatWarning } from '../../../lib/warnings.js';
+import { angleRad, fieldTesla, fitMethods, formatWarning, lengthMetres, material as lookupMaterial, pointMetres, READ_HITS_DEFAULTS, V0_FINDER_DEFAULTS } from '../../../lib/index.js';
+import { metresPerUnit, msg } from '../../../lib/internal.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { planOutputs } from '../../batch/outputPlan.js';
 import { OutputSet } from '../../batch/outputSet.js';
