@@ -98,7 +98,9 @@ length must agree with the range). Columns pid (the species, in the names sagitt
 --particle reads, or undecided), pid_delta_m2lnL (-2 ln L of the runner-up minus the best),
 stops (1 when the last hit lies 2 cm or more inside --volume, or without it when the curvature
 rises significantly along the track) and p_min_GeV_c (least momentum
-that reaches the last hit) follow; p_GeV_c and sigma_p_GeV_c are those of the chosen species. A
+that reaches the last hit), decay_of (the track id of the stopping track this one starts from,
+within 1.5 cm of its last hit: a decay at rest) and decay_distance_m follow; p_GeV_c and
+sigma_p_GeV_c are those of the chosen species. A
 track that does not stop is named only when the margin is at least 9, else undecided. The error
 budget columns are not written then (they need one species).
 
