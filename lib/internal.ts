@@ -19,3 +19,4 @@ export { PLOTLY_MIME } from './plot/figure.js';
 export { provenanceSnapshot, type ProvenanceSnapshot } from './provenance.js';
 export { metresPerUnit } from './units.js';
 export { speciesList } from './track/measureByIdentity.js';
+export { POOR_FIT_PROBABILITY } from './track/measureTracks.js';

@@ -2,7 +2,7 @@ import { Command, Option } from 'commander';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { fieldTesla, fitMethods, formatWarning, lengthMetres, material as lookupMaterial, particle as lookupParticle, READ_HITS_DEFAULTS } from '../../../lib/index.js';
-import { metresPerUnit, msg, speciesList } from '../../../lib/internal.js';
+import { metresPerUnit, msg, POOR_FIT_PROBABILITY, speciesList } from '../../../lib/internal.js';
 import type { FitJobOptions } from '../../batch/fitJob.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { planOutputs } from '../../batch/outputPlan.js';
@@ -11,7 +11,6 @@ import { wantProgress } from '../../batch/progress.js';
 import { stdoutTarget } from '../../batch/resultSink.js';
 import { runBatch, type BatchTotals } from '../../batch/runBatch.js';
 import { parseShard, type Shard } from '../../batch/shard.js';
-import { POOR_FIT_PROBABILITY } from '../../../lib/track/measureTracks.js';
 import { usage } from '../usage.js';
 import { parseThreads } from '../threads.js';
 
