@@ -4,6 +4,7 @@ import { material as lookupMaterial } from '../matter/materials.js';
 import { particle as lookupParticle, type Particle } from '../particles.js';
 import { PID_SPECIES } from './chargedSpecies.js';
 import { identifyTracks } from './identifyTracks.js';
+import { linkStopDecays } from './linkStopDecays.js';
 import type { MeasureTracksOptions, TrackTable } from './measureTracks.js';
 
 /**
@@ -68,5 +69,6 @@ export function measureByIdentity(hits: HitTable, options: MeasureTracksOptions,
     statusCounts,
     particle: 'auto',
     identity: ids,
+    decays: linkStopDecays(plain, ids.stops),
   };
 }

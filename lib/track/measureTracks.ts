@@ -16,6 +16,7 @@ import { matterMomenta } from './matterMomenta.js';
 import { measureByIdentity, speciesList } from './measureByIdentity.js';
 import type { IdentifiedTracks } from './identifyTracks.js';
 import type { FiducialBox } from './stopsInside.js';
+import type { StopDecayLinks } from './linkStopDecays.js';
 
 /** χ² probability below which a fitted track is flagged 'poor-fit' (the fit-with-material threshold, 1e-3). */
 export const POOR_FIT_PROBABILITY = MATTER_FIT_MIN_PROBABILITY;
@@ -85,6 +86,8 @@ export interface TrackTable {
   readonly matter?: MatterFitColumns;
   /** With `particle: 'auto'` or a list: the identification of every track (pid, margin, stop, bound). */
   readonly identity?: IdentifiedTracks;
+  /** With identification: each track's link to the stopping track it starts from (decay at rest). */
+  readonly decays?: StopDecayLinks;
   readonly momentum: MomentumColumns;
   /** True when the hits carry z, so p and tan λ are measured (otherwise only p_T). */
   readonly hasZ: boolean;

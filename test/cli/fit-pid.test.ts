@@ -29,9 +29,16 @@ describe('sagitta fit --particle auto (identification by range)', () => {
     const summary = await runFit(hits, { ...base, particle: 'auto', volume: '160 cm,100 cm,60 cm', out });
     expect(summary).toContain('identification by range among electron, mu-, pi+, K+, proton');
     const rows = readCsv(out);
-    expect(Object.keys(rows[0])).toEqual(expect.arrayContaining(['pid', 'pid_delta_m2lnL', 'stops', 'p_min_GeV_c', 'p_GeV_c', 'sigma_p_GeV_c']));
     const index = new Map<string, number>();
     for (let i = 0; i < truth.length; i++) index.set(`${truth.event[i]}/${truth.track[i]}`, i);
+    expect(Object.keys(rows[0])).toEqual(expect.arrayContaining(['pid', 'pid_delta_m2lnL', 'stops', 'p_min_GeV_c', 'p_GeV_c', 'sigma_p_GeV_c', 'decay_of', 'decay_distance_m']));
+    // Every Michel positron of a stopped μ⁺ is linked to that muon (truth: its parent).
+    for (const r of rows) {
+      const t = index.get(`${r.event}/${r.track}`)!;
+      if (truth.species[t] !== 'positron' || truth.process[t] !== 'decay-at-rest') continue;
+      const parent = index.get(`${r.event}/${truth.parent[t]}`)!;
+      if (truth.species[parent] === 'mu+' && truth.process[parent] === 'stopping') expect(Number(r.decay_of)).toBe(truth.track[parent]);
+    }
     let protons = 0, kaons = 0;
     const rel: number[] = [];
     for (const r of rows) {

@@ -23,7 +23,7 @@ describe('the simulator is seeded and reproducible', () => {
       // Compare digests: a failing string comparison of megabytes spends a minute printing the diff.
       const committed = readFileSync(new URL(`../../notebooks/data/${name}`, import.meta.url));
       const sha = (b: Uint8Array | string) => createHash('sha256').update(b).digest('hex');
-      expect(sha(committed), `${name} differs from a regeneration; run npx tsx notebooks/data/make-data.ts`).toBe(sha(text));
+      expect(sha(committed), `${name} differs from a regeneration; run npm run make-data`).toBe(sha(text));
     }
   });
 

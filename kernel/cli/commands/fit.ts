@@ -2,7 +2,7 @@ import { Command, Option } from 'commander';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { fieldTesla, fitMethods, formatWarning, lengthMetres, material as lookupMaterial, particle as lookupParticle, READ_HITS_DEFAULTS } from '../../../lib/index.js';
-import { metresPerUnit, msg, speciesList } from '../../../lib/internal.js';
+import { metresPerUnit, msg, POOR_FIT_PROBABILITY, speciesList } from '../../../lib/internal.js';
 import type { FitJobOptions } from '../../batch/fitJob.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { planOutputs } from '../../batch/outputPlan.js';
@@ -11,7 +11,6 @@ import { wantProgress } from '../../batch/progress.js';
 import { stdoutTarget } from '../../batch/resultSink.js';
 import { runBatch, type BatchTotals } from '../../batch/runBatch.js';
 import { parseShard, type Shard } from '../../batch/shard.js';
-import { POOR_FIT_PROBABILITY } from '../../../lib/internal.js';
 import { usage } from '../usage.js';
 import { parseThreads } from '../threads.js';
 
@@ -98,7 +97,9 @@ length must agree with the range). Columns pid (the species, in the names sagitt
 --particle reads, or undecided), pid_delta_m2lnL (-2 ln L of the runner-up minus the best),
 stops (1 when the last hit lies 2 cm or more inside --volume, or without it when the curvature
 rises significantly along the track) and p_min_GeV_c (least momentum
-that reaches the last hit) follow; p_GeV_c and sigma_p_GeV_c are those of the chosen species. A
+that reaches the last hit), decay_of (the track id of the stopping track this one starts from,
+within 1.5 cm of its last hit: a decay at rest) and decay_distance_m follow; p_GeV_c and
+sigma_p_GeV_c are those of the chosen species. A
 track that does not stop is named only when the margin is at least 9, else undecided. The error
 budget columns are not written then (they need one species).
 
