@@ -63,7 +63,7 @@ const ACCEL_RATIO = 0.75;
  * D. W. Marquardt, SIAM J. Appl. Math. 11 (1963) 431) as in K. Madsen, H. B. Nielsen &
  * O. Tingleff, "Methods for non-linear least squares problems", 2nd ed. (DTU, 2004), Alg. 3.16:
  * steps solve (JᵀJ + μD) δ = −Jᵀr with Marquardt's scaling D = diag(JᵀJ) kept at its running
- * maximum (J. J. Moré, Lecture Notes in Math. 630 (1978) 105), μ follows Nielsen's gain-ratio
+ * maximum (J. J. Moré, Numerical Analysis (Dundee 1977), Springer LNM 630 (1978) 105), μ follows Nielsen's gain-ratio
  * rule. If that run does not converge to a point with a regular JᵀJ, a second run from the same
  * start adds geodesic acceleration (M. K. Transtrum & J. P. Sethna, arXiv:1201.5885), which
  * refuses steps that curve sharply (it rescues BoxBOD from NIST's first start, where plain
