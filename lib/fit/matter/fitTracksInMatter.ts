@@ -1,17 +1,10 @@
 import { msg } from '../../errors.js';
 import { fitTrackInMatter } from './fitTrackInMatter.js';
 import { matterFitScratch } from './matterFitScratch.js';
-import { MATTER_FIT_STATUS, type MatterFitOptions, type MatterFitStatus } from './matterTrackFit.js';
+import { MATTER_FIT_STATUS, type MatterFitOptions, type MatterFitStatus, type MatterTrackHits } from './matterTrackFit.js';
 
-/** Hit columns of many tracks (track k is rows [offsets[k], offsets[k+1]), in travel order), metres. */
-export interface MatterTrackColumnsHits {
-  readonly x: Float64Array;
-  readonly y: Float64Array;
-  readonly z?: Float64Array;
-  readonly sigmaX?: Float64Array;
-  readonly sigmaY?: Float64Array;
-  readonly sigmaZ?: Float64Array;
-}
+/** Hit columns of many tracks (track k is rows [offsets[k], offsets[k+1]), in travel order), metres: the columns of one track's hits. */
+export type MatterTrackColumnsHits = MatterTrackHits;
 
 /**
  * Fits with material of many tracks, struct-of-arrays (one entry per track; see
