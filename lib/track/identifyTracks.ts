@@ -23,6 +23,11 @@ export interface IdentifiedTracks {
   readonly m2lnL: Readonly<Record<string, Float64Array>>;
   /** Hypotheses in column order. */
   readonly species: readonly string[];
+  /**
+   * The species whose fit gave the table's `p_GeV_c` row by row (set by `measureTracks` with
+   * `particle: 'auto'` or a list): the chosen one, or the charged pion for an 'undecided' track.
+   */
+  readonly pSpecies?: readonly string[];
   /** The full result of each track (segments, every hypothesis), for figures. */
   readonly identities: readonly TrackIdentity[];
 }

@@ -10,7 +10,8 @@ import type { TrackTable } from './measureTracks.js';
  * (`particle: 'auto'` or a list): `pid` (the chosen species, or 'undecided'), `pid_delta_m2lnL`
  * (−2 ln L of the runner-up minus the best), `stops` (1 when the track stops inside) and
  * `p_min_GeV_c` (least first-hit momentum that reaches the last hit, the bound for a track that
- * leaves); p and σ(p) are then those of the chosen species; `decay_of` is the track id of the
+ * leaves); p and σ(p) are then those of the chosen species — of the charged pion for an
+ * 'undecided' track (common practice) — and `p_species` names the species they were computed under; `decay_of` is the track id of the
  * stopping track of the same event whose last hit lies within 1.5 cm of this track's first hit
  * (a decay at rest, `linkStopDecays`), empty when none, and `decay_distance_m` that distance.
  */
@@ -49,6 +50,7 @@ export function trackTableColumns(t: TrackTable): ColumnTable {
         { name: 'pid_delta_m2lnL', values: t.identity.deltaM2lnL, digits: 6 },
         { name: 'stops', values: t.identity.stops, digits: 0 },
         { name: 'p_min_GeV_c', values: t.identity.pMinGeV },
+        ...(t.identity.pSpecies ? [{ name: 'p_species', values: t.identity.pSpecies }] : []),
       ] : []),
       ...(t.decays ? [
         { name: 'decay_of', values: Float64Array.from(t.decays.parentRow, (r) => (r >= 0 ? t.track[r] : NaN)), digits: 0 },

@@ -6,6 +6,21 @@ import { expect } from 'vitest';
  * the notebook once and hands the parsed object here. Each check names its published source.
  */
 export const EXAMPLE_CHECKS: Readonly<Record<string, (r: Record<string, number>) => void>> = {
+  // The simulator's truth (notebooks/data/brindlemoor.scenario.json: a 500 MeV/c mixed beam entering
+  // liquid hydrogen at 1.5 T) against what the notebook's text says: more than half the plain-helix
+  // fits are 'poor-fit' and they sit low; the fit with material has most tracks good and no bias
+  // (issue target |median bias| < 0.3 %), and beam pions just below 500 MeV/c with honest errors.
+  '01-brindlemoor-bending.ipynb': (r) => {
+    expect(r.helixPoor).toBeGreaterThan(r.helixOk);
+    expect(r.helixBias).toBeLessThan(-0.02); // seed 20260401: −3.0 %
+    expect(r.matterOk).toBeGreaterThan(1.5 * r.helixOk); // 443 against 238
+    expect(Math.abs(r.matterBias)).toBeLessThan(0.003); // −0.08 %
+    expect(r.beamPions).toBeGreaterThan(100);
+    expect(r.beamPionMedianMeV).toBeGreaterThan(485);
+    expect(r.beamPionMedianMeV).toBeLessThan(500); // 499.8: loss in the upstream wall's first millimetres
+    expect(Math.abs(r.beamPionPullCore - 1)).toBeLessThan(0.15);
+    expect(r.beamPionPullRms).toBeLessThan(1.5); // 1.21: one pion named an antiproton (pull 8.6)
+  },
   // PDG RPP 2022: m(K⁰) = 497.611(13) MeV, m(Λ) = 1115.683(6) MeV, cτ(K⁰_S) = 2.6844 cm. The
   // fitted values must agree within two of their fitted errors (the data are one fixed seed).
   '02-cinderfell-neutral-decays.ipynb': (r) => {

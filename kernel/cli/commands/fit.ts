@@ -99,7 +99,8 @@ stops (1 when the last hit lies 2 cm or more inside --volume, or without it when
 rises significantly along the track) and p_min_GeV_c (least momentum
 that reaches the last hit), decay_of (the track id of the stopping track this one starts from,
 within 1.5 cm of its last hit: a decay at rest) and decay_distance_m follow; p_GeV_c and
-sigma_p_GeV_c are those of the chosen species. A
+sigma_p_GeV_c are those of the chosen species (of the charged pion for an undecided track;
+p_species names the mass used). A
 track that does not stop is named only when the margin is at least 9, else undecided. The error
 budget columns are not written then (they need one species).
 
