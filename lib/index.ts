@@ -21,6 +21,7 @@ export { trackRows } from './table/trackRows.js';
 export { columnTableToDataFrame, formatCsv, rowObjects, type Column, type ColumnTable } from './io/columnTable.js';
 export { HIT_COLUMNS, REQUIRED_HIT_COLUMNS } from './io/hitColumns.js';
 export { type HitTable, type HitTableSource, type TrackIndex } from './io/hitTable.js';
+export { type HitCoordinates } from './io/hitCoordinates.js';
 export { hitsToDataFrame } from './io/hitsToDataFrame.js';
 export { READ_HITS_DEFAULTS, type ReadHitsOptions } from './io/parseHitsCsv.js';
 export { HIT_FILE_FORMATS, readHits } from './io/readHits.js';

@@ -1,3 +1,4 @@
+import type { HitCoordinates } from './hitCoordinates.js';
 import type { IdLabels } from './hitIds.js';
 
 /**
@@ -8,21 +9,11 @@ import type { IdLabels } from './hitIds.js';
  * within a track the rows are in the order the particle travelled (first hit = where it
  * entered or was produced) — the turning sense, and so the charge, is read from that order.
  */
-export interface HitTable {
+export interface HitTable extends HitCoordinates {
   readonly length: number;
   /** Event and track ids: exact whole numbers (codes when beyond 2⁵³ − 1, see source.idLabels). */
   readonly event: Float64Array;
   readonly track: Float64Array;
-  /** Bending-plane coordinates [m]. */
-  readonly x: Float64Array;
-  readonly y: Float64Array;
-  /** Coordinate along the field [m], when measured. */
-  readonly z?: Float64Array;
-  /** Per-hit position error in the bending plane [m] (σ_x = σ_y unless the two are given). */
-  readonly sigmaX?: Float64Array;
-  readonly sigmaY?: Float64Array;
-  /** Per-hit error along z [m]. */
-  readonly sigmaZ?: Float64Array;
   /**
    * Place of each hit along its track in the direction of travel (0 = first), when the file has
    * a `hit_order` column (as `sagitta find` writes): the rows of a track are then taken in this

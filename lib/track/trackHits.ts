@@ -1,19 +1,11 @@
 import { msg } from '../errors.js';
+import type { HitCoordinates } from '../io/hitCoordinates.js';
 import type { TrackTable } from './measureTracks.js';
 
 /** One track's hits in travel order, as views into the track table's hits (do not modify). */
-export interface OneTrackHits {
+export interface OneTrackHits extends HitCoordinates {
   readonly event: number;
   readonly track: number;
-  /** Bending-plane coordinates [m]. */
-  readonly x: Float64Array;
-  readonly y: Float64Array;
-  /** Coordinate along the field [m], when measured. */
-  readonly z?: Float64Array;
-  /** Per-hit errors [m], when the file gave them. */
-  readonly sigmaX?: Float64Array;
-  readonly sigmaY?: Float64Array;
-  readonly sigmaZ?: Float64Array;
   /** Row of each hit in the hit table the track table was measured from. */
   readonly rows: Int32Array;
 }

@@ -6,15 +6,19 @@ import { PION_MINUS, PROTON } from '../../lib/particles.js';
 import { measureTracks, POOR_FIT_PROBABILITY } from '../../lib/track/measureTracks.js';
 import { trackTableColumns } from '../../lib/track/trackTableColumns.js';
 
+/** A simulated sample as a hit table, one event per track. */
+function asHitTable(s: ReturnType<typeof matterSample>): HitTable {
+  const n = s.x.length;
+  const event = new Float64Array(n), track = new Float64Array(n).fill(1);
+  for (let k = 0; k < s.count; k++) event.fill(k + 1, s.offsets[k], s.offsets[k + 1]);
+  return { length: n, event, track, x: s.x, y: s.y, z: s.z, sigmaX: s.sigma, sigmaY: s.sigma, sigmaZ: s.sigma, source: { file: '(memory)', units: {}, ignoredColumns: [] } };
+}
+
 /** Simulated slowing protons in liquid propane (2 T, 5 mm spacing, 200 µm) as a hit table, one event per track. */
 function sample() {
   const med = material('liquid-propane');
   const s = matterSample({ tracks: 120, species: PROTON, momentumGeV: [0.35, 0.8], material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: 40, tanLambda: [-0.2, 0.2], seed: 31 });
-  const n = s.x.length;
-  const event = new Float64Array(n), track = new Float64Array(n).fill(1);
-  for (let k = 0; k < s.count; k++) event.fill(k + 1, s.offsets[k], s.offsets[k + 1]);
-  const hits: HitTable = { length: n, event, track, x: s.x, y: s.y, z: s.z, sigmaX: s.sigma, sigmaY: s.sigma, sigmaZ: s.sigma, source: { file: '(memory)', units: {}, ignoredColumns: [] } };
-  return { s, hits, med };
+  return { s, hits: asHitTable(s), med };
 }
 
 describe('measureTracks with a material (issue 9: p at the first hit from the fit with material)', () => {
@@ -69,10 +73,7 @@ describe('measureTracks with particle: auto — the momentum of an undecided tra
   // whichever mass happened to fit best (that moved the demo's beam pions by +0.5 %).
   const med = material('liquid-hydrogen');
   const s = matterSample({ tracks: 200, species: PION_MINUS, momentumGeV: [0.4, 0.6], material: med, fieldT: 1.5, spacingM: 5e-3, sigmaM: 2e-4, maxHits: 30, tanLambda: [-0.2, 0.2], seed: 47 });
-  const n = s.x.length;
-  const event = new Float64Array(n), track = new Float64Array(n).fill(1);
-  for (let k = 0; k < s.count; k++) event.fill(k + 1, s.offsets[k], s.offsets[k + 1]);
-  const hits: HitTable = { length: n, event, track, x: s.x, y: s.y, z: s.z, sigmaX: s.sigma, sigmaY: s.sigma, sigmaZ: s.sigma, source: { file: '(memory)', units: {}, ignoredColumns: [] } };
+  const hits = asHitTable(s);
   const auto = measureTracks(hits, { fieldT: 1.5, material: med, particle: 'auto' });
   const pion = measureTracks(hits, { fieldT: 1.5, material: med, particle: PION_MINUS });
 

@@ -1,8 +1,8 @@
 import { Command, Option } from 'commander';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { fieldTesla, fitMethods, formatWarning, lengthMetres, material as lookupMaterial, particle as lookupParticle, READ_HITS_DEFAULTS } from '../../../lib/index.js';
-import { metresPerUnit, msg, POOR_FIT_PROBABILITY, speciesList } from '../../../lib/internal.js';
+import { fitMethods, formatWarning, lengthMetres, material as lookupMaterial, particle as lookupParticle, READ_HITS_DEFAULTS } from '../../../lib/index.js';
+import { msg, POOR_FIT_PROBABILITY, speciesList } from '../../../lib/internal.js';
 import type { FitJobOptions } from '../../batch/fitJob.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { planOutputs } from '../../batch/outputPlan.js';
@@ -11,6 +11,7 @@ import { wantProgress } from '../../batch/progress.js';
 import { stdoutTarget } from '../../batch/resultSink.js';
 import { runBatch, type BatchTotals } from '../../batch/runBatch.js';
 import { parseShard, type Shard } from '../../batch/shard.js';
+import { checkHitFileOptions } from '../hitOptions.js';
 import { usage } from '../usage.js';
 import { parseThreads } from '../threads.js';
 
@@ -129,14 +130,7 @@ interface CheckedFit {
 
 /** Every option checked, with the flag named in the message (usage errors, exit 2). */
 function checkOptions(hitsPath: string, o: FitCommandOptions): CheckedFit {
-  const fieldT = fieldTesla(o.field, { what: '--field' });
-  if (fieldT === 0 || !Number.isFinite(fieldT)) throw msg.badArgument('--field', o.field, 'a non-zero finite field, e.g. "1.5 T"');
-  metresPerUnit(o.lengthUnit, { column: '--length-unit' });
-  let hitErrorM: number | undefined;
-  if (o.hitError !== undefined) {
-    hitErrorM = lengthMetres(o.hitError, { what: '--hit-error' });
-    if (!(hitErrorM > 0 && Number.isFinite(hitErrorM))) throw msg.badArgument('--hit-error', o.hitError, 'a positive length, e.g. "200 um"');
-  }
+  const { fieldT, hitErrorM } = checkHitFileOptions(o);
   const chargeMagnitude = /^\s*\d+(\.\d+)?\s*$/.test(o.chargeNumber) ? Number(o.chargeNumber) : NaN;
   if (!(chargeMagnitude > 0 && chargeMagnitude <= 200)) throw msg.badArgument('--charge-number', o.chargeNumber, 'a positive number such as 1 or 2');
   if (o.material !== undefined) lookupMaterial(o.material);

@@ -1,8 +1,8 @@
 import { Command, Option } from 'commander';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { angleRad, fieldTesla, fitMethods, formatWarning, lengthMetres, material as lookupMaterial, pointMetres, READ_HITS_DEFAULTS, V0_FINDER_DEFAULTS } from '../../../lib/index.js';
-import { metresPerUnit, msg } from '../../../lib/internal.js';
+import { angleRad, fitMethods, formatWarning, lengthMetres, material as lookupMaterial, pointMetres, READ_HITS_DEFAULTS, V0_FINDER_DEFAULTS } from '../../../lib/index.js';
+import { msg } from '../../../lib/internal.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { planOutputs } from '../../batch/outputPlan.js';
 import { OutputSet } from '../../batch/outputSet.js';
@@ -11,6 +11,7 @@ import { stdoutTarget } from '../../batch/resultSink.js';
 import { runBatch, type BatchTotals } from '../../batch/runBatch.js';
 import type { VerticesJobOptions } from '../../batch/verticesJob.js';
 import { parseThreads } from '../threads.js';
+import { checkHitFileOptions } from '../hitOptions.js';
 import { usage } from '../usage.js';
 
 export interface VerticesCommandOptions {
@@ -80,14 +81,7 @@ ${VERTICES_EXAMPLES.map((e) => `  ${e}`).join('\n')}`)
 }
 
 function checkOptions(o: VerticesCommandOptions): { job: VerticesJobOptions; threads?: number; format: 'csv' | 'jsonl' | 'json' | 'parquet' } {
-  const fieldT = fieldTesla(o.field, { what: '--field' });
-  if (fieldT === 0 || !Number.isFinite(fieldT)) throw msg.badArgument('--field', o.field, 'a non-zero finite field, e.g. "1.5 T"');
-  metresPerUnit(o.lengthUnit, { column: '--length-unit' });
-  let hitErrorM: number | undefined;
-  if (o.hitError !== undefined) {
-    hitErrorM = lengthMetres(o.hitError, { what: '--hit-error' });
-    if (!(hitErrorM > 0 && Number.isFinite(hitErrorM))) throw msg.badArgument('--hit-error', o.hitError, 'a positive length, e.g. "200 um"');
-  }
+  const { fieldT, hitErrorM } = checkHitFileOptions(o);
   if (o.material !== undefined) lookupMaterial(o.material);
   const positive = (text: string | undefined, what: string, read: (t: string) => number): number | undefined => {
     if (text === undefined) return undefined;

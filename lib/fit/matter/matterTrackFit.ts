@@ -1,19 +1,12 @@
+import type { HitCoordinates } from '../../io/hitCoordinates.js';
 import type { Material } from '../../matter/materials.js';
 import type { Particle } from '../../particles.js';
 
 /**
- * One track's hits in travel order, lengths in metres — the shape of a notebook's `trackHits`
- * result (declared here so lib/fit needs nothing from lib/track).
+ * One track's hits in travel order, lengths in metres (a notebook's `trackHits` result is one);
+ * without z only the bending plane is fitted (tan λ = 0 assumed).
  */
-export interface MatterTrackHits {
-  readonly x: Float64Array;
-  readonly y: Float64Array;
-  /** Coordinate along the field; without it only the bending plane is fitted (tan λ = 0 assumed). */
-  readonly z?: Float64Array;
-  readonly sigmaX?: Float64Array;
-  readonly sigmaY?: Float64Array;
-  readonly sigmaZ?: Float64Array;
-}
+export type MatterTrackHits = HitCoordinates;
 
 export interface MatterFitOptions {
   /** B_z [T], signed along +z. Required, non-zero. */
