@@ -18,8 +18,8 @@ export interface MatterFitScratch {
   /** Backward-filtered (u, ψ, δκ) + upper 3×3 cov (6) and (z, t) + cov (3) per hit. */
   bs: Float64Array; bz: Float64Array;
   residual: Float64Array; residualZ: Float64Array;
-  /** Small fixed buffers: the current propagation state and the step accumulators. */
-  cur: Float64Array; stepF: Float64Array; stepQ: Float64Array; stepQz: Float64Array; tmp: Float64Array;
+  /** Small fixed buffers: the current propagation state and scratch numbers. */
+  cur: Float64Array; tmp: Float64Array;
   /** Filter outputs: state (3) + cov (9) bending, state (2) + cov (4) z, at the first and last hit. */
   firstB: Float64Array; firstZ: Float64Array; lastB: Float64Array; lastZ: Float64Array;
 }
@@ -32,7 +32,7 @@ export function matterFitScratch(capacity: number): MatterFitScratch {
     x: f(1), y: f(1), phi: f(1), kappa: f(1), z: f(1), range: f(1), p: f(1), ds: f(1), path: f(1),
     F: f(9), Q: f(9), Qz: f(3), mr: f(1), mv: f(1), zr: f(1), zv: f(1), bs: f(9), bz: f(5),
     residual: f(1), residualZ: f(1),
-    cur: new Float64Array(12), stepF: new Float64Array(9), stepQ: new Float64Array(9), stepQz: new Float64Array(3), tmp: new Float64Array(16),
+    cur: new Float64Array(14), tmp: new Float64Array(16),
     firstB: new Float64Array(12), firstZ: new Float64Array(6), lastB: new Float64Array(12), lastZ: new Float64Array(6),
   };
 }

@@ -1,5 +1,5 @@
 import { GEV_PER_TESLA_METRE } from '../../constants.js';
-import { kineticAndStoppingAtRange, rangeAtKinetic, type LossModel } from './lossModel.js';
+import { highlandLogThickness, highlandPathTerm, kineticAndStoppingAtRange, rangeAtKinetic, type LossModel } from './lossModel.js';
 import type { MatterFitScratch } from './matterFitScratch.js';
 import type { MatterTrackHits } from './matterTrackFit.js';
 
@@ -66,12 +66,16 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
     }
   }
   cur[8] = start[4]; cur[9] = 0; cur[10] = Math.cos(start[2]); cur[11] = Math.sin(start[2]);
+  cur[12] = 0; cur[13] = -1; // ln of the clamped x/X₀ at path cur[13] (none yet)
   sc.tmp[8] = tanL; sc.tmp[9] = secL; sc.tmp[10] = cK; sc.tmp[11] = sgn;
   storeHit(sc, 0, hits, set);
   sc.ds[0] = 0;
   for (let i = 1; i < n; i++) {
-    const F = sc.stepF, Q = sc.stepQ, Qz = sc.stepQz;
-    F.fill(0); F[0] = 1; F[4] = 1; F[8] = 1; Q.fill(0); Qz.fill(0);
+    // This hit step's Jacobian and noise accumulate in place: F = 1, Q = 0 to start.
+    const o = 9 * i, oz = 3 * i, F = sc.F, Q = sc.Q, Qz = sc.Qz;
+    F[o] = 1; F[o + 1] = 0; F[o + 2] = 0; F[o + 3] = 0; F[o + 4] = 1; F[o + 5] = 0; F[o + 6] = 0; F[o + 7] = 0; F[o + 8] = 1;
+    for (let k = 0; k < 9; k++) Q[o + k] = 0;
+    Qz[oz] = 0; Qz[oz + 1] = 0; Qz[oz + 2] = 0;
     let dsTotal = 0;
     for (let it = 0; it < 8; it++) {
       // Arc to the point of the current circle closest to the hit: angle atan2(κ·a, 1 − κ·b) with
@@ -93,16 +97,13 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
           const rangeLimit = (MAX_RANGE_FRACTION * cur[4] * cosL) / model.gcm2PerM;
           if (ds > rangeLimit && remaining > rangeLimit * 1.0001) ds = rangeLimit;
         }
-        if (!step(model, set, sc, ds)) return REFERENCE_DIVERGED;
+        if (!step(model, set, sc, ds, o, oz)) return REFERENCE_DIVERGED;
         dsTotal += ds;
         remaining = Math.abs(remaining - ds) < 1e-15 ? 0 : remaining - ds;
       }
     }
     if (!Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3])) return REFERENCE_DIVERGED;
     sc.ds[i] = dsTotal;
-    const o = 9 * i;
-    for (let k = 0; k < 9; k++) { sc.F[o + k] = F[k]; sc.Q[o + k] = Q[k]; }
-    sc.Qz[3 * i] = Qz[0]; sc.Qz[3 * i + 1] = Qz[1]; sc.Qz[3 * i + 2] = Qz[2];
     storeHit(sc, i, hits, set);
   }
   return REFERENCE_OK;
@@ -111,7 +112,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
 function storeHit(sc: MatterFitScratch, i: number, hits: MatterTrackHits, set: ReferenceSettings): void {
   const cur = sc.cur;
   // Direction cosines are carried by rotation in `step`; renormalised once per hit.
-  const norm = 1 / Math.hypot(cur[10], cur[11]);
+  const norm = 1 / Math.sqrt(cur[10] * cur[10] + cur[11] * cur[11]);
   cur[10] *= norm; cur[11] *= norm;
   const c = cur[10], s = cur[11];
   sc.x[i] = cur[0]; sc.y[i] = cur[1]; sc.phi[i] = cur[2]; sc.kappa[i] = cur[3];
@@ -129,11 +130,12 @@ function storeHit(sc: MatterFitScratch, i: number, hits: MatterTrackHits, set: R
 
 /**
  * One arc of transverse length ds [m] (negative: backwards) from the current state (cur: x, y,
- * φ, κ, residual range, T, S, p, z, path, cos φ, sin φ; geometry in tmp[8..11]: tan λ, sec λ,
- * |κ|·p, sign of κ); updates
- * the state and the step's Jacobian and noise. False when the state became non-finite.
+ * φ, κ, residual range, T, S, p, z, path, cos φ, sin φ, ln x̃/X₀ at path cur[13]; geometry in
+ * tmp[8..11]: tan λ, sec λ, |κ|·p, sign of κ); updates the state and the hit step's Jacobian
+ * and noise accumulated at sc.F/sc.Q[o..o+8], sc.Qz[oz..oz+2]. False when the state became
+ * non-finite.
  */
-function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds: number): boolean {
+function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds: number, o: number, oz: number): boolean {
   const cur = sc.cur, tmp = sc.tmp;
   const tanL = tmp[8], secL = tmp[9], cK = tmp[10], sgn = tmp[11];
   const l = ds * secL;
@@ -174,21 +176,22 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
   cur[2] = phi + a;
   cur[10] = cphi * ca - sphi * sa; cur[11] = sphi * ca + cphi * sa;
   cur[8] += ds * tanL;
+  const before = cur[9];
   cur[9] += Math.abs(l);
   // Jacobian of this arc: [[c, s/κ, (1−c)/κ²·ḡ], [−κ s, c, s/κ·ḡ], [0, 0, g]], ḡ = (1+g)/2.
   const gm = 0.5 * (1 + g);
   const f00 = ca, f01 = sOverK, f02 = oneMinusCOverK2 * gm;
   const f10 = -kapM * sa, f11 = ca, f12 = sOverK * gm;
-  const F = sc.stepF, Q = sc.stepQ;
+  const F = sc.F, Q = sc.Q;
   // F ← Fs·F (F's last row is [0, 0, G]).
-  for (let c = 0; c < 3; c++) {
+  for (let c = o; c < o + 3; c++) {
     const a0 = F[c], a1 = F[3 + c], a2 = F[6 + c];
     F[c] = f00 * a0 + f01 * a1 + f02 * a2;
     F[3 + c] = f10 * a0 + f11 * a1 + f12 * a2;
     F[6 + c] = g * a2;
   }
   // Q ← Fs·Q·Fsᵀ + Qs.
-  const q00 = Q[0], q01 = Q[1], q02 = Q[2], q11 = Q[4], q12 = Q[5], q22 = Q[8];
+  const q00 = Q[o], q01 = Q[o + 1], q02 = Q[o + 2], q11 = Q[o + 4], q12 = Q[o + 5], q22 = Q[o + 8];
   const r00 = f00 * q00 + f01 * q01 + f02 * q02, r01 = f00 * q01 + f01 * q11 + f02 * q12, r02 = f00 * q02 + f01 * q12 + f02 * q22;
   const r10 = f10 * q00 + f11 * q01 + f12 * q02, r11 = f10 * q01 + f11 * q11 + f12 * q12, r12 = f10 * q02 + f11 * q12 + f12 * q22;
   let n00 = r00 * f00 + r01 * f01 + r02 * f02;
@@ -196,17 +199,24 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
   let n11 = r10 * f10 + r11 * f11 + r12 * f12;
   const n02 = r02 * g, n12 = r12 * g;
   let n22 = g * g * q22;
-  const Qz = sc.stepQz;
+  const Qz = sc.Qz;
   // (z, t) propagation [[1, ds], [0, 1]].
-  let z00 = Qz[0] + 2 * ds * Qz[1] + ds * ds * Qz[2];
-  let z01 = Qz[1] + ds * Qz[2];
-  let z11 = Qz[2];
+  let z00 = Qz[oz] + 2 * ds * Qz[oz + 1] + ds * ds * Qz[oz + 2];
+  let z01 = Qz[oz + 1] + ds * Qz[oz + 2];
+  let z11 = Qz[oz + 2];
   const al = Math.abs(l);
   if (set.multipleScattering && al > 0) {
+    // Highland θ₀² increment over this step after the path before it (lossModel.highlandPathTerm).
     const pM = 0.5 * (pS + pE);
-    const beta = pM / Math.sqrt(pM * pM + (m / 1000) * (m / 1000));
-    const th = model.theta0Rad(pM, beta, al, cur[9] - al);
-    const t2 = th * th;
+    const pM2 = pM * pM, beta2 = pM2 / (pM2 + (m / 1000) * (m / 1000));
+    const lnZB = model.lnChargeSq - Math.log(beta2);
+    const x0 = model.radiationLengthM;
+    const tB = before / x0, tA = cur[9] / x0;
+    const lnA = highlandLogThickness(tA);
+    const termB = before > 0 ? highlandPathTerm(tB, cur[13] === before ? cur[12] : highlandLogThickness(tB), lnZB) : 0;
+    const c0 = (0.0136 * model.chargeAbs) / pM;
+    const t2 = Math.max(0, ((c0 * c0) / beta2) * (highlandPathTerm(tA, lnA, lnZB) - termB));
+    cur[12] = lnA; cur[13] = cur[9];
     n00 += (t2 * al * al) / 3; n01 += (t2 * al * secL) / 2; n11 += t2 * secL * secL;
     z00 += (t2 * al * al * secL * secL) / 3; z01 += (t2 * al * secL * secL * secL) / 2; z11 += t2 * secL * secL * secL * secL;
   }
@@ -215,7 +225,7 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
     const dk = kapE / (pm * beta);
     n22 += dk * dk * model.stragglingMeV2PerM * al;
   }
-  Q[0] = n00; Q[1] = n01; Q[2] = n02; Q[3] = n01; Q[4] = n11; Q[5] = n12; Q[6] = n02; Q[7] = n12; Q[8] = n22;
-  Qz[0] = z00; Qz[1] = z01; Qz[2] = z11;
+  Q[o] = n00; Q[o + 1] = n01; Q[o + 2] = n02; Q[o + 3] = n01; Q[o + 4] = n11; Q[o + 5] = n12; Q[o + 6] = n02; Q[o + 7] = n12; Q[o + 8] = n22;
+  Qz[oz] = z00; Qz[oz + 1] = z01; Qz[oz + 2] = z11;
   return Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3]);
 }
