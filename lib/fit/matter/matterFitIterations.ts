@@ -32,6 +32,12 @@ const PROFILE_SPACINGS = 5;
  * so what is left is of second order: ≲ 1 % of σ).
  */
 const CONVERGED_SIGMAS = 0.1;
+/**
+ * A track that uses less than this fraction of its residual range between its first and last
+ * hit moves its curvature linearly in κ (its curvature barely changes, so the problem is nearly
+ * linear in κ); one that uses more moves linearly in the residual range (see `moveStart`).
+ */
+const LOSS_FRACTION_RANGE_MOVE = 0.3;
 /** Halvings of a step that overshot (the hypothesis stopped short) before giving up. */
 const MAX_HALVINGS = 8;
 
@@ -82,7 +88,7 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     converged = small(b[0], b[3]) && small(b[1], b[7]) && small(b[2], b[11]) && (!hasZ || (small(zb[0], zb[2]) && small(zb[1], zb[5])));
     if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
     if (converged) break;
-    goodRange = sc.range[0];
+    goodRange = sc.range[0] - sc.range[n - 1] < LOSS_FRACTION_RANGE_MOVE * sc.range[0] ? Infinity : sc.range[0];
     moveStart(model, set, sc, start, good, delta, 1, goodRange);
   }
   if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
@@ -122,7 +128,8 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
 }
 
 /**
- * start = good + λ·delta, except the curvature with energy loss: its change is made linear in
+ * start = good + λ·delta, except the curvature of a track that slows appreciably over its hits
+ * (`goodRange` finite: see LOSS_FRACTION_RANGE_MOVE): its change is made linear in
  * the residual range at the first hit (δR = dR/dκ·δκ), in which the track's end is nearly
  * linear — so a stopping track converges from either side instead of creeping up to the
  * stopping point; a move to R ≤ 0 becomes a momentum too low to reach anything (halved again).
