@@ -9,8 +9,8 @@ import type { MatterFitScratch } from './matterFitScratch.js';
  * ψ, δκ, z, tan λ), so at convergence (deviations → 0) the prior pulls nowhere.
  * - `backwardPass` runs from the last hit to the first: its filtered state at the first hit uses
  *   every hit (it equals the smoothed state there), and it keeps the filtered state at each hit.
- * - `forwardPass` runs from the first hit to the last (the smoothed state at the last hit) and,
- *   combining at each hit its prediction with the backward pass's filtered state (two-filter
+ * - `forwardPass` runs from the first hit to the last (the smoothed state at the last hit) and
+ *   (with `residuals`), combining at each hit its prediction with the backward pass's filtered state (two-filter
  *   smoother, equivalent to Rauch–Tung–Striebel; Fraser & Potter, IEEE TAC 14 (1969) 387), gives
  *   the smoothed residuals.
  * Each returns the χ² of its predicted residuals (the fit χ² of the linear problem); the
@@ -75,7 +75,7 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
   return chi2;
 }
 
-export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array): number {
+export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, residuals: boolean): number {
   let x0 = 0, x1 = 0, x2 = 0;
   let c00 = prior[0], c01 = 0, c02 = 0, c11 = prior[1], c12 = 0, c22 = prior[2];
   let z0 = 0, z1 = 0, d00 = prior[3], d01 = 0, d11 = prior[4];
@@ -103,27 +103,31 @@ export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prio
         d11 = d11 + sc.Qz[qz + 2];
       }
     }
-    // Smoothed residual: prediction (without hit i) combined with the backward filtered state (with it).
-    const b = 9 * i, bs = sc.bs;
-    const e0 = bs[b] - x0, e1 = bs[b + 1] - x1, e2 = bs[b + 2] - x2;
-    const s00 = c00 + bs[b + 3], s01 = c01 + bs[b + 4], s02 = c02 + bs[b + 5], s11 = c11 + bs[b + 6], s12 = c12 + bs[b + 7], s22 = c22 + bs[b + 8];
-    const w00 = s11 * s22 - s12 * s12, w01 = s02 * s12 - s01 * s22, w02 = s01 * s12 - s02 * s11;
-    const det = s00 * w00 + s01 * w01 + s02 * w02;
-    const w11 = s00 * s22 - s02 * s02, w12 = s01 * s02 - s00 * s12, w22 = s00 * s11 - s01 * s01;
-    const v0 = (w00 * e0 + w01 * e1 + w02 * e2) / det, v1 = (w01 * e0 + w11 * e1 + w12 * e2) / det, v2 = (w02 * e0 + w12 * e1 + w22 * e2) / det;
-    sc.residual[i] = sc.mr[i] - (x0 + c00 * v0 + c01 * v1 + c02 * v2);
+    if (residuals) {
+      // Smoothed residual: prediction (without hit i) combined with the backward filtered state (with it).
+      const b = 9 * i, bs = sc.bs;
+      const e0 = bs[b] - x0, e1 = bs[b + 1] - x1, e2 = bs[b + 2] - x2;
+      const s00 = c00 + bs[b + 3], s01 = c01 + bs[b + 4], s02 = c02 + bs[b + 5], s11 = c11 + bs[b + 6], s12 = c12 + bs[b + 7], s22 = c22 + bs[b + 8];
+      const w00 = s11 * s22 - s12 * s12, w01 = s02 * s12 - s01 * s22, w02 = s01 * s12 - s02 * s11;
+      const det = s00 * w00 + s01 * w01 + s02 * w02;
+      const w11 = s00 * s22 - s02 * s02, w12 = s01 * s02 - s00 * s12, w22 = s00 * s11 - s01 * s01;
+      const v0 = (w00 * e0 + w01 * e1 + w02 * e2) / det, v1 = (w01 * e0 + w11 * e1 + w12 * e2) / det, v2 = (w02 * e0 + w12 * e1 + w22 * e2) / det;
+      sc.residual[i] = sc.mr[i] - (x0 + c00 * v0 + c01 * v1 + c02 * v2);
+    }
     const r = sc.mr[i] - x0, sv = c00 + sc.mv[i];
     chi2 += (r * r) / sv;
     const k0 = c00 / sv, k1 = c01 / sv, k2 = c02 / sv;
     x0 += k0 * r; x1 += k1 * r; x2 += k2 * r;
     c22 -= k2 * c02; c12 -= k1 * c02; c11 -= k1 * c01; c02 -= k0 * c02; c01 -= k0 * c01; c00 -= k0 * c00;
     if (hasZ) {
-      const bz = sc.bz, q = 5 * i;
-      const f0 = bz[q] - z0, f1 = bz[q + 1] - z1;
-      const t00 = d00 + bz[q + 2], t01 = d01 + bz[q + 3], t11 = d11 + bz[q + 4];
-      const dt = t00 * t11 - t01 * t01;
-      const u0 = (t11 * f0 - t01 * f1) / dt, u1 = (t00 * f1 - t01 * f0) / dt;
-      sc.residualZ[i] = sc.zr[i] - (z0 + d00 * u0 + d01 * u1);
+      if (residuals) {
+        const bz = sc.bz, q = 5 * i;
+        const f0 = bz[q] - z0, f1 = bz[q + 1] - z1;
+        const t00 = d00 + bz[q + 2], t01 = d01 + bz[q + 3], t11 = d11 + bz[q + 4];
+        const dt = t00 * t11 - t01 * t01;
+        const u0 = (t11 * f0 - t01 * f1) / dt, u1 = (t00 * f1 - t01 * f0) / dt;
+        sc.residualZ[i] = sc.zr[i] - (z0 + d00 * u0 + d01 * u1);
+      }
       const rz = sc.zr[i] - z0, svz = d00 + sc.zv[i];
       chi2 += (rz * rz) / svz;
       const kz0 = d00 / svz, kz1 = d01 / svz;
@@ -136,8 +140,11 @@ export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prio
 }
 
 /** State (3) + full 3×3 cov, state (2) + full 2×2 cov. */
-function writeEnd(b: Float64Array, z: Float64Array, ...v: number[]): void {
-  b[0] = v[0]; b[1] = v[1]; b[2] = v[2];
-  b[3] = v[3]; b[4] = v[4]; b[5] = v[5]; b[6] = v[4]; b[7] = v[6]; b[8] = v[7]; b[9] = v[5]; b[10] = v[7]; b[11] = v[8];
-  z[0] = v[9]; z[1] = v[10]; z[2] = v[11]; z[3] = v[12]; z[4] = v[12]; z[5] = v[13];
+function writeEnd(
+  b: Float64Array, z: Float64Array, x0: number, x1: number, x2: number, c00: number, c01: number, c02: number, c11: number, c12: number, c22: number,
+  z0: number, z1: number, d00: number, d01: number, d11: number,
+): void {
+  b[0] = x0; b[1] = x1; b[2] = x2;
+  b[3] = c00; b[4] = c01; b[5] = c02; b[6] = c01; b[7] = c11; b[8] = c12; b[9] = c02; b[10] = c12; b[11] = c22;
+  z[0] = z0; z[1] = z1; z[2] = d00; z[3] = d01; z[4] = d01; z[5] = d11;
 }

@@ -1,7 +1,12 @@
+import { chi2Survival } from '../../analysis/chi2Survival.js';
 import { msg } from '../../errors.js';
-import { fitTrackInMatter } from './fitTrackInMatter.js';
+import { lossModel } from './lossModel.js';
+import { END_KAPPA, END_P, END_PT, END_SIGMA_KAPPA, END_SIGMA_P, END_X, END_Y, END_Z, endState, fitIntoScratch, inputsFinite, matterFitSettings } from './matterFitCore.js';
 import { matterFitScratch } from './matterFitScratch.js';
-import { MATTER_FIT_STATUS, type MatterFitOptions, type MatterFitStatus, type MatterTrackHits } from './matterTrackFit.js';
+import {
+  MATTER_FIT_MIN_HITS, MATTER_FIT_MIN_PROBABILITY, MATTER_FIT_STATUS,
+  type MatterFitOptions, type MatterFitStatus, type MatterTrackHits,
+} from './matterTrackFit.js';
 
 /** Hit columns of many tracks (track k is rows [offsets[k], offsets[k+1]), in travel order), metres: the columns of one track's hits. */
 export type MatterTrackColumnsHits = MatterTrackHits;
@@ -44,12 +49,17 @@ export interface MatterFitColumns {
 
 /**
  * `fitTrackInMatter` for every track of a columnar hit table, with one scratch for all tracks
- * (the batch path of `measureTracks` and `sagitta fit`). Same options, validity and sources.
+ * (the batch path of `measureTracks` and `sagitta fit`). Same options, validity, sources and
+ * numbers (the same core, `fitIntoScratch`); the per-hit residuals are not kept, and nothing is
+ * allocated per track but the hit views.
  * @example fitTracksInMatter(hits, offsets, { fieldT: 2, medium: material('liquid-propane'), particle: PROTON, hitErrorM: 2e-4 }).pGeV
  */
 export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Array, options: MatterFitOptions): MatterFitColumns {
   const count = offsets.length - 1;
   if (count < 0 || offsets[count] > hits.x.length) throw msg.badArgument('offsets', offsets.length, 'track offsets into the hit columns (count + 1 entries)');
+  const set = matterFitSettings(options);
+  if (hits.sigmaX === undefined && options.hitErrorM === undefined) throw msg.badArgument('hitErrorM', undefined, 'a hit error in metres (the hits carry no sigma columns)');
+  const model = lossModel(options.medium, options.particle);
   const f = () => new Float64Array(count);
   const out = {
     count, particle: options.particle.name, status: new Uint8Array(count),
@@ -61,24 +71,55 @@ export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Ar
   const counts = Object.fromEntries(MATTER_FIT_STATUS.map((s) => [s, 0])) as Record<MatterFitStatus, number>;
   let longest = 0;
   for (let k = 0; k < count; k++) longest = Math.max(longest, offsets[k + 1] - offsets[k]);
-  const scratch = matterFitScratch(longest);
-  const view = (c: Float64Array | undefined, a: number, b: number) => c?.subarray(a, b);
+  const sc = matterFitScratch(longest);
+  const scalars = new Float64Array(9);
+  const firstOut = { state: out.firstState, so: 0, cov: out.firstCov, co: 0, scalars };
+  const lastOut = { state: new Float64Array(5), so: 0, cov: new Float64Array(25), co: 0, scalars };
+  const hit = { n: 0, last: false, tanLambda: 0, hasZ: hits.z !== undefined };
   for (let k = 0; k < count; k++) {
-    const a = offsets[k], b = offsets[k + 1];
-    const r = fitTrackInMatter({
-      x: hits.x.subarray(a, b), y: hits.y.subarray(a, b), z: view(hits.z, a, b),
-      sigmaX: view(hits.sigmaX, a, b), sigmaY: view(hits.sigmaY, a, b), sigmaZ: view(hits.sigmaZ, a, b),
-    }, options, scratch);
-    out.status[k] = MATTER_FIT_STATUS.indexOf(r.status);
-    counts[r.status]++;
-    const s = r.first;
-    out.pGeV[k] = s.pGeV; out.sigmaPGeV[k] = s.sigmaPGeV; out.ptGeV[k] = s.ptGeV; out.kappa[k] = s.kappa; out.sigmaKappa[k] = s.sigmaKappa;
-    out.phi[k] = s.state[0]; out.tanLambda[k] = s.state[1]; out.xM[k] = s.xM; out.yM[k] = s.yM; out.zM[k] = s.zM;
-    out.pLastGeV[k] = r.last.pGeV; out.sigmaPLastGeV[k] = r.last.sigmaPGeV; out.charge[k] = r.charge;
-    out.chi2[k] = r.chi2; out.ndf[k] = r.ndf; out.pValue[k] = r.pValue; out.pathLengthM[k] = r.pathLengthM;
-    out.residualRangeM[k] = r.residualRangeM; out.reachedHits[k] = r.reachedHits; out.stopsBeforeNextHit[k] = r.stopsBeforeNextHit ? 1 : 0;
-    out.iterations[k] = r.iterations;
-    out.firstState.set(s.state, 5 * k); out.firstCov.set(s.cov, 25 * k);
+    const a = offsets[k], b = offsets[k + 1], n = b - a;
+    const h: MatterTrackHits = {
+      x: hits.x.subarray(a, b), y: hits.y.subarray(a, b), z: hits.z?.subarray(a, b),
+      sigmaX: hits.sigmaX?.subarray(a, b), sigmaY: hits.sigmaY?.subarray(a, b), sigmaZ: hits.sigmaZ?.subarray(a, b),
+    };
+    const status = fitOne(h, n, k);
+    out.status[k] = MATTER_FIT_STATUS.indexOf(status);
+    counts[status]++;
   }
   return Object.freeze({ ...out, statusCounts: Object.freeze(counts) });
+
+  function fitOne(h: MatterTrackHits, n: number, k: number): MatterFitStatus {
+    if (n < MATTER_FIT_MIN_HITS) return failed(k, 'too-few-hits', 0);
+    if (!inputsFinite(h, set.hitErrorM)) return failed(k, 'bad-input', 0);
+    const run = fitIntoScratch(model, h, set, sc, false);
+    if (run.status !== 'ok') return failed(k, run.status, run.reachedHits);
+    hit.n = n; hit.tanLambda = run.tanLambda;
+    hit.last = true;
+    endState(sc, model, options.fieldT, hit, lastOut);
+    out.pLastGeV[k] = scalars[END_P]; out.sigmaPLastGeV[k] = scalars[END_SIGMA_P];
+    hit.last = false; firstOut.so = 5 * k; firstOut.co = 25 * k;
+    endState(sc, model, options.fieldT, hit, firstOut);
+    out.pGeV[k] = scalars[END_P]; out.sigmaPGeV[k] = scalars[END_SIGMA_P]; out.ptGeV[k] = scalars[END_PT];
+    out.kappa[k] = scalars[END_KAPPA]; out.sigmaKappa[k] = scalars[END_SIGMA_KAPPA];
+    out.phi[k] = out.firstState[5 * k]; out.tanLambda[k] = out.firstState[5 * k + 1];
+    out.xM[k] = scalars[END_X]; out.yM[k] = scalars[END_Y]; out.zM[k] = scalars[END_Z];
+    out.charge[k] = -Math.sign(scalars[END_KAPPA]) * Math.sign(options.fieldT) * model.chargeAbs;
+    const ndf = n - 3 + (hit.hasZ ? n - 2 : 0), pValue = chi2Survival(run.chi2, ndf);
+    const path = sc.path[n - 1], residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
+    out.chi2[k] = run.chi2; out.ndf[k] = ndf; out.pValue[k] = pValue; out.pathLengthM[k] = path;
+    out.residualRangeM[k] = residualRangeM; out.reachedHits[k] = n; out.stopsBeforeNextHit[k] = residualRangeM < path / (n - 1) ? 1 : 0;
+    out.iterations[k] = run.iterations;
+    return pValue < MATTER_FIT_MIN_PROBABILITY ? 'poor-fit' : 'ok';
+  }
+
+  /** A track not fitted: NaN numbers (as `fitTrackInMatter` gives), the hits reached. */
+  function failed(k: number, status: MatterFitStatus, reached: number): MatterFitStatus {
+    out.pGeV[k] = NaN; out.sigmaPGeV[k] = NaN; out.ptGeV[k] = NaN; out.kappa[k] = NaN; out.sigmaKappa[k] = NaN;
+    out.phi[k] = NaN; out.tanLambda[k] = NaN; out.xM[k] = NaN; out.yM[k] = NaN; out.zM[k] = NaN;
+    out.pLastGeV[k] = NaN; out.sigmaPLastGeV[k] = NaN; out.charge[k] = NaN; out.chi2[k] = NaN; out.ndf[k] = 0; out.pValue[k] = NaN;
+    out.pathLengthM[k] = NaN; out.residualRangeM[k] = NaN; out.reachedHits[k] = reached; out.stopsBeforeNextHit[k] = status === 'cannot-reach' ? 1 : 0;
+    out.iterations[k] = 0;
+    out.firstState.fill(NaN, 5 * k, 5 * k + 5); out.firstCov.fill(NaN, 25 * k, 25 * k + 25);
+    return status;
+  }
 }

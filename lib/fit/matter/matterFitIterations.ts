@@ -45,14 +45,15 @@ const MAX_HALVINGS = 8;
  * Gauss–Newton on the first-hit state: seed, then per iteration build the reference and run the
  * backward filter; move the start by the filtered deviation, halving the move when the new
  * start cannot reach every hit or raises χ² (by more than max(2, 2 %)); stop when every component moved by < 1 % of its error. Then one
- * forward pass on the last reference for the last-hit state and the smoothed residuals.
+ * forward pass on the last reference for the last-hit state and (`withResiduals`) the smoothed
+ * residuals.
  */
-export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, set: ReferenceSettings, sc: MatterFitScratch, maxIterations: number): MatterFitRun {
+export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, set: ReferenceSettings, sc: MatterFitScratch, maxIterations: number, withResiduals: boolean): MatterFitRun {
   const n = hits.x.length;
   const hasZ = hits.z !== undefined;
-  const start = new Float64Array(6), good = new Float64Array(6), delta = new Float64Array(6);
+  const start = sc.start, good = sc.good, delta = sc.delta;
   if (!seedState(hits, model, set.fieldT, set.energyLoss, start)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
-  const prior = new Float64Array(5);
+  const prior = sc.prior;
   let goodChi2 = Infinity, lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
   while (iterations < maxIterations && tries < maxIterations + 3 * MAX_HALVINGS) {
     tries++;
@@ -84,7 +85,6 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     const nx = -Math.sin(good[2]), ny = Math.cos(good[2]);
     delta[0] = b[0] * nx; delta[1] = b[0] * ny; delta[2] = b[1]; delta[3] = b[2];
     delta[4] = hasZ ? zb[0] : 0; delta[5] = hasZ ? zb[1] : 0;
-    const small = (d: number, v: number) => d * d <= CONVERGED_SIGMAS * CONVERGED_SIGMAS * v;
     converged = small(b[0], b[3]) && small(b[1], b[7]) && small(b[2], b[11]) && (!hasZ || (small(zb[0], zb[2]) && small(zb[1], zb[5])));
     if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
     if (converged) break;
@@ -106,7 +106,8 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
   let extraRangeVariance = 0, profiled = false;
   const spacingGcm2 = (sc.path[n - 1] / (n - 1)) * model.gcm2PerM;
   if (set.energyLoss && sc.range[n - 1] < PROFILE_SPACINGS * spacingGcm2) {
-    const b = sc.firstB, est = Float64Array.from(good);
+    const b = sc.firstB, est = sc.est;
+    est.set(good);
     est[0] += delta[0]; est[1] += delta[1]; est[2] += b[1] * (converged ? 1 : 0); est[3] += b[2] * (converged ? 1 : 0);
     const t = good[5], sec = Math.sqrt(1 + t * t);
     const sigmaLinK = Math.sqrt(sc.firstB[11]);
@@ -123,8 +124,13 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     chi2 = backwardPass(sc, n, hasZ, prior);
     if (!converged) { sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0; }
   }
-  forwardPass(sc, n, hasZ, prior);
+  forwardPass(sc, n, hasZ, prior, withResiduals);
   return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5], extraRangeVariance, profiled };
+}
+
+/** Whether a change d is small against its variance v (CONVERGED_SIGMAS). */
+function small(d: number, v: number): boolean {
+  return d * d <= CONVERGED_SIGMAS * CONVERGED_SIGMAS * v;
 }
 
 /**

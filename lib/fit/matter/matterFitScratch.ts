@@ -20,6 +20,8 @@ export interface MatterFitScratch {
   residual: Float64Array; residualZ: Float64Array;
   /** Small fixed buffers: the current propagation state and scratch numbers. */
   cur: Float64Array; tmp: Float64Array;
+  /** The iterations' start, last good start, move, profile estimate (x, y, φ, κ, z, tan λ) and prior variances (5). */
+  start: Float64Array; good: Float64Array; delta: Float64Array; est: Float64Array; prior: Float64Array;
   /** Filter outputs: state (3) + cov (9) bending, state (2) + cov (4) z, at the first and last hit. */
   firstB: Float64Array; firstZ: Float64Array; lastB: Float64Array; lastZ: Float64Array;
 }
@@ -33,6 +35,7 @@ export function matterFitScratch(capacity: number): MatterFitScratch {
     F: f(9), Q: f(9), Qz: f(3), mr: f(1), mv: f(1), zr: f(1), zv: f(1), bs: f(9), bz: f(5),
     residual: f(1), residualZ: f(1),
     cur: new Float64Array(14), tmp: new Float64Array(16),
+    start: new Float64Array(6), good: new Float64Array(6), delta: new Float64Array(6), est: new Float64Array(6), prior: new Float64Array(5),
     firstB: new Float64Array(12), firstZ: new Float64Array(6), lastB: new Float64Array(12), lastZ: new Float64Array(6),
   };
 }
