@@ -14,10 +14,10 @@ import type { MatterFitScratch } from './matterFitScratch.js';
  *   smoother, equivalent to Rauch–Tung–Striebel; Fraser & Potter, IEEE TAC 14 (1969) 387), gives
  *   the smoothed residuals.
  * Each returns the χ² of its predicted residuals (the fit χ² of the linear problem); the
- * backward pass also leaves Σ ln(variance of each predicted residual) in sc.tmp[14], so that
+ * backward pass with `withLogDet` also leaves Σ ln(variance of each predicted residual) in sc.tmp[14], so that
  * χ² + that sum is −2 ln L up to a constant when the noise itself depends on the state.
  */
-export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array): number {
+export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, withLogDet = false): number {
   let x0 = 0, x1 = 0, x2 = 0;
   let c00 = prior[0], c01 = 0, c02 = 0, c11 = prior[1], c12 = 0, c22 = prior[2];
   let z0 = 0, z1 = 0, d00 = prior[3], d01 = 0, d11 = prior[4];
@@ -29,7 +29,8 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
       c00 += Q[o]; c01 += Q[o + 1]; c02 += Q[o + 2]; c11 += Q[o + 4]; c12 += Q[o + 5]; c22 += Q[o + 8];
       const a00 = F[o], a01 = F[o + 1], b0 = F[o + 2], a10 = F[o + 3], a11 = F[o + 4], b1 = F[o + 5], g = F[o + 8];
       const det = a00 * a11 - a01 * a10;
-      const i00 = a11 / det, i01 = -a01 / det, i10 = -a10 / det, i11 = a00 / det;
+      const idet = 1 / det;
+      const i00 = a11 * idet, i01 = -a01 * idet, i10 = -a10 * idet, i11 = a00 * idet;
       const ig = 1 / g;
       const i02 = -(i00 * b0 + i01 * b1) * ig, i12 = -(i10 * b0 + i11 * b1) * ig;
       const y0 = i00 * x0 + i01 * x1 + i02 * x2, y1 = i10 * x0 + i11 * x1 + i12 * x2, y2 = ig * x2;
@@ -53,17 +54,19 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
       }
     }
     // Update with hit i.
-    const r = sc.mr[i] - x0, sv = c00 + sc.mv[i];
-    chi2 += (r * r) / sv; lnDet += Math.log(sv);
-    const k0 = c00 / sv, k1 = c01 / sv, k2 = c02 / sv;
+    const r = sc.mr[i] - x0, sv = c00 + sc.mv[i], iv = 1 / sv;
+    chi2 += r * r * iv;
+    if (withLogDet) lnDet += Math.log(sv);
+    const k0 = c00 * iv, k1 = c01 * iv, k2 = c02 * iv;
     x0 += k0 * r; x1 += k1 * r; x2 += k2 * r;
     c22 -= k2 * c02; c12 -= k1 * c02; c11 -= k1 * c01; c02 -= k0 * c02; c01 -= k0 * c01; c00 -= k0 * c00;
     const b = 9 * i, bs = sc.bs;
     bs[b] = x0; bs[b + 1] = x1; bs[b + 2] = x2; bs[b + 3] = c00; bs[b + 4] = c01; bs[b + 5] = c02; bs[b + 6] = c11; bs[b + 7] = c12; bs[b + 8] = c22;
     if (hasZ) {
-      const rz = sc.zr[i] - z0, svz = d00 + sc.zv[i];
-      chi2 += (rz * rz) / svz; lnDet += Math.log(svz);
-      const kz0 = d00 / svz, kz1 = d01 / svz;
+      const rz = sc.zr[i] - z0, svz = d00 + sc.zv[i], ivz = 1 / svz;
+      chi2 += rz * rz * ivz;
+      if (withLogDet) lnDet += Math.log(svz);
+      const kz0 = d00 * ivz, kz1 = d01 * ivz;
       z0 += kz0 * rz; z1 += kz1 * rz;
       d11 -= kz1 * d01; d01 -= kz0 * d01; d00 -= kz0 * d00;
       const bz = sc.bz, q = 5 * i;

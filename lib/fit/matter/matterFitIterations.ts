@@ -52,7 +52,7 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
   const n = hits.x.length;
   const hasZ = hits.z !== undefined;
   const start = sc.start, good = sc.good, delta = sc.delta;
-  if (!seedState(hits, model, set.fieldT, set.energyLoss, start)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+  if (!seedState(hits, model, set.fieldT, set.energyLoss, start, sc.tmp)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
   const prior = sc.prior;
   let goodChi2 = Infinity, lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
   while (iterations < maxIterations && tries < maxIterations + 3 * MAX_HALVINGS) {

@@ -76,7 +76,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
     F[o] = 1; F[o + 1] = 0; F[o + 2] = 0; F[o + 3] = 0; F[o + 4] = 1; F[o + 5] = 0; F[o + 6] = 0; F[o + 7] = 0; F[o + 8] = 1;
     for (let k = 0; k < 9; k++) Q[o + k] = 0;
     Qz[oz] = 0; Qz[oz + 1] = 0; Qz[oz + 2] = 0;
-    let dsTotal = 0;
+    let dsTotal = 0, fresh = true;
     for (let it = 0; it < 8; it++) {
       // Arc to the point of the current circle closest to the hit: angle atan2(κ·a, 1 − κ·b) with
       // (a, b) the hit along and across the direction (exact for constant κ; then corrected).
@@ -85,7 +85,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
       const along = ex * c + ey * s;
       if (it > 0 && Math.abs(along) < APPROACH_TOLERANCE_M) break;
       const kap = cur[3], across = -ex * s + ey * c;
-      const d = Math.abs(kap * along) < 1e-9 ? along : Math.atan2(kap * along, 1 - kap * across) / kap;
+      const d = arcToClosest(kap, along, across);
       if (set.energyLoss && d > 0 && d * secL * model.gcm2PerM >= cur[4]) return i;
       let remaining = d;
       while (remaining !== 0) {
@@ -97,7 +97,8 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
           const rangeLimit = (MAX_RANGE_FRACTION * cur[4] * cosL) / model.gcm2PerM;
           if (ds > rangeLimit && remaining > rangeLimit * 1.0001) ds = rangeLimit;
         }
-        if (!step(model, set, sc, ds, o, oz)) return REFERENCE_DIVERGED;
+        if (!step(model, set, sc, ds, o, oz, fresh)) return REFERENCE_DIVERGED;
+        fresh = false;
         dsTotal += ds;
         remaining = Math.abs(remaining - ds) < 1e-15 ? 0 : remaining - ds;
       }
@@ -107,6 +108,23 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
     storeHit(sc, i, hits, set);
   }
   return REFERENCE_OK;
+}
+
+/**
+ * Transverse arc length [m] along a circle of curvature κ to the point closest to a hit at
+ * (along, across) of the current point and direction: atan2(κ·a, 1 − κ·b)/κ, by its Taylor
+ * series where the turning angle is small (|q| < 0.05: error below 1e-15 relative).
+ */
+function arcToClosest(kap: number, along: number, across: number): number {
+  const den = 1 - kap * across;
+  if (den > 0) {
+    const q = (kap * along) / den;
+    if (Math.abs(q) < 0.05) {
+      const q2 = q * q;
+      return (along / den) * (1 - q2 * (1 / 3 - q2 * (1 / 5 - q2 * (1 / 7 - q2 / 9))));
+    }
+  }
+  return Math.abs(kap * along) < 1e-9 ? along : Math.atan2(kap * along, den) / kap;
 }
 
 function storeHit(sc: MatterFitScratch, i: number, hits: MatterTrackHits, set: ReferenceSettings): void {
@@ -132,10 +150,10 @@ function storeHit(sc: MatterFitScratch, i: number, hits: MatterTrackHits, set: R
  * One arc of transverse length ds [m] (negative: backwards) from the current state (cur: x, y,
  * φ, κ, residual range, T, S, p, z, path, cos φ, sin φ, ln x̃/X₀ at path cur[13]; geometry in
  * tmp[8..11]: tan λ, sec λ, |κ|·p, sign of κ); updates the state and the hit step's Jacobian
- * and noise accumulated at sc.F/sc.Q[o..o+8], sc.Qz[oz..oz+2]. False when the state became
- * non-finite.
+ * and noise accumulated at sc.F/sc.Q[o..o+8], sc.Qz[oz..oz+2] (`fresh`: the first step of the
+ * hit step, whose accumulators are still 1 and 0). False when the state became non-finite.
  */
-function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds: number, o: number, oz: number): boolean {
+function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds: number, o: number, oz: number, fresh: boolean): boolean {
   const cur = sc.cur, tmp = sc.tmp;
   const tanL = tmp[8], secL = tmp[9], cK = tmp[10], sgn = tmp[11];
   const l = ds * secL;
@@ -182,28 +200,32 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
   const gm = 0.5 * (1 + g);
   const f00 = ca, f01 = sOverK, f02 = oneMinusCOverK2 * gm;
   const f10 = -kapM * sa, f11 = ca, f12 = sOverK * gm;
-  const F = sc.F, Q = sc.Q;
-  // F ← Fs·F (F's last row is [0, 0, G]).
-  for (let c = o; c < o + 3; c++) {
-    const a0 = F[c], a1 = F[3 + c], a2 = F[6 + c];
-    F[c] = f00 * a0 + f01 * a1 + f02 * a2;
-    F[3 + c] = f10 * a0 + f11 * a1 + f12 * a2;
-    F[6 + c] = g * a2;
+  const F = sc.F, Q = sc.Q, Qz = sc.Qz;
+  let n00 = 0, n01 = 0, n11 = 0, n02 = 0, n12 = 0, n22 = 0, z00 = 0, z01 = 0, z11 = 0;
+  if (fresh) {
+    F[o] = f00; F[o + 1] = f01; F[o + 2] = f02; F[o + 3] = f10; F[o + 4] = f11; F[o + 5] = f12; F[o + 8] = g;
+  } else {
+    // F ← Fs·F (F's last row is [0, 0, G]).
+    for (let c = o; c < o + 3; c++) {
+      const a0 = F[c], a1 = F[3 + c], a2 = F[6 + c];
+      F[c] = f00 * a0 + f01 * a1 + f02 * a2;
+      F[3 + c] = f10 * a0 + f11 * a1 + f12 * a2;
+      F[6 + c] = g * a2;
+    }
+    // Q ← Fs·Q·Fsᵀ + Qs.
+    const q00 = Q[o], q01 = Q[o + 1], q02 = Q[o + 2], q11 = Q[o + 4], q12 = Q[o + 5], q22 = Q[o + 8];
+    const r00 = f00 * q00 + f01 * q01 + f02 * q02, r01 = f00 * q01 + f01 * q11 + f02 * q12, r02 = f00 * q02 + f01 * q12 + f02 * q22;
+    const r10 = f10 * q00 + f11 * q01 + f12 * q02, r11 = f10 * q01 + f11 * q11 + f12 * q12, r12 = f10 * q02 + f11 * q12 + f12 * q22;
+    n00 = r00 * f00 + r01 * f01 + r02 * f02;
+    n01 = r00 * f10 + r01 * f11 + r02 * f12;
+    n11 = r10 * f10 + r11 * f11 + r12 * f12;
+    n02 = r02 * g; n12 = r12 * g;
+    n22 = g * g * q22;
+    // (z, t) propagation [[1, ds], [0, 1]].
+    z00 = Qz[oz] + 2 * ds * Qz[oz + 1] + ds * ds * Qz[oz + 2];
+    z01 = Qz[oz + 1] + ds * Qz[oz + 2];
+    z11 = Qz[oz + 2];
   }
-  // Q ← Fs·Q·Fsᵀ + Qs.
-  const q00 = Q[o], q01 = Q[o + 1], q02 = Q[o + 2], q11 = Q[o + 4], q12 = Q[o + 5], q22 = Q[o + 8];
-  const r00 = f00 * q00 + f01 * q01 + f02 * q02, r01 = f00 * q01 + f01 * q11 + f02 * q12, r02 = f00 * q02 + f01 * q12 + f02 * q22;
-  const r10 = f10 * q00 + f11 * q01 + f12 * q02, r11 = f10 * q01 + f11 * q11 + f12 * q12, r12 = f10 * q02 + f11 * q12 + f12 * q22;
-  let n00 = r00 * f00 + r01 * f01 + r02 * f02;
-  let n01 = r00 * f10 + r01 * f11 + r02 * f12;
-  let n11 = r10 * f10 + r11 * f11 + r12 * f12;
-  const n02 = r02 * g, n12 = r12 * g;
-  let n22 = g * g * q22;
-  const Qz = sc.Qz;
-  // (z, t) propagation [[1, ds], [0, 1]].
-  let z00 = Qz[oz] + 2 * ds * Qz[oz + 1] + ds * ds * Qz[oz + 2];
-  let z01 = Qz[oz + 1] + ds * Qz[oz + 2];
-  let z11 = Qz[oz + 2];
   const al = Math.abs(l);
   if (set.multipleScattering && al > 0) {
     // Highland θ₀² increment over this step after the path before it (lossModel.highlandPathTerm).
