@@ -21,10 +21,11 @@ export interface LossModel {
   readonly chargeAbs: number;
   /** θ₀ [rad] for a step (same signature as the medium's). */
   readonly theta0Rad: (momentumGeV: number, beta: number, stepM: number, pathBeforeM: number) => number;
-  /** Radiation length of the material [m] (for `highlandPathTerm`). */
-  readonly radiationLengthM: number;
-  /** ln z² of the species (for `highlandPathTerm`). */
+  /** 1/X₀ [1/m] of the material, (0.0136 z)² [GeV²], ln z² (for `highlandPathTerm`), m² [GeV²]. */
+  readonly radiationLengthsPerM: number;
+  readonly highlandScaleSq: number;
   readonly lnChargeSq: number;
+  readonly massGeVSq: number;
   /** Variance of the energy lost per metre [MeV²/m] (Bohr). */
   readonly stragglingMeV2PerM: number;
 }
@@ -49,8 +50,10 @@ export function lossModel(material: Material, particle: Particle): LossModel {
     massMeV: particle.massMeV,
     chargeAbs: Math.abs(particle.charge),
     theta0Rad: loss.theta0Rad,
-    radiationLengthM: radiationLengthM(material),
+    radiationLengthsPerM: 1 / radiationLengthM(material),
+    highlandScaleSq: (0.0136 * particle.charge) ** 2,
     lnChargeSq: Math.log(particle.charge * particle.charge),
+    massGeVSq: (particle.massMeV / 1000) ** 2,
     stragglingMeV2PerM: bohrVarianceMeV2(material.zOverA, particle.charge, gcm2PerM),
   });
   byParticle.set(key, m);

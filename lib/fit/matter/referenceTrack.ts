@@ -67,6 +67,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
   }
   cur[8] = start[4]; cur[9] = 0; cur[10] = Math.cos(start[2]); cur[11] = Math.sin(start[2]);
   cur[12] = 0; cur[13] = -1; // ln of the clamped x/X₀ at path cur[13] (none yet)
+  cur[14] = 0; cur[15] = -1; // ln β² of the last step, at β² = cur[15] (none yet)
   sc.tmp[8] = tanL; sc.tmp[9] = secL; sc.tmp[10] = cK; sc.tmp[11] = sgn;
   storeHit(sc, 0, hits, set);
   sc.ds[0] = 0;
@@ -91,9 +92,8 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
       while (remaining !== 0) {
         const kap = Math.abs(cur[3]);
         let ds = remaining;
-        const turnLimit = MAX_TURN_RAD / kap;
-        if (Math.abs(ds) > turnLimit) ds = Math.sign(ds) * turnLimit;
-        if (set.energyLoss && ds > 0 && Number.isFinite(cur[4])) {
+        if (Math.abs(ds) * kap > MAX_TURN_RAD) ds = Math.sign(ds) * (MAX_TURN_RAD / kap);
+        if (set.energyLoss && ds > 0 && Number.isFinite(cur[4]) && ds * model.gcm2PerM > MAX_RANGE_FRACTION * cur[4] * cosL) {
           const rangeLimit = (MAX_RANGE_FRACTION * cur[4] * cosL) / model.gcm2PerM;
           if (ds > rangeLimit && remaining > rangeLimit * 1.0001) ds = rangeLimit;
         }
@@ -111,6 +111,21 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
 }
 
 /**
+ * ln β² for a step, from the last step's (cur[14] at β² = cur[15]) plus the log of their ratio
+ * r = 1 + x by its series where |x| < 1e-3 (to x⁵: error below 2e-16), else Math.log; a
+ * track's β changes little from one step to the next, so this saves a logarithm per step.
+ */
+function lnBetaSq(cur: Float64Array, beta2: number): number {
+  const prev = cur[15];
+  let v: number;
+  const x = prev > 0 ? beta2 / prev - 1 : Infinity;
+  if (Math.abs(x) < 1e-3) v = cur[14] + x * (1 - x * (1 / 2 - x * (1 / 3 - x * (1 / 4 - x / 5))));
+  else v = Math.log(beta2);
+  cur[14] = v; cur[15] = beta2;
+  return v;
+}
+
+/**
  * Transverse arc length [m] along a circle of curvature κ to the point closest to a hit at
  * (along, across) of the current point and direction: atan2(κ·a, 1 − κ·b)/κ, by its Taylor
  * series where the turning angle is small (|q| < 0.05: error below 1e-15 relative).
@@ -118,10 +133,10 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
 function arcToClosest(kap: number, along: number, across: number): number {
   const den = 1 - kap * across;
   if (den > 0) {
-    const q = (kap * along) / den;
+    const a = along / den, q = kap * a;
     if (Math.abs(q) < 0.05) {
       const q2 = q * q;
-      return (along / den) * (1 - q2 * (1 / 3 - q2 * (1 / 5 - q2 * (1 / 7 - q2 / 9))));
+      return a * (1 - q2 * (1 / 3 - q2 * (1 / 5 - q2 * (1 / 7 - q2 * (1 / 9)))));
     }
   }
   return Math.abs(kap * along) < 1e-9 ? along : Math.atan2(kap * along, den) / kap;
@@ -158,17 +173,18 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
   const tanL = tmp[8], secL = tmp[9], cK = tmp[10], sgn = tmp[11];
   const l = ds * secL;
   const kapS = cur[3], pS = cur[7];
-  let kapE = kapS, pE = pS, g = 1;
+  let kapE = kapS, pE = pS, g = 1, betaE = 1;
   const m = model.massMeV;
   if (set.energyLoss && Number.isFinite(cur[4])) {
     const rE = cur[4] - l * model.gcm2PerM;
     kineticAndStoppingAtRange(model, rE, tmp);
     const tE = tmp[0], sE = tmp[1];
-    const pEm = Math.sqrt(tE * (tE + 2 * m));
-    pE = pEm / 1000;
-    kapE = (sgn * cK) / pE;
-    const betaS = (1000 * pS) / (cur[5] + m), betaE = pEm / (tE + m);
-    const ratio = pS / pE;
+    const pEm = Math.sqrt(tE * (tE + 2 * m)), invPm = 1 / pEm;
+    pE = pEm * 0.001;
+    kapE = sgn * cK * 1000 * invPm;
+    const betaS = (1000 * pS) / (cur[5] + m);
+    betaE = pEm / (tE + m);
+    const ratio = 1000 * pS * invPm;
     g = cur[6] > 0 ? (ratio * ratio * betaS * sE) / (betaE * cur[6]) : 1;
     cur[4] = rE; cur[5] = tE; cur[6] = sE; cur[7] = pE; cur[3] = kapE;
   }
@@ -177,12 +193,15 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
   const phi = cur[2];
   const cphi = cur[10], sphi = cur[11];
   let ca: number, sa: number, sOverK: number, oneMinusCOverK2: number;
-  if (Math.abs(a) < 1e-2) {
+  if (Math.abs(a) < 0.1) {
+    // Taylor series to a⁸ (the next terms are below 3e-17 at |a| = 0.1).
     const a2 = a * a;
-    ca = 1 - 0.5 * a2 * (1 - a2 / 12);
-    sa = a * (1 - a2 / 6 * (1 - a2 / 20));
-    sOverK = ds * (1 - a2 / 6 * (1 - a2 / 20));
-    oneMinusCOverK2 = 0.5 * ds * ds * (1 - a2 / 12 * (1 - a2 / 30));
+    const sinc = 1 - (a2 / 6) * (1 - (a2 / 20) * (1 - (a2 / 42) * (1 - a2 / 72)));
+    const cosc = 1 - (a2 / 12) * (1 - (a2 / 30) * (1 - (a2 / 56) * (1 - a2 / 90)));
+    ca = 1 - 0.5 * a2 * (1 - (a2 / 12) * (1 - (a2 / 30) * (1 - a2 / 56)));
+    sa = a * sinc;
+    sOverK = ds * sinc;
+    oneMinusCOverK2 = 0.5 * ds * ds * cosc;
   } else {
     ca = Math.cos(a); sa = Math.sin(a);
     sOverK = sa / kapM;
@@ -229,22 +248,22 @@ function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds
   const al = Math.abs(l);
   if (set.multipleScattering && al > 0) {
     // Highland θ₀² increment over this step after the path before it (lossModel.highlandPathTerm).
+    // (0.0136 z/(βp))² = (0.0136 z)²·E²/p⁴ with E² = p² + m² [GeV²].
     const pM = 0.5 * (pS + pE);
-    const pM2 = pM * pM, beta2 = pM2 / (pM2 + (m / 1000) * (m / 1000));
-    const lnZB = model.lnChargeSq - Math.log(beta2);
-    const x0 = model.radiationLengthM;
-    const tB = before / x0, tA = cur[9] / x0;
+    const pM2 = pM * pM, e2 = pM2 + model.massGeVSq, beta2 = pM2 / e2;
+    const lnZB = model.lnChargeSq - lnBetaSq(cur, beta2);
+    const perX0 = model.radiationLengthsPerM;
+    const tB = before * perX0, tA = cur[9] * perX0;
     const lnA = highlandLogThickness(tA);
     const termB = before > 0 ? highlandPathTerm(tB, cur[13] === before ? cur[12] : highlandLogThickness(tB), lnZB) : 0;
-    const c0 = (0.0136 * model.chargeAbs) / pM;
-    const t2 = Math.max(0, ((c0 * c0) / beta2) * (highlandPathTerm(tA, lnA, lnZB) - termB));
+    const t2 = Math.max(0, ((model.highlandScaleSq * e2) / (pM2 * pM2)) * (highlandPathTerm(tA, lnA, lnZB) - termB));
     cur[12] = lnA; cur[13] = cur[9];
-    n00 += (t2 * al * al) / 3; n01 += (t2 * al * secL) / 2; n11 += t2 * secL * secL;
-    z00 += (t2 * al * al * secL * secL) / 3; z01 += (t2 * al * secL * secL * secL) / 2; z11 += t2 * secL * secL * secL * secL;
+    const t2l = t2 * al, sec2 = secL * secL;
+    n00 += t2l * al * (1 / 3); n01 += 0.5 * t2l * secL; n11 += t2 * sec2;
+    z00 += t2l * al * sec2 * (1 / 3); z01 += 0.5 * t2l * sec2 * secL; z11 += t2 * sec2 * sec2;
   }
   if (set.energyLoss && model.stragglingMeV2PerM > 0 && Number.isFinite(cur[4])) {
-    const pm = 1000 * pE, beta = pm / Math.sqrt(pm * pm + m * m);
-    const dk = kapE / (pm * beta);
+    const dk = kapE / (1000 * pE * betaE);
     n22 += dk * dk * model.stragglingMeV2PerM * al;
   }
   Q[o] = n00; Q[o + 1] = n01; Q[o + 2] = n02; Q[o + 3] = n01; Q[o + 4] = n11; Q[o + 5] = n12; Q[o + 6] = n02; Q[o + 7] = n12; Q[o + 8] = n22;
