@@ -1,0 +1,71 @@
+import { describe, expect, it } from 'vitest';
+import { fitTracksInMatter } from '../../lib/fit/matter/fitTracksInMatter.js';
+import { matterSample } from '../../lib/fitlab/matterSample.js';
+import { material } from '../../lib/matter/materials.js';
+import { cachedRange, cachedRangeAt } from '../../lib/matter/rangeIntegral.js';
+import { PROTON } from '../../lib/particles.js';
+
+/**
+ * Protons that leave the fitted stretch shortly before the end of their range (issue 9): the
+ * simulated track goes on past its 50th hit (the stretch ends there as at a chamber wall), so its
+ * true residual range at the last hit is known from the simulator's momentum there (CSDA range,
+ * lib/matter). Seed 19; liquid propane, 2 T, a hit every 5 mm of path, 200 µm errors, tan λ in
+ * ±0.3, mean loss and Highland scattering in the simulation.
+ *
+ * What we found: within the last ~20 spacings of the range the likelihood of the residual range
+ * is nearly flat and close to linear in it, so a sizeable fraction of these tracks is fitted
+ * against the wall (the hypothesis that stops just after the last hit); there the linearised
+ * error and the Δ(−2 ln L) = 1 distance of `rangeProfileSigma` measure the slope of the profile,
+ * not its width, and are too small (|pull| > 3 for ~6 % of the tracks 5–20 spacings before the
+ * end). Taking the width from the curvature of the profile instead brings those tracks to a
+ * pull rms of 1.0–1.1, but over-covers the tracks that really stop and moves the pull rms of the
+ * stopping-proton samples of matterFit.test.ts below 0.9, so it is not done yet.
+ */
+interface Exiting { readonly residualSpacings: number; readonly pull: number; readonly rel: number }
+let sample: Exiting[] | undefined;
+
+/** The fitted tracks that left the stretch (ok or poor-fit), with their true residual range at the last hit in spacings. */
+function exitingTracks(): Exiting[] {
+  if (sample) return sample;
+  const med = material('liquid-propane'), spacingM = 5e-3;
+  const s = matterSample({ tracks: 1500, species: PROTON, momentumGeV: [0.45, 0.62], material: med, fieldT: 2, spacingM, sigmaM: 2e-4, maxHits: 50, tanLambda: [-0.3, 0.3], seed: 19 });
+  const f = fitTracksInMatter({ x: s.x, y: s.y, z: s.z, sigmaX: s.sigma, sigmaY: s.sigma, sigmaZ: s.sigma }, s.offsets, { fieldT: 2, medium: med, particle: PROTON });
+  const table = cachedRange(PROTON, med), m = PROTON.massMeV;
+  sample = [];
+  for (let k = 0; k < s.count; k++) {
+    if (s.stopped[k] || f.status[k] > 1) continue;
+    const pm = 1000 * s.pLastGeV[k];
+    const residualSpacings = cachedRangeAt(table, Math.sqrt(pm * pm + m * m) - m) / (med.densityGcm3 * 100) / spacingM;
+    sample.push({ residualSpacings, pull: (f.pGeV[k] - s.pFirstGeV[k]) / f.sigmaPGeV[k], rel: f.pGeV[k] / s.pFirstGeV[k] - 1 });
+  }
+  return sample;
+}
+
+function exitingPulls(loSpacings: number, hiSpacings: number): { n: number; rms: number; medianRel: number } {
+  const pulls: number[] = [], rel: number[] = [];
+  for (const t of exitingTracks()) {
+    if (t.residualSpacings < loSpacings || t.residualSpacings >= hiSpacings) continue;
+    pulls.push(t.pull); rel.push(t.rel);
+  }
+  rel.sort((a, b) => a - b);
+  return { n: pulls.length, rms: Math.sqrt(pulls.reduce((a, v) => a + v * v, 0) / pulls.length), medianRel: rel[rel.length >> 1] };
+}
+
+describe('fit with material: protons leaving shortly before their range end (issue 9)', () => {
+  it('1–5 spacings before the end: pull rms within 0.9–1.1, median bias of p below 0.5 %', () => {
+    const r = exitingPulls(1, 5);
+    console.log(`exiting protons 1–5 spacings before the range end: ${r.n} tracks, pull rms ${r.rms.toFixed(3)}, median bias ${(100 * r.medianRel).toFixed(3)} %`);
+    expect(r.n).toBeGreaterThan(80);
+    expect(r.rms).toBeGreaterThan(0.9);
+    expect(r.rms).toBeLessThan(1.1);
+    expect(Math.abs(r.medianRel)).toBeLessThan(0.005);
+  });
+
+  it('5–20 spacings before the end: pull rms reached 1.6 (target 0.9–1.1 missed; see above), median bias below 1 %', () => {
+    const r = exitingPulls(5, 20);
+    console.log(`exiting protons 5–20 spacings before the range end: ${r.n} tracks, pull rms ${r.rms.toFixed(3)} (reached), median bias ${(100 * r.medianRel).toFixed(3)} %`);
+    expect(r.n).toBeGreaterThan(300);
+    expect(r.rms).toBeLessThan(1.8); // reached, not the target
+    expect(Math.abs(r.medianRel)).toBeLessThan(0.01);
+  });
+});
