@@ -7,8 +7,9 @@ import type { Chamber } from './chamber.js';
 import { ColumnBuffer } from './columnBuffer.js';
 import { DECAY_IN_FLIGHT } from './decays.js';
 import { HitRecorder } from './hitRecorder.js';
+import { addNoiseHits } from './noiseHits.js';
 import { decayAtRest, flyNeutral, type Pending } from './secondaries.js';
-import { seededRandom, type SeededRandom } from './rng.js';
+import { seededRandom } from './rng.js';
 import { beamEvent, type BeamSource } from './sources/beam.js';
 import { burstEvent, type BurstSource } from './sources/burst.js';
 import { cosmicEvent, type CosmicSource } from './sources/cosmic.js';
@@ -100,8 +101,6 @@ export interface SimulationResult {
 
 /** Safety limit on particles per event (δ-ray showers of a looper could otherwise grow without end). */
 const MAX_TRACKS_PER_EVENT = 2000;
-/** Track id of noise hits: negative ids mean "on no track" in hit files (lib/track/measureTracks). */
-const NOISE_TRACK = -1;
 
 const TRUTH_COLUMNS = ['event', 'track', 'parent', 'charge', 'vx', 'vy', 'vz', 'px', 'py', 'pz', 'ex', 'ey', 'ez', 'path', 'hits'] as const;
 
@@ -187,7 +186,7 @@ function simulateEvents(config: SimulationConfig, seed: number, eventsPerPart: n
         : src.kind === 'burst' ? burstEvent(src, rng)
         : src.kind === 'cosmic' ? cosmicEvent(src, chamber, rng)
         : stoppingEvent(src, chamber, rng);
-      addNoise(hits, event, chamber, measurement, rng);
+      addNoiseHits(hits, event, chamber, measurement.noiseHitsPerEvent, rng);
       const stack: Pending[] = primaries.map((p) => ({ ...p, parent: 0 }));
       let trackId = 0;
       while (stack.length > 0) {
@@ -292,15 +291,4 @@ function expectedHitRows(config: SimulationConfig): number {
   const events = config.sources.reduce((sum, src) => sum + src.events * (src.kind === 'burst' ? 0.5 * (src.multiplicity[0] + src.multiplicity[1]) : 1), 0);
   const rows = Math.ceil(events) * (perTrack + Math.ceil(config.measurement.noiseHitsPerEvent)) + 1024;
   return Math.min(1 << 24, Math.max(1 << 12, rows));
-}
-
-function addNoise(hits: HitRecorder, event: number, c: Chamber, m: MeasurementModel, rng: SeededRandom): void {
-  const n = m.noiseHitsPerEvent > 0 ? rng.poisson(m.noiseHitsPerEvent) : 0;
-  for (let k = 0; k < n; k++) {
-    hits.add(event, NOISE_TRACK,
-      c.xMinM + (c.xMaxM - c.xMinM) * rng.uniform(),
-      c.yMinM + (c.yMaxM - c.yMinM) * rng.uniform(),
-      c.zMinM + (c.zMaxM - c.zMinM) * rng.uniform(),
-      NaN, NaN, NaN, NaN);
-  }
 }

@@ -13,7 +13,7 @@ export const EXAMPLE_CHECKS: Readonly<Record<string, (r: Record<string, number>)
   '01-brindlemoor-bending.ipynb': (r) => {
     expect(r.helixPoor).toBeGreaterThan(r.helixOk);
     expect(r.helixBias).toBeLessThan(-0.02); // seed 20260401: −3.0 %
-    expect(r.matterOk).toBeGreaterThan(1.5 * r.helixOk); // 443 against 238
+    expect(r.matterOk).toBeGreaterThan(1.5 * r.helixOk); // 448 against 238
     expect(Math.abs(r.matterBias)).toBeLessThan(0.003); // −0.08 %
     expect(r.beamPions).toBeGreaterThan(100);
     expect(r.beamPionMedianMeV).toBeGreaterThan(485);

@@ -78,7 +78,7 @@ console.log(JSON.stringify({ pt: t.momentum.ptGeV[0], proton: PROTON.massMeV, en
   it('`npx sagitta demo` runs the bundled example notebook from the installed build and writes report.html there', () => {
     const run = spawnSync('npx', ['--offline', 'sagitta', 'demo'], { cwd: app, encoding: 'utf8' });
     expect(run.status, run.stderr).toBe(0);
-    expect(run.stderr).toMatch(/ran 7 of 7 steps/);
+    expect(run.stderr).toMatch(/ran (\d+) of \1 steps/); // every step of the demo notebook ran
     const html = readFileSync(join(app, 'report.html'), 'utf8');
     expect(html).toContain('Brindlemoor');
     expect(html).not.toMatch(/node_modules\/sagitta-tracks\/notebooks/); // the run used a copy, and paths are relative
