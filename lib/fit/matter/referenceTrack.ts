@@ -50,7 +50,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
   const tanL = start[5];
   const secL = Math.sqrt(1 + tanL * tanL), cosL = 1 / secL;
   const cK = GEV_PER_TESLA_METRE * model.chargeAbs * Math.abs(set.fieldT) * secL; // |κ| = cK / p
-  const cur = sc.cur;
+  const cur = sc.cur, tmp = sc.tmp;
   const kap0 = start[3];
   const sgn = kap0 < 0 ? -1 : 1;
   cur[0] = start[0]; cur[1] = start[1]; cur[2] = start[2]; cur[3] = kap0;
@@ -97,7 +97,111 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
           const rangeLimit = (MAX_RANGE_FRACTION * cur[4] * cosL) / model.gcm2PerM;
           if (ds > rangeLimit && remaining > rangeLimit * 1.0001) ds = rangeLimit;
         }
-        if (!step(model, set, sc, ds, o, oz, fresh)) return REFERENCE_DIVERGED;
+        {
+          // One arc of transverse length ds [m] (negative: backwards) from the current state
+          // (cur: x, y, φ, κ, residual range, T, S, p, z, path, cos φ, sin φ, ln x̃/X₀ at path
+          // cur[13], ln β² at β² = cur[15]); the hit step's Jacobian and noise accumulate at
+          // sc.F/sc.Q[o..o+8], sc.Qz[oz..oz+2] (`fresh`: its first arc, the accumulators still 1
+          // and 0). Written out here rather than called, so that the engine keeps it in one frame.
+          const l = ds * secL;
+          const kapS = cur[3], pS = cur[7];
+          let kapE = kapS, pE = pS, g = 1, betaE = 1;
+          const m = model.massMeV;
+          if (set.energyLoss && Number.isFinite(cur[4])) {
+            const rE = cur[4] - l * model.gcm2PerM;
+            kineticAndStoppingAtRange(model, rE, tmp);
+            const tE = tmp[0], sE = tmp[1];
+            const pEm = Math.sqrt(tE * (tE + 2 * m)), invPm = 1 / pEm;
+            pE = pEm * 0.001;
+            kapE = sgn * cK * 1000 * invPm;
+            const betaS = (1000 * pS) / (cur[5] + m);
+            betaE = pEm / (tE + m);
+            const ratio = 1000 * pS * invPm;
+            g = cur[6] > 0 ? (ratio * ratio * betaS * sE) / (betaE * cur[6]) : 1;
+            cur[4] = rE; cur[5] = tE; cur[6] = sE; cur[7] = pE; cur[3] = kapE;
+          }
+          const kapM = 0.5 * (kapS + kapE);
+          const a = kapM * ds;
+          const phi = cur[2];
+          const cphi = cur[10], sphi = cur[11];
+          let ca: number, sa: number, sOverK: number, oneMinusCOverK2: number;
+          if (Math.abs(a) < 0.1) {
+            // Taylor series to a⁸ (the next terms are below 3e-17 at |a| = 0.1).
+            const a2 = a * a;
+            const sinc = 1 - (a2 / 6) * (1 - (a2 / 20) * (1 - (a2 / 42) * (1 - a2 / 72)));
+            const cosc = 1 - (a2 / 12) * (1 - (a2 / 30) * (1 - (a2 / 56) * (1 - a2 / 90)));
+            ca = 1 - 0.5 * a2 * (1 - (a2 / 12) * (1 - (a2 / 30) * (1 - a2 / 56)));
+            sa = a * sinc;
+            sOverK = ds * sinc;
+            oneMinusCOverK2 = 0.5 * ds * ds * cosc;
+          } else {
+            ca = Math.cos(a); sa = Math.sin(a);
+            sOverK = sa / kapM;
+            oneMinusCOverK2 = (1 - ca) / (kapM * kapM);
+          }
+          // Position along the arc: Δx = (sin(φ+a) − sin φ)/κ, Δy = (cos φ − cos(φ+a))/κ, in the stable form.
+          cur[0] += sOverK * cphi - kapM * oneMinusCOverK2 * sphi;
+          cur[1] += sOverK * sphi + kapM * oneMinusCOverK2 * cphi;
+          cur[2] = phi + a;
+          cur[10] = cphi * ca - sphi * sa; cur[11] = sphi * ca + cphi * sa;
+          cur[8] += ds * tanL;
+          const before = cur[9];
+          cur[9] += Math.abs(l);
+          // Jacobian of this arc: [[c, s/κ, (1−c)/κ²·ḡ], [−κ s, c, s/κ·ḡ], [0, 0, g]], ḡ = (1+g)/2.
+          const gm = 0.5 * (1 + g);
+          const f00 = ca, f01 = sOverK, f02 = oneMinusCOverK2 * gm;
+          const f10 = -kapM * sa, f11 = ca, f12 = sOverK * gm;
+          const F = sc.F, Q = sc.Q, Qz = sc.Qz;
+          let n00 = 0, n01 = 0, n11 = 0, n02 = 0, n12 = 0, n22 = 0, z00 = 0, z01 = 0, z11 = 0;
+          if (fresh) {
+            F[o] = f00; F[o + 1] = f01; F[o + 2] = f02; F[o + 3] = f10; F[o + 4] = f11; F[o + 5] = f12; F[o + 8] = g;
+          } else {
+            // F ← Fs·F (F's last row is [0, 0, G]).
+            for (let c = o; c < o + 3; c++) {
+              const a0 = F[c], a1 = F[3 + c], a2 = F[6 + c];
+              F[c] = f00 * a0 + f01 * a1 + f02 * a2;
+              F[3 + c] = f10 * a0 + f11 * a1 + f12 * a2;
+              F[6 + c] = g * a2;
+            }
+            // Q ← Fs·Q·Fsᵀ + Qs.
+            const q00 = Q[o], q01 = Q[o + 1], q02 = Q[o + 2], q11 = Q[o + 4], q12 = Q[o + 5], q22 = Q[o + 8];
+            const r00 = f00 * q00 + f01 * q01 + f02 * q02, r01 = f00 * q01 + f01 * q11 + f02 * q12, r02 = f00 * q02 + f01 * q12 + f02 * q22;
+            const r10 = f10 * q00 + f11 * q01 + f12 * q02, r11 = f10 * q01 + f11 * q11 + f12 * q12, r12 = f10 * q02 + f11 * q12 + f12 * q22;
+            n00 = r00 * f00 + r01 * f01 + r02 * f02;
+            n01 = r00 * f10 + r01 * f11 + r02 * f12;
+            n11 = r10 * f10 + r11 * f11 + r12 * f12;
+            n02 = r02 * g; n12 = r12 * g;
+            n22 = g * g * q22;
+            // (z, t) propagation [[1, ds], [0, 1]].
+            z00 = Qz[oz] + 2 * ds * Qz[oz + 1] + ds * ds * Qz[oz + 2];
+            z01 = Qz[oz + 1] + ds * Qz[oz + 2];
+            z11 = Qz[oz + 2];
+          }
+          const al = Math.abs(l);
+          if (set.multipleScattering && al > 0) {
+            // Highland θ₀² increment over this step after the path before it (lossModel.highlandPathTerm).
+            // (0.0136 z/(βp))² = (0.0136 z)²·E²/p⁴ with E² = p² + m² [GeV²].
+            const pM = 0.5 * (pS + pE);
+            const pM2 = pM * pM, e2 = pM2 + model.massGeVSq, beta2 = pM2 / e2;
+            const lnZB = model.lnChargeSq - lnBetaSq(cur, beta2);
+            const perX0 = model.radiationLengthsPerM;
+            const tB = before * perX0, tA = cur[9] * perX0;
+            const lnA = highlandLogThickness(tA);
+            const termB = before > 0 ? highlandPathTerm(tB, cur[13] === before ? cur[12] : highlandLogThickness(tB), lnZB) : 0;
+            const t2 = Math.max(0, ((model.highlandScaleSq * e2) / (pM2 * pM2)) * (highlandPathTerm(tA, lnA, lnZB) - termB));
+            cur[12] = lnA; cur[13] = cur[9];
+            const t2l = t2 * al, sec2 = secL * secL;
+            n00 += t2l * al * (1 / 3); n01 += 0.5 * t2l * secL; n11 += t2 * sec2;
+            z00 += t2l * al * sec2 * (1 / 3); z01 += 0.5 * t2l * sec2 * secL; z11 += t2 * sec2 * sec2;
+          }
+          if (set.energyLoss && model.stragglingMeV2PerM > 0 && Number.isFinite(cur[4])) {
+            const dk = kapE / (1000 * pE * betaE);
+            n22 += dk * dk * model.stragglingMeV2PerM * al;
+          }
+          Q[o] = n00; Q[o + 1] = n01; Q[o + 2] = n02; Q[o + 3] = n01; Q[o + 4] = n11; Q[o + 5] = n12; Q[o + 6] = n02; Q[o + 7] = n12; Q[o + 8] = n22;
+          Qz[oz] = z00; Qz[oz + 1] = z01; Qz[oz + 2] = z11;
+          if (!Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3])) return REFERENCE_DIVERGED;
+        }
         fresh = false;
         dsTotal += ds;
         remaining = Math.abs(remaining - ds) < 1e-15 ? 0 : remaining - ds;
@@ -161,112 +265,3 @@ function storeHit(sc: MatterFitScratch, i: number, hits: MatterTrackHits, set: R
   }
 }
 
-/**
- * One arc of transverse length ds [m] (negative: backwards) from the current state (cur: x, y,
- * φ, κ, residual range, T, S, p, z, path, cos φ, sin φ, ln x̃/X₀ at path cur[13]; geometry in
- * tmp[8..11]: tan λ, sec λ, |κ|·p, sign of κ); updates the state and the hit step's Jacobian
- * and noise accumulated at sc.F/sc.Q[o..o+8], sc.Qz[oz..oz+2] (`fresh`: the first step of the
- * hit step, whose accumulators are still 1 and 0). False when the state became non-finite.
- */
-function step(model: LossModel, set: ReferenceSettings, sc: MatterFitScratch, ds: number, o: number, oz: number, fresh: boolean): boolean {
-  const cur = sc.cur, tmp = sc.tmp;
-  const tanL = tmp[8], secL = tmp[9], cK = tmp[10], sgn = tmp[11];
-  const l = ds * secL;
-  const kapS = cur[3], pS = cur[7];
-  let kapE = kapS, pE = pS, g = 1, betaE = 1;
-  const m = model.massMeV;
-  if (set.energyLoss && Number.isFinite(cur[4])) {
-    const rE = cur[4] - l * model.gcm2PerM;
-    kineticAndStoppingAtRange(model, rE, tmp);
-    const tE = tmp[0], sE = tmp[1];
-    const pEm = Math.sqrt(tE * (tE + 2 * m)), invPm = 1 / pEm;
-    pE = pEm * 0.001;
-    kapE = sgn * cK * 1000 * invPm;
-    const betaS = (1000 * pS) / (cur[5] + m);
-    betaE = pEm / (tE + m);
-    const ratio = 1000 * pS * invPm;
-    g = cur[6] > 0 ? (ratio * ratio * betaS * sE) / (betaE * cur[6]) : 1;
-    cur[4] = rE; cur[5] = tE; cur[6] = sE; cur[7] = pE; cur[3] = kapE;
-  }
-  const kapM = 0.5 * (kapS + kapE);
-  const a = kapM * ds;
-  const phi = cur[2];
-  const cphi = cur[10], sphi = cur[11];
-  let ca: number, sa: number, sOverK: number, oneMinusCOverK2: number;
-  if (Math.abs(a) < 0.1) {
-    // Taylor series to a⁸ (the next terms are below 3e-17 at |a| = 0.1).
-    const a2 = a * a;
-    const sinc = 1 - (a2 / 6) * (1 - (a2 / 20) * (1 - (a2 / 42) * (1 - a2 / 72)));
-    const cosc = 1 - (a2 / 12) * (1 - (a2 / 30) * (1 - (a2 / 56) * (1 - a2 / 90)));
-    ca = 1 - 0.5 * a2 * (1 - (a2 / 12) * (1 - (a2 / 30) * (1 - a2 / 56)));
-    sa = a * sinc;
-    sOverK = ds * sinc;
-    oneMinusCOverK2 = 0.5 * ds * ds * cosc;
-  } else {
-    ca = Math.cos(a); sa = Math.sin(a);
-    sOverK = sa / kapM;
-    oneMinusCOverK2 = (1 - ca) / (kapM * kapM);
-  }
-  // Position along the arc: Δx = (sin(φ+a) − sin φ)/κ, Δy = (cos φ − cos(φ+a))/κ, in the stable form.
-  cur[0] += sOverK * cphi - kapM * oneMinusCOverK2 * sphi;
-  cur[1] += sOverK * sphi + kapM * oneMinusCOverK2 * cphi;
-  cur[2] = phi + a;
-  cur[10] = cphi * ca - sphi * sa; cur[11] = sphi * ca + cphi * sa;
-  cur[8] += ds * tanL;
-  const before = cur[9];
-  cur[9] += Math.abs(l);
-  // Jacobian of this arc: [[c, s/κ, (1−c)/κ²·ḡ], [−κ s, c, s/κ·ḡ], [0, 0, g]], ḡ = (1+g)/2.
-  const gm = 0.5 * (1 + g);
-  const f00 = ca, f01 = sOverK, f02 = oneMinusCOverK2 * gm;
-  const f10 = -kapM * sa, f11 = ca, f12 = sOverK * gm;
-  const F = sc.F, Q = sc.Q, Qz = sc.Qz;
-  let n00 = 0, n01 = 0, n11 = 0, n02 = 0, n12 = 0, n22 = 0, z00 = 0, z01 = 0, z11 = 0;
-  if (fresh) {
-    F[o] = f00; F[o + 1] = f01; F[o + 2] = f02; F[o + 3] = f10; F[o + 4] = f11; F[o + 5] = f12; F[o + 8] = g;
-  } else {
-    // F ← Fs·F (F's last row is [0, 0, G]).
-    for (let c = o; c < o + 3; c++) {
-      const a0 = F[c], a1 = F[3 + c], a2 = F[6 + c];
-      F[c] = f00 * a0 + f01 * a1 + f02 * a2;
-      F[3 + c] = f10 * a0 + f11 * a1 + f12 * a2;
-      F[6 + c] = g * a2;
-    }
-    // Q ← Fs·Q·Fsᵀ + Qs.
-    const q00 = Q[o], q01 = Q[o + 1], q02 = Q[o + 2], q11 = Q[o + 4], q12 = Q[o + 5], q22 = Q[o + 8];
-    const r00 = f00 * q00 + f01 * q01 + f02 * q02, r01 = f00 * q01 + f01 * q11 + f02 * q12, r02 = f00 * q02 + f01 * q12 + f02 * q22;
-    const r10 = f10 * q00 + f11 * q01 + f12 * q02, r11 = f10 * q01 + f11 * q11 + f12 * q12, r12 = f10 * q02 + f11 * q12 + f12 * q22;
-    n00 = r00 * f00 + r01 * f01 + r02 * f02;
-    n01 = r00 * f10 + r01 * f11 + r02 * f12;
-    n11 = r10 * f10 + r11 * f11 + r12 * f12;
-    n02 = r02 * g; n12 = r12 * g;
-    n22 = g * g * q22;
-    // (z, t) propagation [[1, ds], [0, 1]].
-    z00 = Qz[oz] + 2 * ds * Qz[oz + 1] + ds * ds * Qz[oz + 2];
-    z01 = Qz[oz + 1] + ds * Qz[oz + 2];
-    z11 = Qz[oz + 2];
-  }
-  const al = Math.abs(l);
-  if (set.multipleScattering && al > 0) {
-    // Highland θ₀² increment over this step after the path before it (lossModel.highlandPathTerm).
-    // (0.0136 z/(βp))² = (0.0136 z)²·E²/p⁴ with E² = p² + m² [GeV²].
-    const pM = 0.5 * (pS + pE);
-    const pM2 = pM * pM, e2 = pM2 + model.massGeVSq, beta2 = pM2 / e2;
-    const lnZB = model.lnChargeSq - lnBetaSq(cur, beta2);
-    const perX0 = model.radiationLengthsPerM;
-    const tB = before * perX0, tA = cur[9] * perX0;
-    const lnA = highlandLogThickness(tA);
-    const termB = before > 0 ? highlandPathTerm(tB, cur[13] === before ? cur[12] : highlandLogThickness(tB), lnZB) : 0;
-    const t2 = Math.max(0, ((model.highlandScaleSq * e2) / (pM2 * pM2)) * (highlandPathTerm(tA, lnA, lnZB) - termB));
-    cur[12] = lnA; cur[13] = cur[9];
-    const t2l = t2 * al, sec2 = secL * secL;
-    n00 += t2l * al * (1 / 3); n01 += 0.5 * t2l * secL; n11 += t2 * sec2;
-    z00 += t2l * al * sec2 * (1 / 3); z01 += 0.5 * t2l * sec2 * secL; z11 += t2 * sec2 * sec2;
-  }
-  if (set.energyLoss && model.stragglingMeV2PerM > 0 && Number.isFinite(cur[4])) {
-    const dk = kapE / (1000 * pE * betaE);
-    n22 += dk * dk * model.stragglingMeV2PerM * al;
-  }
-  Q[o] = n00; Q[o + 1] = n01; Q[o + 2] = n02; Q[o + 3] = n01; Q[o + 4] = n11; Q[o + 5] = n12; Q[o + 6] = n02; Q[o + 7] = n12; Q[o + 8] = n22;
-  Qz[oz] = z00; Qz[oz + 1] = z01; Qz[oz + 2] = z11;
-  return Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3]);
-}
