@@ -109,8 +109,20 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
           const m = model.massMeV;
           if (set.energyLoss && Number.isFinite(cur[4])) {
             const rE = cur[4] - l * model.gcm2PerM;
-            kineticAndStoppingAtRange(model, rE, tmp);
-            const tE = tmp[0], sE = tmp[1];
+            // The cell of the last table lookup (hint tmp[2]) mostly still holds rE: the cubic
+            // Hermite of `kineticAndStoppingAtRange` there, else the full lookup.
+            const rr = model.table.csdaRangeGcm2, lo = tmp[2] | 0;
+            let tE: number, sE: number;
+            if (lo >= 0 && lo < rr.length - 2 && rr[lo] <= rE && rE < rr[lo + 1]) {
+              const tt = model.table.kineticEnergyMeV, ss = model.table.stoppingPowerMeVcm2g;
+              const h = rr[lo + 1] - rr[lo], u = (rE - rr[lo]) / h, u2 = u * u, u3 = u2 * u;
+              const y0 = tt[lo], y1 = tt[lo + 1], d0 = ss[lo], d1 = ss[lo + 1];
+              tE = (2 * u3 - 3 * u2 + 1) * y0 + (u3 - 2 * u2 + u) * h * d0 + (-2 * u3 + 3 * u2) * y1 + (u3 - u2) * h * d1;
+              sE = ((6 * u2 - 6 * u) * y0 + (-6 * u2 + 6 * u) * y1) / h + (3 * u2 - 4 * u + 1) * d0 + (3 * u2 - 2 * u) * d1;
+            } else {
+              kineticAndStoppingAtRange(model, rE, tmp);
+              tE = tmp[0]; sE = tmp[1];
+            }
             const pEm = Math.sqrt(tE * (tE + 2 * m)), invPm = 1 / pEm;
             pE = pEm * 0.001;
             kapE = sgn * cK * 1000 * invPm;
