@@ -26,7 +26,7 @@ export function curvatureAlongTrackFigure(identity: TrackIdentity, material: Mat
   for (const h of identity.hypotheses) {
     if (!Number.isFinite(h.rangeEndM)) continue;
     const k = predictedCurvature(speciesRange(lookupParticle(h.species), material), h.rangeEndM, grid, { fieldT, cosLambda: cos || 1 });
-    series.push({ x: grid, y: k, name: `${h.species} (−2 ln L ${h.m2lnL.toFixed(1)})`, style: 'line' });
+    series.push({ x: grid, y: k, name: Number.isFinite(h.m2lnL) ? `${h.species} (−2 ln L ${h.m2lnL.toFixed(1)})` : `${h.species} (ruled out${h.fitStatus === 'cannot-reach' || h.fitStatus === 'diverged' ? `: fit with material ${h.fitStatus}` : ''})`, style: 'line' });
   }
   const margin = Number.isFinite(identity.deltaM2lnL) ? `, Δ(−2 ln L) = ${identity.deltaM2lnL.toFixed(1)}` : '';
   return xyFigure(series, {

@@ -28,9 +28,12 @@ function superscript(n: number): string {
   return [...String(n)].map((c) => SUP[c] ?? c).join('');
 }
 
-/** A number to `digits` significant digits, without exponent notation between 10⁻⁴ and 10⁹. */
+/** ±∞ as '∞' and '−∞' (a score that rules a hypothesis out, say); NaN (no value) as ''. */
+const infinite = (v: number) => (v === Infinity ? '∞' : v === -Infinity ? `${MINUS}∞` : '');
+
+/** A number to `digits` significant digits, without exponent notation between 10⁻⁴ and 10⁹; ±∞ as '∞', NaN blank. */
 export function formatSignificant(v: number, digits: number): string {
-  if (!Number.isFinite(v)) return '';
+  if (!Number.isFinite(v)) return infinite(v);
   if (v === 0) return '0';
   const mag = Math.floor(Math.log10(Math.abs(v)));
   if (mag < -4 || mag >= 9) {
@@ -57,9 +60,9 @@ export function columnDecimals(values: ArrayLike<number>, digits: number, intege
   return Math.min(8, Math.max(0, digits - 1 - Math.floor(Math.log10(max))));
 }
 
-/** A plain number with a column's decimals (exponent form when that would show no digit of it). */
+/** A plain number with a column's decimals (exponent form when that would show no digit of it); ±∞ as '∞', NaN blank. */
 export function formatWithDecimals(v: number, decimals: number): string {
-  if (!Number.isFinite(v)) return '';
+  if (!Number.isFinite(v)) return infinite(v);
   if (v !== 0 && Math.abs(v) < 0.5 * 10 ** -decimals) return formatSignificant(v, 3);
   if (Math.abs(v) >= 1e9) return formatSignificant(v, 4);
   return sign(v.toFixed(decimals));

@@ -24,7 +24,7 @@ function readCsv(path: string): Record<string, string>[] {
 }
 
 describe('sagitta fit --particle auto (identification by range)', () => {
-  it('writes pid, pid_delta_m2lnL, stops and p_min_GeV_c; names every stopping proton and K⁺ right; p_GeV_c of protons within 1 % of the truth (median)', async () => {
+  it('writes pid, pid_delta_m2lnL, stops and p_min_GeV_c; names ≥ 95 % of stopping protons and K⁺ right (issue 9 target); p_GeV_c of protons within 1 % of the truth (median)', async () => {
     const out = join(dir, 'pid.csv');
     const summary = await runFit(hits, { ...base, particle: 'auto', volume: '160 cm,100 cm,60 cm', out });
     expect(summary).toContain('identification by range among electron, mu-, pi+, K+, proton');
@@ -39,21 +39,24 @@ describe('sagitta fit --particle auto (identification by range)', () => {
       const parent = index.get(`${r.event}/${truth.parent[t]}`)!;
       if (truth.species[parent] === 'mu+' && truth.process[parent] === 'stopping') expect(Number(r.decay_of)).toBe(truth.track[parent]);
     }
-    let protons = 0, kaons = 0;
+    let protons = 0, kaons = 0, protonsRight = 0, kaonsRight = 0;
     const rel: number[] = [];
     for (const r of rows) {
       const t = index.get(`${r.event}/${r.track}`)!;
       if (truth.process[t] !== 'stopping') continue;
       if (truth.species[t] === 'proton') {
-        expect(r.pid).toBe('proton');
+        if (r.pid === 'proton') protonsRight++;
         protons++;
         rel.push(Number(r.p_GeV_c) / Math.hypot(truth.px[t], truth.py[t], truth.pz[t]) - 1);
       }
-      if (truth.species[t] === 'K+') { expect(r.pid).toBe('K+'); kaons++; }
+      if (truth.species[t] === 'K+') { if (r.pid === 'K+') kaonsRight++; kaons++; }
       expect(Number(r.pid_delta_m2lnL)).toBeGreaterThanOrEqual(0);
       expect(Number(r.p_min_GeV_c)).toBeGreaterThan(0);
     }
     expect([protons, kaons]).toEqual([60, 60]);
+    process.stdout.write(`stopping protons named right ${protonsRight}/60, K+ ${kaonsRight}/60\n`);
+    expect(protonsRight).toBeGreaterThanOrEqual(57);
+    expect(kaonsRight).toBeGreaterThanOrEqual(57);
     rel.sort((a, b) => a - b);
     // The true momentum is at the entry point, a few mm before the first hit: the fit is a little lower.
     expect(Math.abs(rel[rel.length >> 1])).toBeLessThan(0.01);

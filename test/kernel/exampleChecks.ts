@@ -13,13 +13,13 @@ export const EXAMPLE_CHECKS: Readonly<Record<string, (r: Record<string, number>)
   '01-brindlemoor-bending.ipynb': (r) => {
     expect(r.helixPoor).toBeGreaterThan(r.helixOk);
     expect(r.helixBias).toBeLessThan(-0.02); // seed 20260401: −3.0 %
-    expect(r.matterOk).toBeGreaterThan(1.5 * r.helixOk); // 448 against 238
-    expect(Math.abs(r.matterBias)).toBeLessThan(0.003); // −0.08 %
+    expect(r.matterOk).toBeGreaterThan(1.5 * r.helixOk); // 477 against 238
+    expect(Math.abs(r.matterBias)).toBeLessThan(0.003); // −0.12 %
     expect(r.beamPions).toBeGreaterThan(100);
     expect(r.beamPionMedianMeV).toBeGreaterThan(485);
-    expect(r.beamPionMedianMeV).toBeLessThan(500); // 499.8: loss in the upstream wall's first millimetres
-    expect(Math.abs(r.beamPionPullCore - 1)).toBeLessThan(0.15);
-    expect(r.beamPionPullRms).toBeLessThan(1.5); // 1.21: one pion named an antiproton (pull 8.6)
+    expect(r.beamPionMedianMeV).toBeLessThan(500); // 499.2: loss in the upstream wall's first millimetres
+    expect(Math.abs(r.beamPionPullCore - 1)).toBeLessThan(0.15); // 0.99
+    expect(Math.abs(r.beamPionPullRms - 1)).toBeLessThan(0.15); // 0.98 (1.21 while one pion was named an antiproton)
   },
   // PDG RPP 2022: m(K⁰) = 497.611(13) MeV, m(Λ) = 1115.683(6) MeV, cτ(K⁰_S) = 2.6844 cm. The
   // fitted values must agree within two of their fitted errors (the data are one fixed seed).
@@ -74,15 +74,16 @@ export const EXAMPLE_CHECKS: Readonly<Record<string, (r: Record<string, number>)
     expect(r.robustPullWidth).toBeLessThan(r.geometricPullWidth); // narrower, though not yet 1 (the notebook says why)
   },
   // Identification by range on simulated truth (seed 20260417). Targets of issue 9: ≥ 95 % of p
-  // and K, electron spirals as electrons — met; ≥ 90 % of π and μ — not met (78 % and 80 % on
-  // this run; the notebook says why), so the π/μ lines guard what is reached, not the target.
+  // and K, electron spirals as electrons — met; ≥ 90 % of π and μ — met on the 162-track samples
+  // of test/track/identifyTracks.test.ts; on this run's 60 tracks a species (binomial σ ≈ 4 %)
+  // π 85 %, μ 95 %, so the π/μ lines here sit 2 σ below the target.
   // Michel endpoint W = (m_μ² + m_e²)/(2 m_μ) = 52.830 MeV from PDG 2022 masses: within 2 σ.
   '05-hollowmere-stopping.ipynb': (r) => {
     expect(r.protonRight / r.protonTotal).toBeGreaterThanOrEqual(0.95);
     expect(r.kaonRight / r.kaonTotal).toBeGreaterThanOrEqual(0.95);
     expect(r.electronRight).toBe(r.electronTotal);
-    expect(r.pionRight / r.pionTotal).toBeGreaterThanOrEqual(0.75);
-    expect(r.muonRight / r.muonTotal).toBeGreaterThanOrEqual(0.75);
+    expect(r.pionRight / r.pionTotal).toBeGreaterThanOrEqual(0.82);
+    expect(r.muonRight / r.muonTotal).toBeGreaterThanOrEqual(0.82);
     expect(r.michelPdgMeV).toBeCloseTo(52.8304, 3);
     expect(Math.abs(r.michelMeV - r.michelPdgMeV)).toBeLessThan(2 * r.sigmaMichelMeV);
     expect(r.sigmaMichelMeV).toBeLessThan(4);

@@ -22,6 +22,11 @@ export interface MatterFitRun {
   readonly extraRangeVariance: number;
   /** Whether the −2 ln L profile was made (a track ending within a few spacings of its range end). */
   readonly profiled: boolean;
+  /**
+   * Whether the fit ended against the reach limit: the hits asked for a first-hit momentum whose
+   * mean-loss range ends before the last hit, and the reported state is the last one that reaches it.
+   */
+  readonly atReachLimit: boolean;
 }
 
 /** Tracks whose residual range at the last hit is below this many mean spacings get the −2 ln L profile. */
@@ -73,17 +78,25 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
   const n = hits.x.length;
   const hasZ = hits.z !== undefined;
   const start = sc.start, good = sc.good, delta = sc.delta;
-  if (!seedState(hits, model, set.fieldT, set.energyLoss, start, sc.tmp)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+  if (!seedState(hits, model, set.fieldT, set.energyLoss, start, sc.tmp)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
   const prior = sc.prior;
   let goodChi2 = Infinity, lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
+  let atReachLimit = false;
   while (iterations < maxIterations && tries < maxIterations + 3 * MAX_HALVINGS) {
     tries++;
     const code = buildReference(model, hits, start, set, sc);
     lastBuildGood = code === REFERENCE_OK;
-    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
     if (code !== REFERENCE_OK) {
       reached = code;
-        if (++halvings > MAX_HALVINGS) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+      if (++halvings > MAX_HALVINGS) {
+        if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
+        // Every move from the last reaching state towards the hits' optimum stops short of the
+        // last hit: the optimum lies beyond the reach limit (range straggling carries a real
+        // particle past its mean-loss range), so the constrained fit is that state itself.
+        atReachLimit = true;
+        break;
+      }
       lambda *= 0.5;
       if (haveGood) moveStart(model, set, sc, start, good, delta, lambda, goodRange);
       else start[3] *= 0.7; // the seed stops short: raise its momentum
@@ -108,18 +121,18 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     delta[4] = hasZ ? zb[0] : 0; delta[5] = hasZ ? zb[1] : 0;
     const lim = nearlyLinear(sc, n) ? CONVERGED_SIGMAS_LINEAR : CONVERGED_SIGMAS;
     converged = small(b[0], b[3], lim) && small(b[1], b[7], lim) && small(b[2], b[11], lim) && (!hasZ || (small(zb[0], zb[2], lim) && small(zb[1], zb[5], lim)));
-    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
     if (converged) break;
     goodRange = sc.range[0] - sc.range[n - 1] < LOSS_FRACTION_RANGE_MOVE * sc.range[0] ? Infinity : sc.range[0];
     moveStart(model, set, sc, start, good, delta, 1, goodRange);
   }
-  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
   if (!converged) {
     // Accept the last reachable state only when its last move was within its error; rebuild its
     // reference when a later trial overwrote it.
-    if (!(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+    if (!atReachLimit && !(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
     if (!lastBuildGood) {
-      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
       chi2 = backwardPass(sc, n, hasZ, prior);
     }
     // Report the reachable state itself, not the move beyond it.
@@ -142,12 +155,12 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     const sigmaLin = (p0 / Math.abs(est[3])) * ((p0 / (sc.tmp[0] + m)) / sc.tmp[1]) * sigmaLinK;
     if (Number.isFinite(sigmaR) && sigmaR > sigmaLin) extraRangeVariance = sigmaR * sigmaR - sigmaLin * sigmaLin;
     // The scan overwrote the scratch: rebuild the fitted reference.
-    if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false };
+    if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
     chi2 = backwardPass(sc, n, hasZ, prior);
     if (!converged) { sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0; }
   }
   forwardPass(sc, n, hasZ, prior, withResiduals);
-  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5], extraRangeVariance, profiled };
+  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5], extraRangeVariance, profiled, atReachLimit };
 }
 
 /** Whether a change d is below `lim` standard errors (variance v). */

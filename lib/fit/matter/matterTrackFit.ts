@@ -31,7 +31,10 @@ export interface MatterFitOptions {
  * - 'poor-fit': converged, but the χ² probability is below that threshold (a wrong mass
  *   hypothesis, a kink or decay, a wrong hit error, a merged track): numbers are given, not trusted;
  * - 'cannot-reach': the hypothesis stops (its CSDA range is used up) before the hit
- *   `reachedHits` — no momentum at the first hit lets it reach all hits; numbers are NaN;
+ *   `reachedHits` — no momentum at the first hit lets it reach all hits, or only momenta whose
+ *   fit the hits reject (held at the reach limit with a χ² probability below the threshold);
+ *   numbers are NaN. A fit held at the reach limit that the hits accept is reported as a fit:
+ *   range straggling carries real particles past their mean-loss range;
  * - 'diverged': the iterations did not settle or the state became non-finite;
  * - 'too-few-hits': fewer than `MATTER_FIT_MIN_HITS` hits;
  * - 'bad-input': a non-finite coordinate or a non-positive hit error.
