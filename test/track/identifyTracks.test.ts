@@ -21,7 +21,7 @@ import { trackHits } from '../../lib/track/trackHits.js';
  * source 2.7× larger and seed 7, so the sample is not the notebook's. Targets of issue 9: ≥ 95 %
  * of p and K, ≥ 90 % of π and μ, electron spirals as electrons. Reached (seed 7): p 161/162,
  * K 159/162, e 81/81, π 149/162 (92.0 %), μ 153/162 (94.4 %: μ⁺ 101/108, μ⁻ 52/54); seeds 8 and 9
- * gave π 91.4 / 92.6 %, μ 90.7 / 91.4 %, K 98.8 / 97.5 %. Every μ/π miss is a μ ↔ π swap: at equal range the two
+ * gave π 91.4 / 92.6 %, μ 90.7 / 95.7 %, K 98.8 / 97.5 %. Every μ/π miss is a μ ↔ π swap: at equal range the two
  * masses' first-hit momenta differ by only 10–13 % (median), against the 5–6 % that scattering
  * leaves to the curvature of a 20–60 cm track here, so about one track in ten stays ambiguous.
  * The bending-plane filter alone reached π 88 %, μ 62–75 %; the rest comes from re-scoring
