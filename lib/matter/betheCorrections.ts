@@ -25,7 +25,7 @@ export const SHELL_MIN_BETA_GAMMA = 0.13;
  *
  * Valid η ≥ 0.13; below, the value at 0.13 is used (the formula turns over there), which is
  * why the low-energy end is taken from the ICRU 49 fits instead.
- * @example shellCorrectionOverZ(ELEMENTS.Al, 0.5) // ≈ 0.0192
+ * @example shellCorrectionOverZ(ELEMENTS.Al, 0.5) // ≈ 0.00909 (I = 166 eV, Z = 13)
  */
 export function shellCorrectionOverZ(el: Element, betaGammaValue: number): number {
   const eta = Math.max(betaGammaValue, SHELL_MIN_BETA_GAMMA);
