@@ -4,6 +4,7 @@ import { bohrVarianceMeV2 } from '../../matter/bohrStraggling.js';
 import { HIGHLAND_MAX_X_OVER_X0, HIGHLAND_MIN_X_OVER_X0, radiationLengthM } from '../../matter/highland.js';
 import type { Material } from '../../matter/materials.js';
 import type { Particle } from '../../particles.js';
+import { ELECTRON_MASS_MEV } from '../../constants.js';
 
 /**
  * What the track fit needs from lib/matter for one species in one material, prepared once:
@@ -28,7 +29,17 @@ export interface LossModel {
   readonly massGeVSq: number;
   /** Variance of the energy lost per metre [MeV²/m] (Bohr). */
   readonly stragglingMeV2PerM: number;
+  /**
+   * e± only (0 otherwise): variance of the relative momentum lost by bremsstrahlung per radiation
+   * length, ln(4/3)/ln 2 ≈ 0.415 — the small-thickness limit of the Bethe–Heitler distribution
+   * of z = E′/E, var z = 3^(−t/ln 2) − 4^(−t/ln 2) ≈ t ln(4/3)/ln 2 (Bethe & Heitler 1934; its
+   * Gaussian use as process noise in track fits is common practice). Its mean is in the range table.
+   */
+  readonly radiativeVariancePerX0: number;
 }
+
+/** ln(4/3)/ln 2: the Bethe–Heitler variance of the relative energy loss per radiation length (thin layers). */
+export const BETHE_HEITLER_VARIANCE_PER_X0 = Math.log(4 / 3) / Math.LN2;
 
 const MODELS = new WeakMap<Material, Map<string, LossModel>>();
 
@@ -55,6 +66,7 @@ export function lossModel(material: Material, particle: Particle): LossModel {
     lnChargeSq: Math.log(particle.charge * particle.charge),
     massGeVSq: (particle.massMeV / 1000) ** 2,
     stragglingMeV2PerM: bohrVarianceMeV2(material.zOverA, particle.charge, gcm2PerM),
+    radiativeVariancePerX0: Math.abs(particle.massMeV - ELECTRON_MASS_MEV) < 1e-6 ? BETHE_HEITLER_VARIANCE_PER_X0 : 0,
   });
   byParticle.set(key, m);
   return m;

@@ -210,6 +210,8 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
             const dk = kapE / (1000 * pE * betaE);
             n22 += dk * dk * model.stragglingMeV2PerM * al;
           }
+          // e±: bremsstrahlung straggling, var(δκ/κ) = var(δp/p) = 0.415 per radiation length.
+          if (set.energyLoss && model.radiativeVariancePerX0 > 0) n22 += kapE * kapE * model.radiativeVariancePerX0 * al * model.radiationLengthsPerM;
           Q[o] = n00; Q[o + 1] = n01; Q[o + 2] = n02; Q[o + 3] = n01; Q[o + 4] = n11; Q[o + 5] = n12; Q[o + 6] = n02; Q[o + 7] = n12; Q[o + 8] = n22;
           Qz[oz] = z00; Qz[oz + 1] = z01; Qz[oz + 2] = z11;
           if (!Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3])) return REFERENCE_DIVERGED;
