@@ -31,6 +31,12 @@ export interface IdentifyTrackOptions {
   /** |z|; default 1. */
   readonly chargeMagnitude?: number;
   /**
+   * Turning sense in travel order seen from +z (+1 counter-clockwise), e.g. the sign of a circle
+   * fit's κ; default: from the hits' consecutive chords, which a nearly straight track's hit
+   * errors can flip (`identifyTracks` passes the plain fit's sign).
+   */
+  readonly turn?: 1 | -1;
+  /**
    * Least −2 ln L difference between the best and the runner-up for a track that leaves the
    * volume to be identified; default 9 (a 3σ preference for one parameter). Below it: 'undecided'.
    */
@@ -118,7 +124,8 @@ export function identifyTrack(hits: HitCoordinates, options: IdentifyTrackOption
     zOverA: mat.zOverA,
     spacingM: meanHitSpacingM(seg.pathM),
   };
-  const ft = filterTrack(hits.x, hits.y, seg.pathM, hits.sigmaX ?? options.hitErrorM ?? 200e-6);
+  const chords = filterTrack(hits.x, hits.y, seg.pathM, hits.sigmaX ?? options.hitErrorM ?? 200e-6);
+  const ft = options.turn ? { ...chords, turn: options.turn } : chords;
   // Seen from +z a positive particle turns clockwise when B points along +z (F = q v × B).
   const charge = -ft.turn * Math.sign(options.fieldT);
   const scratch = { ...newFilterScratch(n), p: new Float64Array(n) };

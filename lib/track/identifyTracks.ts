@@ -52,7 +52,12 @@ export function identifyTracks(tracks: TrackTable, options: IdentifyTrackOptions
   const pid: string[] = [];
   const identities: TrackIdentity[] = [];
   for (let k = 0; k < n; k++) {
-    const id = identifyTrack(trackHits(tracks, k), opts);
+    // The circle fit's κ sign is the turning sense (its error is far smaller than that of the
+    // hit-to-hit chords on a nearly straight track).
+    const kappa = tracks.kappa[k];
+    const fitted = tracks.status[k] === 'ok' || tracks.status[k] === 'poor-fit';
+    const turn = options.turn ?? (fitted && Number.isFinite(kappa) && kappa !== 0 ? (kappa > 0 ? 1 : -1) : undefined);
+    const id = identifyTrack(trackHits(tracks, k), { ...opts, turn });
     identities.push(id);
     pid.push(id.pid);
     out.deltaM2lnL[k] = id.deltaM2lnL;

@@ -86,6 +86,17 @@ describe('identifyTracks on stopping tracks in liquid propane at 2 T (seed 7)', 
     rel.sort((a, b) => a - b);
     expect(Math.abs(rel[rel.length >> 1])).toBeLessThan(0.01);
   });
+  it('takes the turning sense from a circle fit when given: two displaced end hits flip the chords of a nearly straight track', () => {
+    // κ = 0.22 /m over 0.39 m turns the track by 0.086 rad counter-clockwise; moving the first and
+    // the last hit 2 mm down turns the first chord by +0.4 rad and the last by −0.4 rad.
+    const x = Float64Array.from({ length: 78 }, (_, i) => -0.39 + 0.005 * i);
+    const y = Float64Array.from(x, (v) => 0.5 * 0.22 * (v + 0.39) ** 2);
+    y[0] -= 0.002; y[77] -= 0.002;
+    const hits = { x, y, z: new Float64Array(78) };
+    const o = { fieldT: 2, material: mat, volume, hitErrorM: 2e-4 };
+    expect(identifyTrack(hits, o).charge).toBe(1); // chords: clockwise, so positive in +B
+    expect(identifyTrack(hits, { ...o, turn: 1 }).charge).toBe(-1); // the fit's κ > 0: counter-clockwise, negative
+  });
   it('leaves a straight high-momentum track that exits undecided, with a lower momentum bound', () => {
     // An arc of κ = 0.3 /m (p_T = 2 GeV/c at 2 T) with no curvature change, its last hit 0.5 mm inside the +x face.
     const x = Float64Array.from({ length: 60 }, (_, i) => -0.7 + 0.0255 * i);
