@@ -94,10 +94,13 @@ form, β from --particle) and sigma_p_total_GeV_c (quadrature sum).
 With --material and --particle auto (or a list such as mu-,pi-,proton): each track is fitted
 under every species and the one with the least -2 ln L is chosen (a Kalman filter about the
 species' range-momentum profile, with scattering and straggling; for a track that stops, the
-length must agree with the range). Columns pid (the species, in the names sagitta range
---particle reads, or undecided), pid_delta_m2lnL (-2 ln L of the runner-up minus the best),
-stops (1 when the last hit lies 2 cm or more inside --volume, or without it when the curvature
-rises significantly along the track) and p_min_GeV_c (least momentum
+length must agree with the range, and the masses left are refitted with material and scored by
+that fit's chi2 and its residual range at the last hit; a mass whose fit cannot reach the last
+hit is ruled out). Columns pid (the species, in the names sagitta range --particle reads, or
+undecided), pid_delta_m2lnL (-2 ln L of the runner-up minus the best; empty when every other
+mass was ruled out), stops (1 when the last hit lies 2 cm or more inside --volume, or without it
+when the curvature rises and a stop just past the last hit fits about as well as leaving) and
+p_min_GeV_c (least momentum
 that reaches the last hit), decay_of (the track id of the stopping track this one starts from,
 within 1.5 cm of its last hit: a decay at rest) and decay_distance_m follow; p_GeV_c and
 sigma_p_GeV_c are those of the chosen species (of the charged pion for an undecided track;
