@@ -27,6 +27,8 @@ export interface CsvRows {
   readonly positions?: boolean;
   /** A slice with no rows gives an empty table instead of an error. */
   readonly allowEmpty?: boolean;
+  /** Filled with the number of LF bytes in the slice (so a caller numbering lines across slices need not scan it again). */
+  readonly counted?: { lineEnds: number };
 }
 
 const CR = 13, LF = 10, QUOTE = 34, SPACE = 32;
@@ -75,6 +77,7 @@ export function parseCsvRows(bytes: Uint8Array, layout: CsvLayout, file: string,
   const scale = Float64Array.from(fields.map((f) => f.scale));
   const kind = Uint8Array.from(fields.map((f) => (f.column === undefined ? IGNORED : f.column === 'event' || f.column === 'track' ? ID : NUMBER)));
   let row = 0;
+  let lineEnds = 0;
 
   while (i < n) {
     // Blank line (or trailing CR): not a row.
@@ -82,9 +85,11 @@ export function parseCsvRows(bytes: Uint8Array, layout: CsvLayout, file: string,
     if (c === LF) {
       i++;
       line++;
+      lineEnds++;
       continue;
     }
     if (c === CR && (i + 1 >= n || bytes[i + 1] === LF)) {
+      if (i + 1 < n) lineEnds++;
       i += 2;
       line++;
       continue;
@@ -162,9 +167,13 @@ export function parseCsvRows(bytes: Uint8Array, layout: CsvLayout, file: string,
     // End of row.
     row++;
     if (i < n && bytes[i] === CR) i++;
-    if (i < n && bytes[i] === LF) i++;
+    if (i < n && bytes[i] === LF) {
+      i++;
+      lineEnds++;
+    }
     line++;
   }
+  if (rows.counted) rows.counted.lineEnds = lineEnds;
   return builder.finish(file, unitsOf(fields, layout.lengthUnit), fields.filter((f) => f.column === undefined).map((f) => f.raw), rows.allowEmpty === true);
 }
 

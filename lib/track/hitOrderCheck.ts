@@ -22,7 +22,7 @@ export function checkHitOrder(tracks: TrackTable): number[] {
   let longest = 0;
   for (let k = 0; k < tracks.count; k++) longest = Math.max(longest, offsets[k + 1] - offsets[k]);
   const scratch = newArcLengthSlopes(longest);
-  const steps = new Float64Array(longest);
+  const steps: MedianScratch = { square: new Float64Array(longest), step: new Int32Array(longest) };
   const rows = { x: hits.x, y: hits.y, from: 0, to: 0 };
   const circle = { kappa: 0, phi: 0, d: 0, xRef: 0, yRef: 0 };
   const mixed: number[] = [];
@@ -57,12 +57,35 @@ export function checkHitOrder(tracks: TrackTable): number[] {
 /** Largest median turning angle per hit [rad] (chord × κ) at which the order is judged: 60°. */
 const MAX_STEP_ANGLE = Math.PI / 3;
 
-/** Median distance [m] between consecutive hits of rows [from, to). */
-function medianStep(x: Float64Array, y: Float64Array, from: number, to: number, scratch: Float64Array): number {
+/**
+ * Median distance [m] between consecutive hits of rows [from, to). The squared steps are
+ * insertion-sorted with the index of their step (a track has tens of hits: far quicker than a
+ * typed-array sort per track), and only the median step takes Math.hypot — the same value as
+ * sorting the hypot of every step, since the square is monotonic.
+ */
+function medianStep(x: Float64Array, y: Float64Array, from: number, to: number, scratch: MedianScratch): number {
   const n = to - from - 1;
-  for (let i = 0; i < n; i++) scratch[i] = Math.hypot(x[from + i + 1] - x[from + i], y[from + i + 1] - y[from + i]);
-  const part = scratch.subarray(0, n).sort();
-  return part[n >> 1];
+  const { square, step } = scratch;
+  for (let i = 0; i < n; i++) {
+    const dx = x[from + i + 1] - x[from + i], dy = y[from + i + 1] - y[from + i];
+    const v = dx * dx + dy * dy;
+    let j = i;
+    while (j > 0 && square[j - 1] > v) {
+      square[j] = square[j - 1];
+      step[j] = step[j - 1];
+      j--;
+    }
+    square[j] = v;
+    step[j] = i;
+  }
+  const m = from + step[n >> 1];
+  return Math.hypot(x[m + 1] - x[m], y[m + 1] - y[m]);
+}
+
+/** Scratch of `medianStep` for tracks of up to n hits. */
+interface MedianScratch {
+  readonly square: Float64Array;
+  readonly step: Int32Array;
 }
 
 /** True when the largest step back (in either sense of travel) exceeds the share of the extent. */
