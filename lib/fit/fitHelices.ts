@@ -25,6 +25,12 @@ export interface HelixFitColumns {
   readonly cov: Float64Array;
   readonly chi2Z: Float64Array;
   readonly ndfZ: Int32Array;
+  /**
+   * Arc length s [m] of every hit along its track's fitted circle, the s the line in (s, z) was
+   * fitted to (arcLengthsAndSlopes at κ, φ0, d0 from the reference point); NaN on tracks not
+   * fitted. Given by the two-step fit; absent from methods that fit whole helices.
+   */
+  readonly arcLengthM?: Float64Array;
 }
 
 export interface HelixFit {
@@ -61,6 +67,7 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
   const cov = new Float64Array(15 * count).fill(NaN);
   const chi2Z = new Float64Array(count).fill(NaN);
   const ndfZ = new Int32Array(count);
+  const arcLengthM = new Float64Array(hits.x.length).fill(NaN);
   // Scratch, grown as needed; nothing is allocated per track.
   let w = new Float64Array(64);
   let arcs = newArcLengthSlopes(64);
@@ -86,6 +93,7 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
     const zs = z.subarray(from, to);
     arcLengthsAndSlopes(rows, at, arcs);
     const { s, dsK, dsP, dsD } = arcs;
+    for (let i = 0; i < n; i++) arcLengthM[from + i] = s[i];
     let weights: Float64Array | undefined;
     if (hits.sigmaZ) {
       for (let i = 0; i < n; i++) { const e = hits.sigmaZ[from + i]; w[i] = 1 / (e * e); }
@@ -141,7 +149,7 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
     }
     for (let r = 0, q = 0; r < 5; r++) for (let c = r; c < 5; c++) cov[15 * k + q++] = full[5 * r + c];
   }
-  return { circle, z0, tanLambda, cov, chi2Z, ndfZ };
+  return { circle, z0, tanLambda, cov, chi2Z, ndfZ, arcLengthM };
 }
 
 /** Reads helix fit k as an object with the full 5×5 covariance. */

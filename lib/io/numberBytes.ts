@@ -43,7 +43,7 @@ export function writeInteger(buf: Uint8Array, pos: number, v: number): number {
 export function writePrecision(buf: Uint8Array, pos: number, v: number, digits: number): number {
   const x = v < 0 ? -v : v;
   if (digits > FAST_DIGITS || !(x > 0) || x === Infinity) return writeText(buf, pos, v.toPrecision(digits));
-  let e = Math.floor(Math.log10(x));
+  let e = decade(x);
   let n = 0;
   // log10 may be one off near a power of ten: the bounds on n correct e (at most twice).
   for (let attempt = 0; ; attempt++) {
@@ -89,15 +89,45 @@ export function writePrecision(buf: Uint8Array, pos: number, v: number, digits: 
   return writeDigits(buf, pos, n);
 }
 
-/** Decimal digits of a whole number 0 ≤ n < 2⁵³. */
+/** Decimal powers 1e-22 … 1e22 (those below 1 rounded: they only guess the decade). */
+const DECADES = Float64Array.from({ length: 45 }, (_, k) => 10 ** (k - 22));
+
+/** floor(log10(x)) for 1e-22 ≤ x < 1e23, possibly one off at a power of ten; out of range: ±99. */
+function decade(x: number): number {
+  if (!(x >= DECADES[0])) return -99;
+  if (x >= 1e23) return 99;
+  let lo = 0, hi = DECADES.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if (DECADES[mid] <= x) lo = mid;
+    else hi = mid - 1;
+  }
+  return lo - 22;
+}
+
+/** Decimal digits of a whole number 0 ≤ n < 2⁵³ (in 32-bit pieces: integer division is quick there). */
 function writeDigits(buf: Uint8Array, pos: number, n: number): number {
+  if (n < 2147483648) return writeSmallDigits(buf, pos, n | 0);
+  const high = Math.floor(n / 1e8);
+  pos = writeSmallDigits(buf, pos, high);
+  let low = (n - high * 1e8) | 0;
+  for (let q = pos + 7; q >= pos; q--) {
+    const rest = (low / 10) | 0;
+    buf[q] = ZERO + low - rest * 10;
+    low = rest;
+  }
+  return pos + 8;
+}
+
+/** Decimal digits of 0 ≤ v < 2³¹. */
+function writeSmallDigits(buf: Uint8Array, pos: number, v: number): number {
   let len = 1;
-  while (len < 16 && n >= POW10[len]) len++;
+  while (len < 10 && v >= POW10[len]) len++;
   const end = pos + len;
   for (let q = end - 1; q >= pos; q--) {
-    const rest = Math.floor(n / 10);
-    buf[q] = ZERO + (n - rest * 10);
-    n = rest;
+    const rest = (v / 10) | 0;
+    buf[q] = ZERO + v - rest * 10;
+    v = rest;
   }
   return end;
 }

@@ -26,6 +26,7 @@ export function checkHitOrder(tracks: TrackTable): number[] {
   const rows = { x: hits.x, y: hits.y, from: 0, to: 0 };
   const circle = { kappa: 0, phi: 0, d: 0, xRef: 0, yRef: 0 };
   const mixed: number[] = [];
+  const arcs = tracks.arcLengthM?.length === hits.length ? tracks.arcLengthM : undefined;
   for (let k = 0; k < tracks.count; k++) {
     const n = offsets[k + 1] - offsets[k];
     if (tracks.status[k] !== 'ok' || n < 4) continue;
@@ -39,8 +40,13 @@ export function checkHitOrder(tracks: TrackTable): number[] {
     if (!Number.isFinite(circle.kappa) || !Number.isFinite(circle.phi)) continue;
     // A circle sampled more coarsely than a sixth of a turn per hit (a small curl-up) cannot tell order from geometry.
     if (medianStep(hits.x, hits.y, rows.from, rows.to, steps) * Math.abs(circle.kappa) > MAX_STEP_ANGLE) continue;
+    // The helix fit kept the arc lengths it measured along this very circle: the same numbers.
+    if (arcs !== undefined) {
+      if (runsBack(arcs, rows.from, n, Math.abs(circle.kappa))) mixed.push(k);
+      continue;
+    }
     arcLengthsAndSlopes(rows, circle, scratch);
-    if (runsBack(scratch.s, n, Math.abs(circle.kappa))) mixed.push(k);
+    if (runsBack(scratch.s, 0, n, Math.abs(circle.kappa))) mixed.push(k);
   }
   if (mixed.length > 0) {
     const first = mixed[0];
@@ -88,12 +94,12 @@ interface MedianScratch {
   readonly step: Int32Array;
 }
 
-/** True when the largest step back (in either sense of travel) exceeds the share of the extent. */
-function runsBack(s: Float64Array, n: number, absKappa: number): boolean {
-  let lo = s[0], hi = s[0];
+/** True when the largest step back (in either sense of travel) in s[from, from + n) exceeds the share of the extent. */
+function runsBack(s: Float64Array, from: number, n: number, absKappa: number): boolean {
+  let lo = s[from], hi = s[from];
   let backForward = 0, backReverse = 0;
-  let maxSoFar = s[0], minSoFar = s[0];
-  for (let i = 1; i < n; i++) {
+  let maxSoFar = s[from], minSoFar = s[from];
+  for (let i = from + 1; i < from + n; i++) {
     const v = s[i];
     if (v < lo) lo = v;
     if (v > hi) hi = v;
