@@ -45,7 +45,7 @@ export function writePrecision(buf: Uint8Array, pos: number, v: number, digits: 
   if (digits > FAST_DIGITS || !(x > 0) || x === Infinity) return writeText(buf, pos, v.toPrecision(digits));
   let e = decade(x);
   let n = 0;
-  // log10 may be one off near a power of ten: the bounds on n correct e (at most twice).
+  // The decade guess may be one low: the bounds on n correct e (at most twice).
   for (let attempt = 0; ; attempt++) {
     const k = digits - 1 - e;
     if (k > 22 || k < -22 || attempt > 2) return writeText(buf, pos, v.toPrecision(digits));
@@ -58,51 +58,63 @@ export function writePrecision(buf: Uint8Array, pos: number, v: number, digits: 
     else if (n < POW10[digits - 1]) e--;
     else break;
   }
+  significand(n, digits);
   if (v < 0) buf[pos++] = MINUS;
   if (e < -6 || e >= digits) {
     // d.ddd…e±x
-    const start = pos;
-    pos = writeDigits(buf, pos + 1, n);
-    buf[start] = buf[start + 1];
-    if (digits > 1) buf[start + 1] = DOT;
-    else pos--;
+    buf[pos++] = SIGNIFICAND[0];
+    if (digits > 1) buf[pos++] = DOT;
+    for (let q = 1; q < digits; q++) buf[pos++] = SIGNIFICAND[q];
     buf[pos++] = LOWER_E;
     buf[pos++] = e < 0 ? MINUS : PLUS;
-    return writeDigits(buf, pos, e < 0 ? -e : e);
+    return writeSmallDigits(buf, pos, e < 0 ? -e : e);
   }
   if (e >= 0) {
     // e + 1 digits before the point, the rest after it (no point when there is no rest).
-    const start = pos;
-    pos = writeDigits(buf, pos + 1, n);
-    if (e === digits - 1) {
-      buf.copyWithin(start, start + 1, pos);
-      return pos - 1;
-    }
-    buf.copyWithin(start, start + 1, start + 1 + e + 1);
-    buf[start + e + 1] = DOT;
+    for (let q = 0; q <= e; q++) buf[pos++] = SIGNIFICAND[q];
+    if (e < digits - 1) buf[pos++] = DOT;
+    for (let q = e + 1; q < digits; q++) buf[pos++] = SIGNIFICAND[q];
     return pos;
   }
   // 0.000ddd
   buf[pos++] = ZERO;
   buf[pos++] = DOT;
   for (let z = -1; z > e; z--) buf[pos++] = ZERO;
-  return writeDigits(buf, pos, n);
+  for (let q = 0; q < digits; q++) buf[pos++] = SIGNIFICAND[q];
+  return pos;
 }
 
-/** Decimal powers 1e-22 … 1e22 (those below 1 rounded: they only guess the decade). */
-const DECADES = Float64Array.from({ length: 45 }, (_, k) => 10 ** (k - 22));
+/** The digits of the last significand, as ASCII (one buffer: writing is single-threaded per thread). */
+const SIGNIFICAND = new Uint8Array(FAST_DIGITS);
 
-/** floor(log10(x)) for 1e-22 ≤ x < 1e23, possibly one off at a power of ten; out of range: ±99. */
-function decade(x: number): number {
-  if (!(x >= DECADES[0])) return -99;
-  if (x >= 1e23) return 99;
-  let lo = 0, hi = DECADES.length - 1;
-  while (lo < hi) {
-    const mid = (lo + hi + 1) >> 1;
-    if (DECADES[mid] <= x) lo = mid;
-    else hi = mid - 1;
+/** Fills SIGNIFICAND with the `digits` digits of n (10^(digits−1) ≤ n < 10^digits ≤ 10¹⁰), in 32-bit halves. */
+function significand(n: number, digits: number): void {
+  const high = Math.floor(n / 100000);
+  let low = (n - high * 100000) | 0;
+  let q = digits - 1;
+  for (const stop = Math.max(0, digits - 5); q >= stop; q--) {
+    const rest = (low / 10) | 0;
+    SIGNIFICAND[q] = ZERO + low - rest * 10;
+    low = rest;
   }
-  return lo - 22;
+  let h = high | 0;
+  for (; q >= 0; q--) {
+    const rest = (h / 10) | 0;
+    SIGNIFICAND[q] = ZERO + h - rest * 10;
+    h = rest;
+  }
+}
+
+/** The double's bits, to read its binary exponent (the high word's index depends on the byte order). */
+const BITS = new Float64Array(1);
+const WORDS = new Uint32Array(BITS.buffer);
+const HIGH_WORD = new Uint8Array(Uint16Array.of(1).buffer)[0] === 1 ? 1 : 0;
+
+/** floor(log10(x)) for a positive finite x, or one less: from the binary exponent (× log10 2). */
+function decade(x: number): number {
+  BITS[0] = x;
+  const binary = ((WORDS[HIGH_WORD] >>> 20) & 0x7ff) - 1023;
+  return Math.floor(binary * 0.30102999566398120);
 }
 
 /** Decimal digits of a whole number 0 ≤ n < 2⁵³ (in 32-bit pieces: integer division is quick there). */
