@@ -39,7 +39,7 @@ export function checkHitOrder(tracks: TrackTable): number[] {
     circle.yRef = tracks.yRef[k];
     if (!Number.isFinite(circle.kappa) || !Number.isFinite(circle.phi)) continue;
     // A circle sampled more coarsely than a sixth of a turn per hit (a small curl-up) cannot tell order from geometry.
-    if (medianStep(hits.x, hits.y, rows.from, rows.to, steps) * Math.abs(circle.kappa) > MAX_STEP_ANGLE) continue;
+    if (coarselySampled(hits.x, hits.y, rows.from, rows.to, Math.abs(circle.kappa), steps)) continue;
     // The helix fit kept the arc lengths it measured along this very circle: the same numbers.
     if (arcs !== undefined) {
       if (runsBack(arcs, rows.from, n, Math.abs(circle.kappa))) mixed.push(k);
@@ -62,6 +62,33 @@ export function checkHitOrder(tracks: TrackTable): number[] {
 
 /** Largest median turning angle per hit [rad] (chord × κ) at which the order is judged: 60°. */
 const MAX_STEP_ANGLE = Math.PI / 3;
+
+/** Relative margin around the step limit inside which the median is taken exactly. */
+const NEAR_LIMIT = 1e-6;
+
+/**
+ * True when the median step between consecutive hits of rows [from, to), times |κ|, exceeds
+ * MAX_STEP_ANGLE. Usually decided by counting the squared steps clearly below and clearly above
+ * the limit (one pass, no sort); when the median lies within NEAR_LIMIT of it, by the median
+ * itself — so the verdict is always the exact one.
+ */
+function coarselySampled(x: Float64Array, y: Float64Array, from: number, to: number, absKappa: number, scratch: MedianScratch): boolean {
+  const n = to - from - 1;
+  const limit = MAX_STEP_ANGLE / absKappa;
+  const below = (limit * (1 - NEAR_LIMIT)) ** 2, above = (limit * (1 + NEAR_LIMIT)) ** 2;
+  let under = 0, over = 0;
+  for (let i = from; i < to - 1; i++) {
+    const dx = x[i + 1] - x[i], dy = y[i + 1] - y[i];
+    const q = dx * dx + dy * dy;
+    if (q < below) under++;
+    else if (q > above) over++;
+  }
+  // The median is the (m + 1)-th smallest step, m = ⌊n/2⌋.
+  const m = n >> 1;
+  if (under >= m + 1) return false;
+  if (over >= n - m) return true;
+  return medianStep(x, y, from, to, scratch) * absKappa > MAX_STEP_ANGLE;
+}
 
 /**
  * Median distance [m] between consecutive hits of rows [from, to). The squared steps are
