@@ -1,16 +1,16 @@
 import { performance } from 'node:perf_hooks';
-import { availableParallelism } from 'node:os';
 import { closeSync, openSync, readFileSync, statSync } from 'node:fs';
 import { type SagittaWarning } from '../../lib/index.js';
 import { msg } from '../../lib/internal.js';
 import { loadBatchJob } from './batchJobs.js';
 import { columnarChunks } from './columnarChunks.js';
+import { batchThreads, stopEarlyWorkers } from './earlyWorkers.js';
 import { inputFormatOf, type InputFormat } from './inputFormat.js';
 import { errorFromData, errorToData, processChunk, type Chunk, type ChunkOutcome, type ChunkSettings, type ResultFormat } from './processChunk.js';
 import { Progress } from './progress.js';
 import { ResultSink, type ByteTarget } from './resultSink.js';
 import type { Shard } from './shard.js';
-import { CHUNK_BYTES, textChunks, type TextChunk } from './textChunks.js';
+import { textChunks, type TextChunk } from './textChunks.js';
 import { WorkerPool, type Settled } from './workerPool.js';
 
 /** One batch run: an input hit file through a job into one result output. */
@@ -71,7 +71,7 @@ export async function runBatch(o: BatchRunOptions): Promise<BatchTotals> {
   const size = statSync(o.input).size;
   const job = await loadBatchJob(o.job);
   const settings: ChunkSettings = { file: o.input, lengthUnit: o.lengthUnit, format: o.format, shard: o.shard, jobOptions: o.jobOptions };
-  const threads = Math.max(1, Math.min(o.threads ?? availableParallelism(), 64, Math.ceil(size / CHUNK_BYTES)));
+  const threads = batchThreads(o.threads, size);
   const progress = o.progress ? new Progress(o.progressLabel ?? 'reading', size) : undefined;
   let sink = new ResultSink(o.format, o.target);
   const totals = newTotals(format, threads);
@@ -110,6 +110,7 @@ export async function runBatch(o: BatchRunOptions): Promise<BatchTotals> {
   } finally {
     progress?.stop();
     await pool?.close();
+    await stopEarlyWorkers();
   }
 }
 

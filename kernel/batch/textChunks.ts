@@ -1,5 +1,6 @@
 import { closeSync, openSync, readSync } from 'node:fs';
 import { type CsvLayout, type HeaderField, jsonlFields, msg, readCsvLayout } from '../../lib/internal.js';
+import { CHUNK_BYTES } from './chunkBytes.js';
 
 /** A piece of a CSV or JSON Lines hit file holding whole events, ready to be parsed anywhere. */
 export interface TextChunk {
@@ -13,8 +14,7 @@ export interface TextChunk {
 }
 
 const LF = 10, QUOTE = 34;
-/** Target chunk size. Fixed (not tied to the thread count), though results do not depend on it. */
-export const CHUNK_BYTES = 4 << 20;
+export { CHUNK_BYTES };
 
 /**
  * Reads a text hit file in chunks of about CHUNK_BYTES that end at an event boundary: a chunk

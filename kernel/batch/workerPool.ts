@@ -1,5 +1,6 @@
 import { Worker } from 'node:worker_threads';
 import { workerUrl } from '../packageMode.js';
+import { adoptEarlyWorker } from './earlyWorkers.js';
 import { errorFromData, type Chunk, type ChunkOutcome, type ChunkSettings, type ErrorData } from './processChunk.js';
 
 const ENTRY = workerUrl('kernel/batch/batchWorker');
@@ -26,8 +27,11 @@ export class WorkerPool {
 
   constructor(threads: number, jobName: string, settings: ChunkSettings) {
     for (let t = 0; t < threads; t++) {
-      const worker = new Worker(ENTRY, { workerData: { jobName, settings } });
-      const slot = { worker, busy: 0, ready: false };
+      // A worker started with the command (earlyWorkers.ts) gets its settings by message.
+      const adopted = adoptEarlyWorker(jobName);
+      const worker = adopted?.worker ?? new Worker(ENTRY, { workerData: { jobName, settings } });
+      if (adopted) worker.postMessage({ settings });
+      const slot = { worker, busy: 0, ready: adopted?.ready ?? false };
       worker.on('message', (m: Reply) => {
         if (m.ready) {
           slot.ready = true;
