@@ -1,17 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { seededRandom } from '../../lib/simulate/rng.js';
-import { CHUNK_BYTES } from '../../kernel/batch/textChunks.js';
+import { CHUNK_BYTES } from '../../kernel/batch/chunkBytes.js';
 
 const BIN = fileURLToPath(new URL('../../kernel/bin/sagitta.js', import.meta.url));
 const dir = mkdtempSync(join(tmpdir(), 'sagitta-threads-'));
 
 function sagitta(...args: string[]) {
-  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8', cwd: dir });
+  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8', cwd: dir, timeout: 120_000 });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
@@ -58,5 +58,11 @@ describe('sagitta fit with worker threads', () => {
       expect(o.summary.match(/fitted \d+, failed \d+/)?.[0]).toBe(outs[0].summary.match(/fitted \d+, failed \d+/)?.[0]);
     }
     expect(outs[0].summary).toMatch(/fitted 15835, failed 165/);
+  });
+  it('a usage error after the worker threads have started (with the command) ends at once, exit 2, nothing written', () => {
+    const r = sagitta('fit', hits, '--field', 'bad', '--threads', '2', '--out', 'never.csv');
+    expect(r.code, r.stderr).toBe(2);
+    expect(r.stderr).toMatch(/--field/);
+    expect(existsSync(join(dir, 'never.csv'))).toBe(false);
   });
 });
