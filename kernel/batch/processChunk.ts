@@ -59,11 +59,15 @@ export function processChunk(chunk: Chunk, job: BatchJob<unknown>, s: ChunkSetti
   let lines = 0;
   if (chunk.kind === 'table') all = chunk.hits;
   else {
-    const rows = { start: 0, end: chunk.bytes.length, firstLine: 1, positionBase: chunk.positionBase, positions, allowEmpty: true };
-    all = chunk.kind === 'csv'
-      ? parseCsvRows(chunk.bytes, chunk.layout!, s.file, rows)
-      : parseJsonlRows(chunk.bytes, s.file, rows, { lengthUnit: s.lengthUnit }, chunk.fields);
-    for (let i = chunk.bytes.indexOf(10); i >= 0; i = chunk.bytes.indexOf(10, i + 1)) lines++;
+    const counted = { lineEnds: 0 };
+    const rows = { start: 0, end: chunk.bytes.length, firstLine: 1, positionBase: chunk.positionBase, positions, allowEmpty: true, counted };
+    if (chunk.kind === 'csv') {
+      all = parseCsvRows(chunk.bytes, chunk.layout!, s.file, rows);
+      lines = counted.lineEnds;
+    } else {
+      all = parseJsonlRows(chunk.bytes, s.file, rows, { lengthUnit: s.lengthUnit }, chunk.fields);
+      for (let i = chunk.bytes.indexOf(10); i >= 0; i = chunk.bytes.indexOf(10, i + 1)) lines++;
+    }
   }
   const counts: Record<string, number> = {};
   const events = eventRuns(all);

@@ -1,16 +1,16 @@
 import { performance } from 'node:perf_hooks';
-import { availableParallelism } from 'node:os';
 import { closeSync, openSync, readFileSync, statSync } from 'node:fs';
 import { type SagittaWarning } from '../../lib/index.js';
 import { msg } from '../../lib/internal.js';
 import { loadBatchJob } from './batchJobs.js';
 import { columnarChunks } from './columnarChunks.js';
+import { batchThreads, stopEarlyWorkers } from './earlyWorkers.js';
 import { inputFormatOf, type InputFormat } from './inputFormat.js';
 import { errorFromData, errorToData, processChunk, type Chunk, type ChunkOutcome, type ChunkSettings, type ResultFormat } from './processChunk.js';
 import { Progress } from './progress.js';
 import { ResultSink, type ByteTarget } from './resultSink.js';
 import type { Shard } from './shard.js';
-import { CHUNK_BYTES, textChunks, type TextChunk } from './textChunks.js';
+import { textChunks, type TextChunk } from './textChunks.js';
 import { WorkerPool, type Settled } from './workerPool.js';
 
 /** One batch run: an input hit file through a job into one result output. */
@@ -58,7 +58,8 @@ class NotGrouped extends Error {}
 
 /**
  * Streams a hit file through a batch job: the input is read in chunks of whole events, each
- * chunk is parsed and processed in a worker thread (or here, with one thread), and the results
+ * chunk is parsed and processed in a worker thread or here — N threads are N − 1 workers and
+ * this thread, which works a chunk itself whenever no worker has room for it — and the results
  * are written in input order — so the output is byte-identical whatever the thread count. When
  * an event reappears after others, the file cannot be streamed; it is then read whole and
  * regrouped as `readHits` does (same results), and the totals say so.
@@ -70,26 +71,25 @@ export async function runBatch(o: BatchRunOptions): Promise<BatchTotals> {
   const size = statSync(o.input).size;
   const job = await loadBatchJob(o.job);
   const settings: ChunkSettings = { file: o.input, lengthUnit: o.lengthUnit, format: o.format, shard: o.shard, jobOptions: o.jobOptions };
-  const threads = Math.max(1, Math.min(o.threads ?? availableParallelism(), 64, Math.ceil(size / CHUNK_BYTES)));
+  const threads = batchThreads(o.threads, size);
   const progress = o.progress ? new Progress(o.progressLabel ?? 'reading', size) : undefined;
   let sink = new ResultSink(o.format, o.target);
   const totals = newTotals(format, threads);
   let pool: WorkerPool | undefined;
   try {
-    pool = threads > 1 ? new WorkerPool(threads, o.job, settings) : undefined;
-    const run = (chunk: Chunk): Promise<Settled> => {
-      if (pool) return pool.submit(chunk);
+    pool = threads > 1 ? new WorkerPool(threads - 1, o.job, settings) : undefined;
+    const here = (chunk: Chunk): Settled => {
       try {
-        return Promise.resolve({ outcome: processChunk(chunk, job, settings) });
+        return { outcome: processChunk(chunk, job, settings) };
       } catch (err) {
-        return Promise.resolve({ error: errorToData(err) });
+        return { error: errorToData(err) };
       }
     };
     const source = format === 'csv' || format === 'jsonl'
       ? textChunks(o.input, format, o.lengthUnit, (done) => progress?.update(done))
       : await columnarChunks(o.input, format, o.lengthUnit, settings.shard !== undefined, (done) => progress?.update(done));
     try {
-      await pipeline(source, run, threads, sink, totals);
+      await pipeline(source, here, pool, threads, sink, totals);
     } catch (err) {
       if (!(err instanceof NotGrouped)) throw err;
       // Not grouped by event: read whole, as one chunk (bounded memory is not possible here).
@@ -99,15 +99,8 @@ export async function runBatch(o: BatchRunOptions): Promise<BatchTotals> {
       }
       sink = new ResultSink(o.format, o.target);
       Object.assign(totals, newTotals(format, 1), { readWhole: true });
-      const run1 = (c: Chunk): Promise<Settled> => {
-        try {
-          return Promise.resolve({ outcome: processChunk(c, job, settings) });
-        } catch (err) {
-          return Promise.resolve({ error: errorToData(err) });
-        }
-      };
       const whole = await wholeChunk(o.input, format, o.lengthUnit, settings.shard !== undefined);
-      await pipeline(whole, run1, 1, sink, totals);
+      await pipeline(whole, here, undefined, 1, sink, totals);
     }
     if ((totals.counts.hits ?? 0) + (totals.counts.other_shard_hits ?? 0) === 0) {
       throw msg.emptyFile(o.input, format === 'jsonl' ? 'one JSON object per line' : 'at least one data row after the header');
@@ -117,22 +110,32 @@ export async function runBatch(o: BatchRunOptions): Promise<BatchTotals> {
   } finally {
     progress?.stop();
     await pool?.close();
+    await stopEarlyWorkers();
   }
 }
 
+/** A chunk handed out: settled at once when worked here, later when a worker replies. */
+interface InFlight {
+  settled?: Settled;
+  readonly reply?: Promise<Settled>;
+}
+
 /**
- * Keeps up to 2 × threads chunks in flight and consumes their outcomes in order. Results are held
- * back until the whole input has proved grouped only as far as needed: rows are written as soon
- * as their chunk is known not to repeat an earlier event.
+ * Hands each chunk to a worker with room, or works it here, and consumes the outcomes in input
+ * order as they are ready, keeping at most 8 × threads chunks in flight. Results are held back
+ * only until their chunk is known not to repeat an earlier event (the input is grouped so far).
  */
-async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, run: (c: Chunk) => Promise<Settled>, threads: number, sink: ResultSink, totals: MutableTotals): Promise<void> {
-  const inFlight: Promise<Settled>[] = [];
+async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, here: (c: Chunk) => Settled, pool: WorkerPool | undefined, threads: number, sink: ResultSink, totals: MutableTotals): Promise<void> {
+  const inFlight: InFlight[] = [];
+  // Outcomes worked here wait in order behind a worker's chunk: a few MB at most.
+  const limit = 8 * threads;
   const seen = new Set<number | string>();
   let lineBase = 0;
   let firstChunk = true;
   let lastTurn = performance.now();
   const consume = async (): Promise<void> => {
-    const settled = await inFlight.shift()!;
+    const head = inFlight.shift()!;
+    const settled = head.settled ?? (await head.reply!);
     if ('error' in settled) throw errorFromData(settled.error, lineBase);
     const out = settled.outcome;
     const fresh = new Set<number | string>();
@@ -145,19 +148,24 @@ async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, run: (c:
     addOutcome(totals, out);
     sink.begin(out.names);
     await sink.add(out.encoded, out.table);
-    // A turn of the event loop every 50 ms of work, so a Ctrl-C (SIGINT, SIGTERM) is handled
-    // promptly even when every chunk is worked in this thread: the command stops with nothing written.
-    if (performance.now() - lastTurn > 50) {
-      await new Promise((resolve) => setImmediate(resolve));
-      lastTurn = performance.now();
-    }
   };
   for await (const chunk of source) {
     if (firstChunk && chunk.kind === 'csv') lineBase = chunk.layout!.bodyLine - 1;
     firstChunk = false;
-    inFlight.push(run(chunk));
-    inFlight.at(-1)!.catch(() => undefined);
-    if (inFlight.length >= 2 * threads) await consume();
+    if (pool?.hasRoom()) {
+      const reply = pool.submit(chunk);
+      const entry: InFlight = { reply };
+      reply.then((v) => (entry.settled = v), () => undefined);
+      inFlight.push(entry);
+    } else inFlight.push({ settled: here(chunk) });
+    while (inFlight.length > 0 && (inFlight[0].settled !== undefined || inFlight.length >= limit)) await consume();
+    // A turn of the event loop after every chunk with workers (their replies arrive then), and
+    // every 50 ms of work without, so a Ctrl-C (SIGINT, SIGTERM) is handled promptly even when
+    // every chunk is worked in this thread: the command stops with nothing written.
+    if (pool !== undefined || performance.now() - lastTurn > 50) {
+      await new Promise((resolve) => setImmediate(resolve));
+      lastTurn = performance.now();
+    }
   }
   while (inFlight.length > 0) await consume();
 }

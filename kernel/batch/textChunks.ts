@@ -1,10 +1,11 @@
 import { closeSync, openSync, readSync } from 'node:fs';
 import { type CsvLayout, type HeaderField, jsonlFields, msg, readCsvLayout } from '../../lib/internal.js';
+import { CHUNK_BYTES } from './chunkBytes.js';
 
 /** A piece of a CSV or JSON Lines hit file holding whole events, ready to be parsed anywhere. */
 export interface TextChunk {
   readonly kind: 'csv' | 'jsonl';
-  /** Exactly the chunk's bytes (their own ArrayBuffer, so they can be moved to a worker). */
+  /** The chunk's bytes: a view of an ArrayBuffer no other chunk shares, so it can be moved to a worker. */
   readonly bytes: Uint8Array;
   /** Byte offset of the chunk in the file. */
   readonly positionBase: number;
@@ -13,8 +14,7 @@ export interface TextChunk {
 }
 
 const LF = 10, QUOTE = 34;
-/** Target chunk size. Fixed (not tied to the thread count), though results do not depend on it. */
-export const CHUNK_BYTES = 4 << 20;
+export { CHUNK_BYTES };
 
 /**
  * Reads a text hit file in chunks of about CHUNK_BYTES that end at an event boundary: a chunk
@@ -68,7 +68,9 @@ export function* textChunks(path: string, kind: 'csv' | 'jsonl', lengthUnit: str
       let start = 0;
       if (first && layout) start = layout.bodyStart;
       else if (first) start = buf.length >= 3 && buf[0] === 0xef && buf[1] === 0xbb && buf[2] === 0xbf ? 3 : 0;
-      const chunk = buf.slice(start, cut);
+      // The chunk is a view of the buffer just read (no copy; the buffer is the chunk's alone
+      // once the part after the cut is copied out as the next carry).
+      const chunk = buf.subarray(start, cut);
       carry = buf.slice(cut);
       yield { kind, bytes: chunk, positionBase: fileOffset + start, ...(layout ? { layout } : {}), ...(fields ? { fields } : {}) };
       fileOffset += cut;

@@ -1,5 +1,6 @@
 import { Worker } from 'node:worker_threads';
 import { workerUrl } from '../packageMode.js';
+import { adoptEarlyWorker } from './earlyWorkers.js';
 import { errorFromData, type Chunk, type ChunkOutcome, type ChunkSettings, type ErrorData } from './processChunk.js';
 
 const ENTRY = workerUrl('kernel/batch/batchWorker');
@@ -9,23 +10,33 @@ type Reply = { id: number; outcome?: ChunkOutcome; error?: ErrorData; ready?: bo
 /** A chunk's outcome, or the error it raised as plain data (so the caller can place its line). */
 export type Settled = { outcome: ChunkOutcome } | { error: ErrorData };
 
+/** Chunks a worker holds at most (one worked, one waiting), so it never waits for the next. */
+const QUEUE = 2;
+
 /**
  * A fixed set of worker threads running one batch job. `submit` hands a chunk to the least busy
  * worker and returns a promise of its outcome; callers await them in submission order, so the
- * output order never depends on which thread finished first.
+ * output order never depends on which thread finished first. `hasRoom` tells the caller whether
+ * a started worker would take a chunk now; when none would, the caller works it itself.
  */
 export class WorkerPool {
-  private readonly workers: { worker: Worker; busy: number }[] = [];
+  private readonly workers: { worker: Worker; busy: number; ready: boolean }[] = [];
   private readonly waiting = new Map<number, (s: Settled) => void>();
   private nextId = 0;
   private failure: Error | undefined;
 
   constructor(threads: number, jobName: string, settings: ChunkSettings) {
     for (let t = 0; t < threads; t++) {
-      const worker = new Worker(ENTRY, { workerData: { jobName, settings } });
-      const slot = { worker, busy: 0 };
+      // A worker started with the command (earlyWorkers.ts) gets its settings by message.
+      const adopted = adoptEarlyWorker(jobName);
+      const worker = adopted?.worker ?? new Worker(ENTRY, { workerData: { jobName, settings } });
+      if (adopted) worker.postMessage({ settings });
+      const slot = { worker, busy: 0, ready: adopted?.ready ?? false };
       worker.on('message', (m: Reply) => {
-        if (m.ready) return;
+        if (m.ready) {
+          slot.ready = true;
+          return;
+        }
         slot.busy--;
         const done = this.waiting.get(m.id);
         this.waiting.delete(m.id);
@@ -39,9 +50,17 @@ export class WorkerPool {
     }
   }
 
+  /**
+   * True when a started worker holds fewer than QUEUE chunks, or one still starting holds none
+   * (it works that one as soon as it has loaded, while the caller works the next ones itself).
+   */
+  hasRoom(): boolean {
+    return this.failure === undefined && this.workers.some((w) => w.busy < (w.ready ? QUEUE : 1));
+  }
+
   submit(chunk: Chunk): Promise<Settled> {
     if (this.failure) return Promise.reject(this.failure);
-    const slot = this.workers.reduce((a, b) => (b.busy < a.busy ? b : a));
+    const slot = this.workers.reduce((a, b) => (Number(b.ready) - Number(a.ready) || a.busy - b.busy) > 0 ? b : a);
     const id = this.nextId++;
     slot.busy++;
     const transfer = chunk.kind === 'table' ? [] : [chunk.bytes.buffer as ArrayBuffer];

@@ -25,6 +25,12 @@ export interface HelixFitColumns {
   readonly cov: Float64Array;
   readonly chi2Z: Float64Array;
   readonly ndfZ: Int32Array;
+  /**
+   * Arc length s [m] of every hit along its track's fitted circle, the s the line in (s, z) was
+   * fitted to (arcLengthsAndSlopes at κ, φ0, d0 from the reference point); NaN on tracks not
+   * fitted. Given by the two-step fit; absent from methods that fit whole helices.
+   */
+  readonly arcLengthM?: Float64Array;
 }
 
 export interface HelixFit {
@@ -61,8 +67,10 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
   const cov = new Float64Array(15 * count).fill(NaN);
   const chi2Z = new Float64Array(count).fill(NaN);
   const ndfZ = new Int32Array(count);
+  const arcLengthM = new Float64Array(hits.x.length).fill(NaN);
   // Scratch, grown as needed; nothing is allocated per track.
   let w = new Float64Array(64);
+  let zs = new Float64Array(64);
   let arcs = newArcLengthSlopes(64);
   const rows: PointRows = { x: hits.x, y: hits.y, from: 0, to: 0 };
   const at: CircleAt = { kappa: 0, phi: 0, d: 0, xRef: 0, yRef: 0 };
@@ -79,13 +87,15 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
     if (st !== 'ok' && st !== 'not-converged') continue;
     if (w.length < n) {
       w = new Float64Array(2 * n);
+      zs = new Float64Array(2 * n);
       arcs = newArcLengthSlopes(2 * n);
     }
     rows.from = from; rows.to = to;
     at.kappa = circle.kappa[k]; at.phi = circle.phi0[k]; at.d = circle.d0[k]; at.xRef = circle.xRef[k]; at.yRef = circle.yRef[k];
-    const zs = z.subarray(from, to);
+    for (let i = 0; i < n; i++) zs[i] = z[from + i];
     arcLengthsAndSlopes(rows, at, arcs);
     const { s, dsK, dsP, dsD } = arcs;
+    for (let i = 0; i < n; i++) arcLengthM[from + i] = s[i];
     let weights: Float64Array | undefined;
     if (hits.sigmaZ) {
       for (let i = 0; i < n; i++) { const e = hits.sigmaZ[from + i]; w[i] = 1 / (e * e); }
@@ -124,9 +134,9 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
     }
     G[0] = gzK; G[1] = gzP; G[2] = gzD;
     G[3] = gtK; G[4] = gtP; G[5] = gtD;
-    const c6 = circle.cov.subarray(6 * k, 6 * k + 6);
     // Cc as a full 3×3 (row-major) from its upper triangle.
-    const c00 = c6[0], c01 = c6[1], c02 = c6[2], c11 = c6[3], c12 = c6[4], c22 = c6[5];
+    const cc = circle.cov, c6 = 6 * k;
+    const c00 = cc[c6], c01 = cc[c6 + 1], c02 = cc[c6 + 2], c11 = cc[c6 + 3], c12 = cc[c6 + 4], c22 = cc[c6 + 5];
     for (let r = 0; r < 2; r++) {
       const g0 = G[3 * r], g1 = G[3 * r + 1], g2 = G[3 * r + 2];
       GC[3 * r] = g0 * c00 + g1 * c01 + g2 * c02;
@@ -135,13 +145,13 @@ export function fitHelices(hits: SpaceHits, offsets: Int32Array, options: Circle
     }
     full[0] = c00; full[1] = c01; full[2] = c02; full[6] = c11; full[7] = c12; full[12] = c22;
     for (let r = 0; r < 2; r++) for (let c = 0; c < 3; c++) full[5 * c + 3 + r] = GC[3 * r + c];
-    const lineCov = [line.varIntercept, line.covIS, line.covIS, line.varSlope];
     for (let r = 0; r < 2; r++) for (let c = r; c < 2; c++) {
-      full[5 * (3 + r) + 3 + c] = GC[3 * r] * G[3 * c] + GC[3 * r + 1] * G[3 * c + 1] + GC[3 * r + 2] * G[3 * c + 2] + lineCov[2 * r + c];
+      const lineCov = r === 0 ? (c === 0 ? line.varIntercept : line.covIS) : line.varSlope;
+      full[5 * (3 + r) + 3 + c] = GC[3 * r] * G[3 * c] + GC[3 * r + 1] * G[3 * c + 1] + GC[3 * r + 2] * G[3 * c + 2] + lineCov;
     }
     for (let r = 0, q = 0; r < 5; r++) for (let c = r; c < 5; c++) cov[15 * k + q++] = full[5 * r + c];
   }
-  return { circle, z0, tanLambda, cov, chi2Z, ndfZ };
+  return { circle, z0, tanLambda, cov, chi2Z, ndfZ, arcLengthM };
 }
 
 /** Reads helix fit k as an object with the full 5×5 covariance. */

@@ -1,5 +1,6 @@
 import type { DataFrame } from 'danfojs-node';
 import { loadDanfo } from './hitsToDataFrame.js';
+import { MAX_NUMBER_BYTES, writeInteger, writePrecision } from './numberBytes.js';
 
 /**
  * A named, ordered set of equally long columns — the shape every result table takes on its way
@@ -18,64 +19,76 @@ export interface ColumnTable {
   readonly rows: number;
 }
 
-type CellWriter = (i: number) => string;
+/** How a column's cells are written: text (encoded once per distinct value), whole numbers, or to `digits` significant digits. */
+const TEXT = 0, WHOLE = 1, PRECISION = 2;
+
+interface CellColumn {
+  readonly kind: number;
+  readonly numbers: ArrayLike<number>;
+  readonly digits: number;
+  readonly text: readonly string[];
+  readonly encoded: ReadonlyMap<string, Buffer>;
+  /** Most bytes one cell takes. */
+  readonly room: number;
+}
 
 const NEEDS_QUOTES = /[",\n\r]/;
+const NO_NUMBERS = new Float64Array(0);
 
-/** One writer per column, chosen once, so the row loop does no type tests per cell. */
-function cellWriter(c: Column): CellWriter {
+/** The writing plan of one column, chosen once, so the row loop does no type tests per value. */
+function cellColumn(c: Column): CellColumn {
   const values = c.values;
   if (values.length > 0 && typeof values[0] === 'string') {
     const text = values as readonly string[];
-    const quoted = new Map<string, string>();
-    return (i) => {
-      const v = text[i];
-      let q = quoted.get(v);
-      if (q === undefined) {
-        q = NEEDS_QUOTES.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
-        quoted.set(v, q);
-      }
-      return q;
-    };
+    const encoded = new Map<string, Buffer>();
+    let room = 0;
+    for (const v of text) {
+      if (encoded.has(v)) continue;
+      const bytes = Buffer.from(NEEDS_QUOTES.test(v) ? `"${v.replace(/"/g, '""')}"` : v, 'utf8');
+      encoded.set(v, bytes);
+      room = Math.max(room, bytes.length);
+    }
+    return { kind: TEXT, numbers: NO_NUMBERS, digits: 0, text, encoded, room };
   }
   const numbers = values as ArrayLike<number>;
-  if (c.digits === 0) return (i) => (Number.isFinite(numbers[i]) ? String(numbers[i]) : '');
-  const digits = c.digits ?? 10;
-  return (i) => {
-    const v = numbers[i];
-    if (!Number.isFinite(v)) return '';
-    return Number.isInteger(v) && Math.abs(v) < 1e15 ? String(v) : v.toPrecision(digits);
-  };
+  return { kind: c.digits === 0 ? WHOLE : PRECISION, numbers, digits: c.digits ?? 10, text: [], encoded: new Map(), room: MAX_NUMBER_BYTES };
 }
 
 /**
- * CSV bytes (UTF-8) with a header row. Cells are copied straight into one growing buffer: about
- * three times faster than joining strings for a 200 000-row result table.
+ * CSV bytes (UTF-8) with a header row. Cells are written straight into one growing buffer,
+ * numbers without making a string each (numberBytes.ts: the text of String(v) for whole numbers,
+ * of v.toPrecision(digits) otherwise): several times faster than joining strings for a
+ * 200 000-row result table.
  */
 export function formatCsvBytes(table: ColumnTable, options: { readonly header?: boolean } = {}): Uint8Array {
   const { columns, rows } = table;
-  const writers = columns.map(cellWriter);
-  const m = writers.length;
-  let buf = Buffer.allocUnsafeSlow(Math.max(1024, rows * m * 12));
-  let pos = 0;
-  const put = (text: string, end: number): void => {
-    if (pos + 4 * text.length + 1 > buf.length) {
-      const next = Buffer.allocUnsafeSlow(Math.max(2 * buf.length, pos + 4 * text.length + 1));
+  const cells = columns.map(cellColumn);
+  const m = cells.length;
+  let rowRoom = 0;
+  for (const c of cells) rowRoom += c.room + 1;
+  const header = options.header === false ? undefined : Buffer.from(`${columns.map((c) => c.name).join(',')}\n`, 'utf8');
+  const headerBytes = header?.length ?? 0;
+  let buf = Buffer.allocUnsafeSlow(Math.max(1024, headerBytes + rowRoom, rows * m * 12));
+  let pos = header ? header.copy(buf, 0) : 0;
+  for (let i = 0; i < rows; i++) {
+    if (pos + rowRoom > buf.length) {
+      const next = Buffer.allocUnsafeSlow(Math.max(2 * buf.length, pos + rowRoom));
       buf.copy(next, 0, 0, pos);
       buf = next;
     }
-    let ascii = true;
-    for (let q = 0; q < text.length; q++) {
-      const ch = text.charCodeAt(q);
-      if (ch > 127) { ascii = false; break; }
-      buf[pos + q] = ch;
+    for (let j = 0; j < m; j++) {
+      const c = cells[j];
+      if (c.kind === TEXT) pos += c.encoded.get(c.text[i])!.copy(buf, pos);
+      else {
+        const v = c.numbers[i];
+        // NaN and ±Infinity are empty cells.
+        if (v - v === 0) {
+          if (c.kind === WHOLE || (Number.isInteger(v) && Math.abs(v) < 1e15)) pos = writeInteger(buf, pos, v);
+          else pos = writePrecision(buf, pos, v, c.digits);
+        }
+      }
+      buf[pos++] = j === m - 1 ? 10 : 44;
     }
-    pos += ascii ? text.length : buf.write(text, pos, 'utf8');
-    buf[pos++] = end;
-  };
-  if (options.header !== false) for (let j = 0; j < m; j++) put(columns[j].name, j === m - 1 ? 10 : 44);
-  for (let i = 0; i < rows; i++) {
-    for (let j = 0; j < m; j++) put(writers[j](i), j === m - 1 ? 10 : 44);
   }
   return buf.subarray(0, pos);
 }

@@ -27,10 +27,12 @@ export interface CsvRows {
   readonly positions?: boolean;
   /** A slice with no rows gives an empty table instead of an error. */
   readonly allowEmpty?: boolean;
+  /** Filled with the number of LF bytes in the slice (so a caller numbering lines across slices need not scan it again). */
+  readonly counted?: { lineEnds: number };
 }
 
 const CR = 13, LF = 10, QUOTE = 34, SPACE = 32;
-const MINUS = 45, DOT = 46, ZERO = 48, NINE = 57;
+const MINUS = 45, DOT = 46, ZERO = 48;
 const POW10 = Float64Array.from({ length: 16 }, (_, k) => 10 ** k);
 /** Field kinds: ignored, a length or error (number × scale), an id (exact whole number). */
 const IGNORED = 0, NUMBER = 1, ID = 2;
@@ -75,6 +77,7 @@ export function parseCsvRows(bytes: Uint8Array, layout: CsvLayout, file: string,
   const scale = Float64Array.from(fields.map((f) => f.scale));
   const kind = Uint8Array.from(fields.map((f) => (f.column === undefined ? IGNORED : f.column === 'event' || f.column === 'track' ? ID : NUMBER)));
   let row = 0;
+  let lineEnds = 0;
 
   while (i < n) {
     // Blank line (or trailing CR): not a row.
@@ -82,9 +85,11 @@ export function parseCsvRows(bytes: Uint8Array, layout: CsvLayout, file: string,
     if (c === LF) {
       i++;
       line++;
+      lineEnds++;
       continue;
     }
     if (c === CR && (i + 1 >= n || bytes[i + 1] === LF)) {
+      if (i + 1 < n) lineEnds++;
       i += 2;
       line++;
       continue;
@@ -109,15 +114,20 @@ export function parseCsvRows(bytes: Uint8Array, layout: CsvLayout, file: string,
         // Inline fast path for the usual cell, [-]digits[.digits] with at most 15 digits: the
         // significand is exact and one division by an exact power of ten rounds correctly
         // (Clinger's fast path). Anything else goes to scanNumber (or the id reader).
+        // (A digit is one unsigned compare, (byte − '0') >>> 0 < 10; counts come from positions.)
         let j = i;
         let negative = false;
         if (bytes[j] === MINUS) { negative = true; j++; }
-        let mantissa = 0, digits = 0, fraction = 0;
-        while (j < n && (c = bytes[j]) >= ZERO && c <= NINE) { mantissa = mantissa * 10 + (c - ZERO); j++; digits++; }
+        const digitsStart = j;
+        let mantissa = 0, d = 0, fraction = 0, point = 0;
+        while (j < n && (d = bytes[j] - ZERO) >>> 0 < 10) { mantissa = mantissa * 10 + d; j++; }
         if (j < n && bytes[j] === DOT) {
-          j++;
-          while (j < n && (c = bytes[j]) >= ZERO && c <= NINE) { mantissa = mantissa * 10 + (c - ZERO); j++; digits++; fraction++; }
+          const fractionStart = ++j;
+          point = 1;
+          while (j < n && (d = bytes[j] - ZERO) >>> 0 < 10) { mantissa = mantissa * 10 + d; j++; }
+          fraction = j - fractionStart;
         }
+        const digits = j - digitsStart - point;
         const clean = digits > 0 && digits <= 15 && (j >= n || (c = bytes[j]) === delimiter || c === LF || c === CR);
         if (kind[f] === ID) {
           if (clean && fraction === 0 && j > i + (negative ? 1 : 0)) {
@@ -134,7 +144,7 @@ export function parseCsvRows(bytes: Uint8Array, layout: CsvLayout, file: string,
             i = e;
           }
         } else if (clean) {
-          const v = mantissa / POW10[fraction];
+          const v = fraction === 0 ? mantissa : mantissa / POW10[fraction];
           column[row] = (negative ? -v : v) * scale[f];
           i = j;
         } else {
@@ -162,9 +172,13 @@ export function parseCsvRows(bytes: Uint8Array, layout: CsvLayout, file: string,
     // End of row.
     row++;
     if (i < n && bytes[i] === CR) i++;
-    if (i < n && bytes[i] === LF) i++;
+    if (i < n && bytes[i] === LF) {
+      i++;
+      lineEnds++;
+    }
     line++;
   }
+  if (rows.counted) rows.counted.lineEnds = lineEnds;
   return builder.finish(file, unitsOf(fields, layout.lengthUnit), fields.filter((f) => f.column === undefined).map((f) => f.raw), rows.allowEmpty === true);
 }
 

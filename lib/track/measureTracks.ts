@@ -100,6 +100,11 @@ export interface TrackTable {
   readonly offsets: Int32Array;
   /** Row of the input hit table of each row of `hits`. */
   readonly hitRows: Int32Array;
+  /**
+   * Arc length s [m] of each row of `hits` along its track's plain helix fit (as the fit measured
+   * it, from the reference point; NaN where the fit failed). Absent without z and with material.
+   */
+  readonly arcLengthM?: Float64Array;
   /** Hits with a negative track id (not assigned to any track: noise, or not yet found); not fitted. */
   readonly unassignedHits: number;
   /** Count of tracks per status. */
@@ -188,6 +193,7 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
     hits: table,
     offsets: index.offsets,
     hitRows,
+    ...(helix?.arcLengthM ? { arcLengthM: helix.arcLengthM } : {}),
     statusCounts,
     unassignedHits,
   };

@@ -54,7 +54,7 @@ export function registerVertices(program: Command): void {
     .option('--max-dca <quantity>', `largest distance of closest approach of the two tracks (default ${V0_FINDER_DEFAULTS.maxDcaM * 100} cm)`)
     .option('--min-flight <quantity>', `smallest distance from the primary point (default ${V0_FINDER_DEFAULTS.minFlightM * 100} cm)`)
     .option('--max-pointing <angle>', `largest angle between flight direction and V0 momentum (default ${V0_FINDER_DEFAULTS.maxPointingRad * 1000} mrad)`)
-    .option('--threads <n>', `worker threads (default: all ${availableParallelism()} cores); the output is the same for any count`)
+    .option('--threads <n>', `threads to work in: this one and n − 1 workers (default: all ${availableParallelism()} cores); the output is the same for any count`)
     .option('-q, --quiet', 'no progress bar')
     .addHelpText('after', `
 Pairs of opposite-charge tracks in one event are tried; the cuts, in order: the circles come
