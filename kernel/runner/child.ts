@@ -53,11 +53,18 @@ async function handle(m: ToChild): Promise<void> {
       return;
     }
     supplyKnobs(new Map(m.knobs));
-    session = createSession({ workDir });
-    // Compile and run an empty cell so the compiler is built before the first timed cell. (The
-    // session's warmUp() is not called: it builds completion lists for the whole library, which
-    // measured ~4 s here against ~0.5 s for a first cell that imports "sagitta-tracks".)
-    await session.execute('', { stream() {}, display() {}, clear() {}, ask: noInput });
+    // All cells are known: a second thread type-checks and compiles them ahead while earlier cells
+    // run (kernel/session/compileAhead.ts). Ready once the library is loaded and that thread's
+    // compiler is built, so a cell's time still holds its own compile, as when compiled here.
+    if (m.compileAhead) {
+      session = createSession({ workDir, cellsAhead: m.cells.map((c) => c.code) });
+      await session.warmUp?.();
+    } else {
+      session = createSession({ workDir });
+      // Compile and run an empty cell so the compiler is built before the first timed cell. (The
+      // session's warmUp() is not called here: it builds completion lists for the whole library.)
+      await session.execute('', { stream() {}, display() {}, clear() {}, ask: noInput });
+    }
     send({ kind: 'ready', typescript: tslabTs.version, startMs: performance.now() - t0 });
   } else if (m.kind === 'cell') {
     if (!session) throw msg.kernelState('run a cell', 'the notebook process has not started');

@@ -5,8 +5,11 @@ import type { ModuleRecord } from './runRecord.js';
 
 /** Messages from the runner to its child process (over Node's IPC channel, JSON). */
 export type ToChild =
-  /** `cells`: every code cell (index, source), for finding knobs; `knobs`: supplied values as [name, text]. */
-  | { kind: 'start'; workDir: string; cells: Array<{ index: number; code: string }>; knobs: Array<[string, string]> }
+  /**
+   * `cells`: every code cell (index, source), for finding knobs and compiling ahead; `knobs`:
+   * supplied values as [name, text]; `compileAhead`: check and compile the cells on a second thread.
+   */
+  | { kind: 'start'; workDir: string; cells: Array<{ index: number; code: string }>; knobs: Array<[string, string]>; compileAhead: boolean }
   | { kind: 'cell'; index: number; step: number; code: string }
   | { kind: 'close' };
 

@@ -31,6 +31,12 @@ export interface RunNotebookOptions {
   readonly startTimeoutMs?: number;
   /** Folder cells run in (relative paths, local imports). Default: the notebook's folder. */
   readonly workDir?: string;
+  /**
+   * Type-check and compile the cells on a second thread while earlier cells run (default true;
+   * kernel/session/compileAhead.ts). The run is the same either way: a cell runs only once it is
+   * checked, and the first cell with a type error stops it with the same error.
+   */
+  readonly compileAhead?: boolean;
   readonly onProgress?: (event: RunProgress) => void;
 }
 
@@ -48,7 +54,7 @@ export interface NotebookRun {
   readonly overheadMs: readonly number[];
 }
 
-const DEFAULTS = Object.freeze({ cellTimeoutMs: 120_000, keepGoing: false, startTimeoutMs: 120_000 });
+const DEFAULTS = Object.freeze({ cellTimeoutMs: 120_000, keepGoing: false, startTimeoutMs: 120_000, compileAhead: true });
 const CHILD = fileURLToPath(moduleUrl('kernel/runner/child'));
 /** Signals to `sagitta run` itself that stop the run (the notebook process is stopped, the record still written). */
 const STOP_SIGNALS: readonly NodeJS.Signals[] = ['SIGINT', 'SIGTERM', 'SIGHUP'];
@@ -88,7 +94,7 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
   const steps = code.length;
 
   try {
-    channel.send({ kind: 'start', workDir, cells: code, knobs: [...(options.knobs ?? new Map<string, string>())] });
+    channel.send({ kind: 'start', workDir, cells: code, knobs: [...(options.knobs ?? new Map<string, string>())], compileAhead: o.compileAhead });
     const ready = await channel.waitFor((m) => m.kind === 'ready' || m.kind === 'refused' || m.kind === 'fault', o.startTimeoutMs);
     // Each problem is already a BAD_KNOB message naming its knob.
     if (ready.kind === 'message' && ready.message.kind === 'refused') throw new SagittaError('BAD_KNOB', ready.message.problems.join('; '));

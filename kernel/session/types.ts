@@ -68,4 +68,11 @@ export interface SessionOptions {
   workDir: string;
   /** Shared flag the session keeps up to date with the cell's phase (kernel/session/phase.ts). */
   phase?: Int32Array;
+  /**
+   * The code cells that will run, in order, when they are all known before the first runs (a
+   * headless run): they are type-checked and compiled on a second thread while earlier cells run
+   * (compileAhead.ts). `execute` must then be given them in this order; `warmUp()` waits for the
+   * ahead check's compiler.
+   */
+  cellsAhead?: readonly string[];
 }
