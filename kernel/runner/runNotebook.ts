@@ -8,6 +8,7 @@ import type { DisplayDataOutput, Notebook, SagittaCellMeta } from '../notebook/t
 import { runCell } from './cellRecorder.js';
 import { pushStream } from './cellRecorder.js';
 import { ChildChannel } from './childChannel.js';
+import { COMPILE_AHEAD_FLAG } from './messages.js';
 import { exitOutput, exitText, firstLine, formatLimit, lastLine, stepName, stoppedOutput, timeoutOutput } from './failureText.js';
 import { libraryRecord } from './libraryRecord.js';
 import { prepareNotebook } from './prepare.js';
@@ -75,7 +76,7 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
   const startedAt = new Date();
   const t0 = performance.now();
   const library = libraryRecord();
-  const child = fork(CHILD, [], { cwd: workDir, execArgv: childExecArgv(), stdio: ['ignore', 'pipe', 'pipe', 'ipc'], env: { ...process.env, FORCE_COLOR: '0' } });
+  const child = fork(CHILD, o.compileAhead ? [COMPILE_AHEAD_FLAG] : [], { cwd: workDir, execArgv: childExecArgv(), stdio: ['ignore', 'pipe', 'pipe', 'ipc'], env: { ...process.env, FORCE_COLOR: '0' } });
   const channel = new ChildChannel(child);
   let stoppedBy: NodeJS.Signals | undefined;
   const onSignal = (signal: NodeJS.Signals) => {
@@ -94,7 +95,7 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
   const steps = code.length;
 
   try {
-    channel.send({ kind: 'start', workDir, cells: code, knobs: [...(options.knobs ?? new Map<string, string>())], compileAhead: o.compileAhead });
+    channel.send({ kind: 'start', workDir, cells: code, knobs: [...(options.knobs ?? new Map<string, string>())] });
     const ready = await channel.waitFor((m) => m.kind === 'ready' || m.kind === 'refused' || m.kind === 'fault', o.startTimeoutMs);
     // Each problem is already a BAD_KNOB message naming its knob.
     if (ready.kind === 'message' && ready.message.kind === 'refused') throw new SagittaError('BAD_KNOB', ready.message.problems.join('; '));

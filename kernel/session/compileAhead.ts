@@ -16,13 +16,16 @@
  *   (an earlier cell wrote it), or the ahead check's error is about a module that cannot be found
  *   or lacks a name (an earlier cell may have written it): compiled again on a new converter,
  *   which reads the files as they are now.
- * If the thread fails, the cells from there on are compiled in this thread (`fallback`).
+ * If the thread fails, `compile` answers undefined and the caller compiles the cell itself.
+ *
+ * The thread is started before the cells are known (`plan` gives them), so that it builds its
+ * compiler while the process is still loading the library.
  */
 import { statSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
 import type { SideOutput } from 'tslab/dist/converter.js';
 import { workerUrl } from '../packageMode.js';
-import type { CellCompiler, CompiledCell } from './compiledCell.js';
+import type { CompiledCell } from './compiledCell.js';
 
 /** A file as the compiler read it: "size:mtimeMs", or "missing". */
 export interface FileStamp {
@@ -31,44 +34,45 @@ export interface FileStamp {
 }
 
 export type ToAheadThread =
+  /** The cells to compile, in order, from the start. */
+  | { kind: 'plan'; cells: readonly string[] }
   /** Compile from cell `index` (its source `code`) on, starting from `prevDecl`; `fresh`: on a new converter. */
   | { kind: 'restart'; generation: number; index: number; code: string; prevDecl: string; fresh: boolean }
   | { kind: 'close' };
 
 export type FromAheadThread =
-  | { kind: 'ready'; typescript: string }
+  | { kind: 'ready' }
   /** `epoch` counts the thread's converters; `reads`: local files read while compiling this cell. */
   | { kind: 'compiled'; generation: number; epoch: number; index: number; prevDecl: string; cell: CompiledCell; reads: FileStamp[] };
 
 type Compiled = Extract<FromAheadThread, { kind: 'compiled' }>;
 
-export interface CompileAhead extends CellCompiler {
-  /** Resolves once the thread's compiler is built (the first cell is then being compiled). */
-  readonly ready: Promise<void>;
-}
-
-export interface CompileAheadOptions {
+export interface CompileAhead {
+  /** The folder the cells run in (the thread's compiler resolves from it). */
   readonly workDir: string;
-  /** The code cells' sources, in the order they will be compiled. */
-  readonly cells: readonly string[];
-  /** The compiler used in this thread if the ahead thread fails (the caller closes it). */
-  readonly fallback: () => CellCompiler;
+  /** Resolves once the thread's compiler is built (or the thread failed). */
+  readonly ready: Promise<void>;
+  /** The code cells' sources, in the order they will be compiled (once, before the first `compile`). */
+  plan(cells: readonly string[]): void;
+  /**
+   * The next cell, compiled against `prevDecl`; undefined when the thread has failed (compile it
+   * in this thread then). Called for the planned cells in their order; another cell in a
+   * planned cell's place is compiled at its turn, and the thread goes on from there.
+   */
+  compile(prevDecl: string, code: string): Promise<CompiledCell | undefined>;
+  close(): void;
 }
 
 const ENTRY = workerUrl('kernel/session/compileAheadWorker');
 
-/**
- * Starts the ahead check of `cells`. `compile` must then be called for the cells in their order
- * (another cell in their place is compiled at its turn, and the thread goes on from there).
- */
-export function startCompileAhead(options: CompileAheadOptions): CompileAhead {
-  const cells = [...options.cells];
-  const worker = new Worker(ENTRY, { workerData: { workDir: options.workDir, cells } });
+/** Starts the ahead check's thread for cells run in `workDir`. */
+export function startCompileAhead(workDir: string): CompileAhead {
+  let cells: string[] = [];
+  const worker = new Worker(ENTRY, { workerData: { workDir } });
   let generation = 0;
   let epoch = 0;
   let position = 0;
   let failure: Error | undefined;
-  let fallback: CellCompiler | undefined;
   let closed = false;
   const results = new Map<number, Compiled>();
   const waiters = new Set<() => void>();
@@ -143,7 +147,7 @@ export function startCompileAhead(options: CompileAheadOptions): CompileAhead {
     return false;
   }
 
-  async function compile(prevDecl: string, code: string): Promise<CompiledCell> {
+  async function compile(prevDecl: string, code: string): Promise<CompiledCell | undefined> {
     const index = position++;
     if (failure === undefined && (index >= cells.length || cells[index] !== code)) {
       cells[index] = code;
@@ -161,8 +165,7 @@ export function startCompileAhead(options: CompileAheadOptions): CompileAhead {
       fresh = changed || unsure;
       restart(index, code, prevDecl, fresh);
     }
-    fallback ??= options.fallback();
-    return fallback.compile(prevDecl, code);
+    return undefined;
   }
 
   /** The cell with every side output emitted so far that no cell has taken yet. */
@@ -173,7 +176,12 @@ export function startCompileAhead(options: CompileAheadOptions): CompileAhead {
   }
 
   return {
+    workDir,
     ready,
+    plan(planned) {
+      cells = [...planned];
+      worker.postMessage({ kind: 'plan', cells } satisfies ToAheadThread);
+    },
     compile,
     close() {
       if (closed) return;

@@ -1,6 +1,6 @@
 /**
- * The ahead check's thread (compileAhead.ts): its own tslab converter compiles the notebook's
- * cells one after the other, each against the declarations the one before it leaves (as the
+ * The ahead check's thread (compileAhead.ts): it builds its own tslab converter at once, and
+ * once given the notebook's cells (`plan`) compiles them one after the other, each against the declarations the one before it leaves (as the
  * executor would carry them when every cell runs to its end), and posts each compiled cell as
  * soon as it is done. A `restart` message puts it back at a cell with the declarations the
  * running notebook really has there — with `fresh`, on a new converter, which reads every file
@@ -18,9 +18,9 @@ import { expandShorthandProperties } from './expandShorthand.js';
 import { addCompilerRoot, tslabTs } from './moduleRoot.js';
 import type { FileStamp, FromAheadThread, ToAheadThread } from './compileAhead.js';
 
-const { workDir, cells: given } = workerData as { workDir: string; cells: readonly string[] };
+const { workDir } = workerData as { workDir: string };
 const port = parentPort!;
-const cells = [...given];
+let cells: string[] = [];
 
 // The compiler's working folder is the notebook's (a worker thread cannot change the process's).
 tslabTs.sys.getCurrentDirectory = () => workDir;
@@ -39,13 +39,19 @@ let generation = 0;
 let next = 0;
 let prevDecl = '';
 let scheduled = false;
-post({ kind: 'ready', typescript: tslabTs.version });
-schedule();
+post({ kind: 'ready' });
 
 port.on('message', (m: ToAheadThread) => {
   if (m.kind === 'close') {
     converter.close();
     port.close();
+    return;
+  }
+  if (m.kind === 'plan') {
+    cells = [...m.cells];
+    next = 0;
+    prevDecl = '';
+    schedule();
     return;
   }
   generation = m.generation;

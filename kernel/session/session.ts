@@ -2,8 +2,8 @@
  * In-process execution of TypeScript cells: tslab's converter type-checks and compiles each cell
  * against the declarations of the cells before it, and our executor (cellExecutor.ts) runs it in
  * this realm, variables kept between cells. The messaging layer is ours too (kernel/protocol).
- * Given the cells ahead (`cellsAhead`, a headless run), they are compiled on a second thread
- * while earlier cells run (compileAhead.ts); otherwise each cell is compiled here as it comes.
+ * Given the ahead check of a headless run (`ahead`), cells are compiled on its thread while earlier
+ * cells run (compileAhead.ts); otherwise each cell is compiled here as it comes.
  *
  * What a session adds around the executor:
  * - output capture: from the first cell until `close()`, process.stdout/stderr writes, the global
@@ -29,7 +29,7 @@ import { consumeWarnings, formatWarning, type MimeBundle } from '../../lib/index
 import { mimeBundleOf, msg } from '../../lib/internal.js';
 import { converterCompiler, createCellConverter } from './cellConverter.js';
 import { createCellExecutor } from './cellExecutor.js';
-import { startCompileAhead } from './compileAhead.js';
+import type { CellCompiler } from './compiledCell.js';
 import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError.js';
 import { requireFromPackage } from '../packageMode.js';
 import { addCompilerRoot, holdRequireHook, loadLibrary, releaseRequireHook, tslabTs } from './moduleRoot.js';
@@ -52,10 +52,13 @@ export function createSession(options: SessionOptions): Session {
   // The compiler reads the working directory when it is created; it was just set to workDir. With
   // the cells ahead, this thread builds one only for completion and inspection, or if the ahead
   // check's thread fails.
-  let converter: Converter | undefined = options.cellsAhead ? undefined : createCellConverter(workDir);
+  const { ahead } = options;
+  let converter: Converter | undefined = ahead ? undefined : createCellConverter(workDir);
   const converterHere = () => (converter ??= createCellConverter(workDir));
-  const ahead = options.cellsAhead ? startCompileAhead({ workDir, cells: options.cellsAhead, fallback: () => converterCompiler(converterHere()) }) : undefined;
-  const executor = createCellExecutor({ workDir, compiler: ahead ?? converterCompiler(converterHere()), phase: options.phase });
+  const compiler: CellCompiler = ahead
+    ? { compile: async (prevDecl, code) => (await ahead.compile(prevDecl, code)) ?? converterCompiler(converterHere()).compile(prevDecl, code), close: () => ahead.close() }
+    : converterCompiler(converterHere());
+  const executor = createCellExecutor({ workDir, compiler, phase: options.phase });
 
   let running = false;
   let currentHooks: CellHooks | undefined;

@@ -4,6 +4,7 @@
  * nothing here knows about sockets or child processes.
  */
 import { type MimeBundle } from '../../lib/index.js';
+import type { CompileAhead } from './compileAhead.js';
 
 /** Callbacks a running cell uses to emit output while it runs. */
 export interface CellHooks {
@@ -69,10 +70,10 @@ export interface SessionOptions {
   /** Shared flag the session keeps up to date with the cell's phase (kernel/session/phase.ts). */
   phase?: Int32Array;
   /**
-   * The code cells that will run, in order, when they are all known before the first runs (a
-   * headless run): they are type-checked and compiled on a second thread while earlier cells run
-   * (compileAhead.ts). `execute` must then be given them in this order; `warmUp()` waits for the
-   * ahead check's compiler.
+   * The ahead check of a headless run, its cells planned (compileAhead.ts): cells are then
+   * type-checked and compiled on its thread while earlier cells run, and `execute` must be given
+   * them in their order. `warmUp()` then waits for the library and that thread's compiler.
+   * The session closes it.
    */
-  cellsAhead?: readonly string[];
+  ahead?: CompileAhead;
 }

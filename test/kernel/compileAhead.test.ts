@@ -23,6 +23,11 @@ function seen(nb: Notebook): unknown[] {
   return nb.cells.filter((c) => c.cell_type === 'code').map((c) => ({ outputs: c.outputs, count: c.execution_count, outcome: (c.metadata.sagitta as { outcome?: string }).outcome }));
 }
 
+/** The outputs of code cell `k` (0-based among code cells). */
+function outputs(run: NotebookRun, k: number): unknown[] {
+  return run.notebook.cells.filter((c) => c.cell_type === 'code')[k].outputs;
+}
+
 function outcomes(run: NotebookRun): (string | undefined)[] {
   return run.notebook.cells.filter((c) => c.cell_type === 'code').map((c) => (c.metadata.sagitta as { outcome?: string }).outcome);
 }
@@ -47,16 +52,15 @@ describe('runNotebook with the ahead check', { timeout: 180_000 }, () => {
       expect(outcomes(run)).toEqual(['done', 'done', 'failed', 'not-run']);
       expect(run.reason).toMatch(/^step 3 failed: CompileError: 2:7 - Type 'number' is not assignable to type 'string'\./);
     }
-    const cells = ahead.notebook.cells;
-    expect(cells[0].outputs).toEqual([{ output_type: 'stream', name: 'stdout', text: 'one 1\n' }]);
-    expect(cells[1].outputs).toEqual([{ output_type: 'stream', name: 'stdout', text: 'two 2\n' }]);
-    expect(cells[2].outputs).toEqual([{
+    expect(outputs(ahead, 0)).toEqual([{ output_type: 'stream', name: 'stdout', text: 'one 1\n' }]);
+    expect(outputs(ahead, 1)).toEqual([{ output_type: 'stream', name: 'stdout', text: 'two 2\n' }]);
+    expect(outputs(ahead, 2)).toEqual([{
       output_type: 'error',
       ename: 'CompileError',
       evalue: "2:7 - Type 'number' is not assignable to type 'string'.",
       traceback: ['CompileError: the cell was not run because it does not compile', "2:7 - Type 'number' is not assignable to type 'string'."],
     }]);
-    expect(cells[3].outputs).toEqual([]);
+    expect(outputs(ahead, 3)).toEqual([]);
     expect(existsSync(join(dir, 'ran-2.txt'))).toBe(true);
     expect(existsSync(join(dir, 'ran-4.txt'))).toBe(false); // compiled ahead, never run
     expect(seen(ahead.notebook)).toEqual(seen(inline.notebook));
@@ -76,7 +80,7 @@ describe('runNotebook with the ahead check', { timeout: 180_000 }, () => {
     expect(outcomes(ahead)).toEqual(['done', 'done', 'done', 'done', 'done']);
     expect(seen(ahead.notebook)).toEqual(seen(inline.notebook));
     expect(ahead.run.modules).toEqual(inline.run.modules);
-    expect(ahead.notebook.cells[1].outputs[0]).toEqual({ output_type: 'stream', name: 'stdout', text: '6\n' });
+    expect(outputs(ahead, 1)[0]).toEqual({ output_type: 'stream', name: 'stdout', text: '6\n' });
   });
 
   it('the example notebook 04 gives the same outputs with and without it', async () => {
@@ -106,7 +110,7 @@ describe('runNotebook with the ahead check', { timeout: 180_000 }, () => {
     writeFileSync(join(dir, 'mod.ts'), 'export const value: string = "old";\n');
     const { ahead } = await both(file);
     expect(outcomes(ahead)).toEqual(['done', 'done']);
-    expect(ahead.notebook.cells[1].outputs).toMatchObject([{ output_type: 'execute_result', data: { 'text/plain': '20' } }]);
+    expect(outputs(ahead, 1)).toMatchObject([{ output_type: 'execute_result', data: { 'text/plain': '20' } }]);
   });
 
   it('under --keep-going, a cell that throws part-way changes the declarations; later cells see what it reached, as without the ahead check', async () => {
@@ -121,6 +125,6 @@ describe('runNotebook with the ahead check', { timeout: 180_000 }, () => {
     const { ahead, inline } = await both(file, true);
     expect(outcomes(ahead)).toEqual(['done', 'failed', 'done', 'failed', 'failed', 'done']);
     expect(seen(ahead.notebook)).toEqual(seen(inline.notebook));
-    expect(ahead.notebook.cells[3].outputs[0]).toMatchObject({ ename: 'CompileError', evalue: expect.stringMatching(/^1:\d+ - Cannot find name 'c'\./) });
+    expect(outputs(ahead, 3)[0]).toMatchObject({ ename: 'CompileError', evalue: expect.stringMatching(/^1:\d+ - Cannot find name 'c'\./) });
   });
 });
