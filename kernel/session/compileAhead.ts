@@ -60,6 +60,7 @@ export interface CompileAhead {
    * planned cell's place is compiled at its turn, and the thread goes on from there.
    */
   compile(prevDecl: string, code: string): Promise<CompiledCell | undefined>;
+  /** Stops the thread (it keeps the process alive until then). */
   close(): void;
 }
 
@@ -107,8 +108,6 @@ export function startCompileAhead(workDir: string): CompileAhead {
   worker.on('exit', (code) => {
     if (!closed) fail(new Error(`the ahead check's thread stopped (exit code ${code})`));
   });
-  // The thread must not keep the process alive on its own.
-  worker.unref();
 
   function resultFor(index: number): Promise<Compiled | undefined> {
     return new Promise((resolve) => {
