@@ -2,19 +2,28 @@
  * The runner's child process: one notebook session, fed one cell at a time over IPC. Living in
  * its own process is what lets the runner stop a cell that never ends (SIGKILL) or survive a cell
  * that ends the process, without losing what earlier cells produced.
+ *
+ * With the ahead check (COMPILE_AHEAD_FLAG in its arguments) its thread is started first, before
+ * this process loads the library and the compiler, so that it builds its compiler meanwhile; the
+ * rest is loaded with dynamic imports for that reason.
  */
-import { createHash } from 'node:crypto';
-import { existsSync, readFileSync } from 'node:fs';
-import path from 'node:path';
-import { knobSnapshot, msg, provenanceSnapshot, supplyKnobs } from '../../lib/internal.js';
-import { tslabTs } from '../session/compilerShim.js';
-import { createSession } from '../session/index.js';
+import { startCompileAhead, type CompileAhead } from '../session/compileAhead.js';
 import type { Session } from '../session/types.js';
-import { checkSuppliedKnobs, findKnobs } from './findKnobs.js';
-import type { FromChild, ToChild } from './messages.js';
+import { COMPILE_AHEAD_FLAG, type FromChild, type ToChild } from './messages.js';
 import type { ModuleRecord } from './runRecord.js';
 
 const t0 = performance.now();
+// The runner starts this process in the notebook's folder.
+let ahead: CompileAhead | undefined = process.argv.includes(COMPILE_AHEAD_FLAG) ? startCompileAhead(process.cwd()) : undefined;
+const [{ createHash }, { existsSync, readFileSync }, { default: path }, { knobSnapshot, msg, provenanceSnapshot, supplyKnobs }, { tslabTs }, { createSession }, { checkSuppliedKnobs, findKnobs }] = await Promise.all([
+  import('node:crypto'),
+  import('node:fs'),
+  import('node:path'),
+  import('../../lib/internal.js'),
+  import('../session/compilerShim.js'),
+  import('../session/index.js'),
+  import('./findKnobs.js'),
+]);
 
 let session: Session | undefined;
 let workDir = process.cwd();
@@ -49,15 +58,28 @@ async function handle(m: ToChild): Promise<void> {
     // Knob values are checked against the notebook's knob(…) calls before anything runs.
     const problems = checkSuppliedKnobs(findKnobs(m.cells), new Map(m.knobs));
     if (problems.length > 0) {
+      ahead?.close();
       send({ kind: 'refused', problems });
       return;
     }
     supplyKnobs(new Map(m.knobs));
-    session = createSession({ workDir });
-    // Compile and run an empty cell so the compiler is built before the first timed cell. (The
-    // session's warmUp() is not called: it builds completion lists for the whole library, which
-    // measured ~4 s here against ~0.5 s for a first cell that imports "sagitta-tracks".)
-    await session.execute('', { stream() {}, display() {}, clear() {}, ask: noInput });
+    // All cells are known: a second thread type-checks and compiles them ahead while earlier cells
+    // run (kernel/session/compileAhead.ts). Ready once the library is loaded and that thread's
+    // compiler is built, so a cell's time still holds its own compile, as when compiled here.
+    if (ahead) {
+      if (ahead.workDir !== workDir) {
+        ahead.close();
+        ahead = startCompileAhead(workDir);
+      }
+      ahead.plan(m.cells.map((c) => c.code));
+      session = createSession({ workDir, ahead });
+      await session.warmUp?.();
+    } else {
+      session = createSession({ workDir });
+      // Compile and run an empty cell so the compiler is built before the first timed cell. (The
+      // session's warmUp() is not called here: it builds completion lists for the whole library.)
+      await session.execute('', { stream() {}, display() {}, clear() {}, ask: noInput });
+    }
     send({ kind: 'ready', typescript: tslabTs.version, startMs: performance.now() - t0 });
   } else if (m.kind === 'cell') {
     if (!session) throw msg.kernelState('run a cell', 'the notebook process has not started');
@@ -73,7 +95,8 @@ async function handle(m: ToChild): Promise<void> {
     const execMs = performance.now() - c0;
     send({ kind: 'done', index, outcome, provenance: provenanceSnapshot(), knobs: knobSnapshot(), modules: localModules(session), execMs });
   } else {
-    session?.close();
+    if (session) session.close();
+    else ahead?.close();
     process.disconnect?.();
   }
 }

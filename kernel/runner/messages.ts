@@ -3,9 +3,15 @@ import { type KnobRecord, type ProvenanceSnapshot } from '../../lib/internal.js'
 import type { CellOutcome } from '../session/types.js';
 import type { ModuleRecord } from './runRecord.js';
 
+/** The child's argument that asks it to start the ahead check's thread at once (kernel/session/compileAhead.ts). */
+export const COMPILE_AHEAD_FLAG = '--compile-ahead';
+
 /** Messages from the runner to its child process (over Node's IPC channel, JSON). */
 export type ToChild =
-  /** `cells`: every code cell (index, source), for finding knobs; `knobs`: supplied values as [name, text]. */
+  /**
+   * `cells`: every code cell (index, source), for finding knobs and compiling ahead; `knobs`:
+   * supplied values as [name, text].
+   */
   | { kind: 'start'; workDir: string; cells: Array<{ index: number; code: string }>; knobs: Array<[string, string]> }
   | { kind: 'cell'; index: number; step: number; code: string }
   | { kind: 'close' };

@@ -8,6 +8,7 @@ import type { DisplayDataOutput, Notebook, SagittaCellMeta } from '../notebook/t
 import { runCell } from './cellRecorder.js';
 import { pushStream } from './cellRecorder.js';
 import { ChildChannel } from './childChannel.js';
+import { COMPILE_AHEAD_FLAG } from './messages.js';
 import { exitOutput, exitText, firstLine, formatLimit, lastLine, stepName, stoppedOutput, timeoutOutput } from './failureText.js';
 import { libraryRecord } from './libraryRecord.js';
 import { prepareNotebook } from './prepare.js';
@@ -31,6 +32,12 @@ export interface RunNotebookOptions {
   readonly startTimeoutMs?: number;
   /** Folder cells run in (relative paths, local imports). Default: the notebook's folder. */
   readonly workDir?: string;
+  /**
+   * Type-check and compile the cells on a second thread while earlier cells run (default true;
+   * kernel/session/compileAhead.ts). The run is the same either way: a cell runs only once it is
+   * checked, and the first cell with a type error stops it with the same error.
+   */
+  readonly compileAhead?: boolean;
   readonly onProgress?: (event: RunProgress) => void;
 }
 
@@ -48,7 +55,7 @@ export interface NotebookRun {
   readonly overheadMs: readonly number[];
 }
 
-const DEFAULTS = Object.freeze({ cellTimeoutMs: 120_000, keepGoing: false, startTimeoutMs: 120_000 });
+const DEFAULTS = Object.freeze({ cellTimeoutMs: 120_000, keepGoing: false, startTimeoutMs: 120_000, compileAhead: true });
 const CHILD = fileURLToPath(moduleUrl('kernel/runner/child'));
 /** Signals to `sagitta run` itself that stop the run (the notebook process is stopped, the record still written). */
 const STOP_SIGNALS: readonly NodeJS.Signals[] = ['SIGINT', 'SIGTERM', 'SIGHUP'];
@@ -69,7 +76,7 @@ export async function runNotebook(path: string, options: RunNotebookOptions = {}
   const startedAt = new Date();
   const t0 = performance.now();
   const library = libraryRecord();
-  const child = fork(CHILD, [], { cwd: workDir, execArgv: childExecArgv(), stdio: ['ignore', 'pipe', 'pipe', 'ipc'], env: { ...process.env, FORCE_COLOR: '0' } });
+  const child = fork(CHILD, o.compileAhead ? [COMPILE_AHEAD_FLAG] : [], { cwd: workDir, execArgv: childExecArgv(), stdio: ['ignore', 'pipe', 'pipe', 'ipc'], env: { ...process.env, FORCE_COLOR: '0' } });
   const channel = new ChildChannel(child);
   let stoppedBy: NodeJS.Signals | undefined;
   const onSignal = (signal: NodeJS.Signals) => {

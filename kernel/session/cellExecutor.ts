@@ -1,7 +1,8 @@
 /**
  * Runs compiled cells in this realm, keeping variables between cells — our replacement for
  * tslab's executor (we keep tslab's converter, which type-checks and compiles a cell against the
- * declarations of the cells before it). Ours differs where tslab's fell short:
+ * declarations of the cells before it, here or ahead on a second thread: compiledCell.ts). Ours
+ * differs where tslab's fell short:
  * - a cell that throws (or is interrupted) part-way keeps what it declared before that point —
  *   imports, constants, functions — for later cells, in the type checker and at run time; names it
  *   never reached are dropped, and an earlier cell's value of the same name comes back;
@@ -14,8 +15,9 @@
 import Module from 'node:module';
 import path from 'node:path';
 import vm from 'node:vm';
-import type { Converter, Diagnostic, SideOutput } from 'tslab/dist/converter.js';
+import type { SideOutput } from 'tslab/dist/converter.js';
 import { cellSourceMap, type CellSourceMap } from './cellSourceMap.js';
+import type { CellCompiler } from './compiledCell.js';
 import { keepDeclarations } from './keepDeclarations.js';
 import { CellPhase, setPhase } from './phase.js';
 
@@ -26,7 +28,7 @@ export type CellRunResult =
   | { readonly kind: 'thrown'; readonly thrown: unknown; readonly interrupted: boolean };
 
 export interface CellExecutor {
-  /** Compiles and runs one cell; `label` names it in stack traces ("cell 3"). */
+  /** Compiles and runs one cell (its source as written); `label` names it in stack traces ("cell 3"). */
   run(code: string, label: string): Promise<CellRunResult>;
   /** The source map of the cell compiled under `label`, for mapping stack frames. */
   sourceMap(label: string): CellSourceMap | undefined;
@@ -41,7 +43,7 @@ export interface CellExecutor {
 
 export interface CellExecutorOptions {
   readonly workDir: string;
-  readonly converter: Converter;
+  readonly compiler: CellCompiler;
   /** Shared flag the executor keeps up to date (phase.ts); optional. */
   readonly phase?: Int32Array;
 }
@@ -51,7 +53,7 @@ const GLOBAL_KEY = Symbol.for('sagitta.cellScope');
 export const INTERRUPTED = new Error('the cell was interrupted while it waited');
 
 export function createCellExecutor(options: CellExecutorOptions): CellExecutor {
-  const { converter, phase } = options;
+  const { compiler, phase } = options;
   const values: Record<string, unknown> = Object.create(null) as Record<string, unknown>;
   /** Assignments per exported name during the running cell: 1 is only the compiler's `= void 0`. */
   let assigned = new Map<string, number>();
@@ -83,9 +85,9 @@ export function createCellExecutor(options: CellExecutorOptions): CellExecutor {
   async function run(code: string, label: string): Promise<CellRunResult> {
     setPhase(phase, CellPhase.Compiling);
     try {
-      const converted = converter.convert(prevDecl, code);
+      const converted = await compiler.compile(prevDecl, code);
       for (const out of converted.sideOutputs ?? []) updateSide(out);
-      if (converted.diagnostics.length > 0) return { kind: 'compile-error', diagnostics: converted.diagnostics.map(formatDiagnostic) };
+      if (converted.diagnostics.length > 0) return { kind: 'compile-error', diagnostics: converted.diagnostics };
       if (!converted.output) {
         prevDecl = converted.declOutput ?? '';
         return { kind: 'ok' };
@@ -157,14 +159,9 @@ export function createCellExecutor(options: CellExecutorOptions): CellExecutor {
     },
     close() {
       delete (globalThis as Record<symbol, unknown>)[GLOBAL_KEY];
-      converter.close();
+      compiler.close();
     },
   };
-}
-
-/** "2:7 - Type 'string' is not assignable …", with the file for errors in a local module. */
-function formatDiagnostic(d: Diagnostic): string {
-  return `${d.fileName ? `${d.fileName} ` : ''}${d.start.line + 1}:${d.start.character + 1} - ${d.messageText}`;
 }
 
 /**

@@ -2,6 +2,8 @@
  * In-process execution of TypeScript cells: tslab's converter type-checks and compiles each cell
  * against the declarations of the cells before it, and our executor (cellExecutor.ts) runs it in
  * this realm, variables kept between cells. The messaging layer is ours too (kernel/protocol).
+ * Given the ahead check of a headless run (`ahead`), cells are compiled on its thread while earlier
+ * cells run (compileAhead.ts); otherwise each cell is compiled here as it comes.
  *
  * What a session adds around the executor:
  * - output capture: from the first cell until `close()`, process.stdout/stderr writes, the global
@@ -21,23 +23,24 @@
  * A session changes the process's working directory to `workDir` (so data files next to the
  * notebook open by relative path); there should be one live session per process.
  */
-import { createRequire } from 'node:module';
 import path from 'node:path';
+import type { Converter } from 'tslab/dist/converter.js';
 import { consumeWarnings, formatWarning, type MimeBundle } from '../../lib/index.js';
 import { mimeBundleOf, msg } from '../../lib/internal.js';
+import { converterCompiler, createCellConverter } from './cellConverter.js';
 import { createCellExecutor } from './cellExecutor.js';
+import type { CellCompiler } from './compiledCell.js';
 import { errorFromDiagnostics, errorFromThrown, interruptedError } from './cellError.js';
-import { addCompilerRoot, holdRequireHook, loadLibrary, packageRoot, releaseRequireHook, tslabTs } from './moduleRoot.js';
+import { requireFromPackage } from '../packageMode.js';
+import { addCompilerRoot, holdRequireHook, loadLibrary, releaseRequireHook, tslabTs } from './moduleRoot.js';
 import { codePointToUtf16, utf16ToCodePoint } from './positions.js';
-import { expandShorthandProperties } from './expandShorthand.js';
 import { jsonSafeBundle } from './jsonSafeBundle.js';
 import { redirectOutput } from './redirectOutput.js';
 import type { CellHooks, CellOutcome, Completeness, CompletionReply, ExecuteOptions, Session, SessionOptions } from './types.js';
 
 type ConverterModule = typeof import('tslab/dist/converter.js');
 
-const requireHere = createRequire(path.join(packageRoot, 'package.json'));
-const { createConverter, isCompleteCode } = requireHere('tslab/dist/converter.js') as ConverterModule;
+const { isCompleteCode } = requireFromPackage('tslab/dist/converter.js') as ConverterModule;
 
 export function createSession(options: SessionOptions): Session {
   const workDir = path.resolve(options.workDir);
@@ -46,17 +49,16 @@ export function createSession(options: SessionOptions): Session {
   holdRequireHook();
   const libraryReady = loadLibrary();
 
-  // No file or folder watchers for tslab's compiler. A watcher that fires between two cells (any
-  // process touching a watched file: an edited module next to the notebook, a library file) leaves
-  // the converter with a pending rebuild that it then refuses for every later cell ("Unexpected
-  // pending rebuildTimer") — a kernel that no cell can run in any more. Without watchers a cell is
-  // compiled against the sources as first read, as imported modules stay loaded until a restart.
-  const noWatcher = () => ({ close() {} });
-  tslabTs.sys.watchFile = noWatcher;
-  tslabTs.sys.watchDirectory = noWatcher;
-  // The compiler reads the working directory when it is created; it was just set to workDir.
-  const converter = createConverter();
-  const executor = createCellExecutor({ workDir, converter, phase: options.phase });
+  // The compiler reads the working directory when it is created; it was just set to workDir. With
+  // the cells ahead, this thread builds one only for completion and inspection, or if the ahead
+  // check's thread fails.
+  const { ahead } = options;
+  let converter: Converter | undefined = ahead ? undefined : createCellConverter(workDir);
+  const converterHere = () => (converter ??= createCellConverter(workDir));
+  const compiler: CellCompiler = ahead
+    ? { compile: async (prevDecl, code) => (await ahead.compile(prevDecl, code)) ?? converterCompiler(converterHere()).compile(prevDecl, code), close: () => ahead.close() }
+    : converterCompiler(converterHere());
+  const executor = createCellExecutor({ workDir, compiler, phase: options.phase });
 
   let running = false;
   let currentHooks: CellHooks | undefined;
@@ -73,7 +75,7 @@ export function createSession(options: SessionOptions): Session {
     const label = execOptions.label ?? `cell run ${++runs}`;
     let result;
     try {
-      result = await executor.run(expandShorthandProperties(code), label);
+      result = await executor.run(code, label);
     } finally {
       running = false;
     }
@@ -96,7 +98,7 @@ export function createSession(options: SessionOptions): Session {
   async function complete(code: string, cursorPos: number): Promise<CompletionReply> {
     await libraryReady;
     const at = codePointToUtf16(code, cursorPos);
-    const info = converter.complete(executor.declarations, code, at);
+    const info = converterHere().complete(executor.declarations, code, at);
     return {
       matches: info.candidates,
       cursorStart: utf16ToCodePoint(code, info.start),
@@ -109,7 +111,7 @@ export function createSession(options: SessionOptions): Session {
     let at = codePointToUtf16(code, cursorPos);
     // A cursor just after a name (the usual place when asking for help) inspects that name.
     if (at > 0 && !/[\w$]/.test(code[at] ?? '') && /[\w$]/.test(code[at - 1])) at -= 1;
-    const info = converter.inspect(executor.declarations, code, at);
+    const info = converterHere().inspect(executor.declarations, code, at);
     if (!info) return undefined;
     const signature = tslabTs.displayPartsToString(info.displayParts);
     const docs = tslabTs.displayPartsToString(info.documentation);
@@ -137,9 +139,10 @@ export function createSession(options: SessionOptions): Session {
 
   async function warmUp(): Promise<void> {
     await libraryReady;
+    if (ahead) return ahead.ready;
     if (closed || running) return;
     const probe = 'import * as sagitta from "sagitta-tracks";\nsagitta.';
-    converter.complete(executor.declarations, probe, probe.length);
+    converterHere().complete(executor.declarations, probe, probe.length);
   }
 
   function close(): void {
@@ -148,6 +151,7 @@ export function createSession(options: SessionOptions): Session {
     restoreOutput?.();
     restoreOutput = undefined;
     executor.close();
+    if (ahead) converter?.close();
     releaseRequireHook();
   }
 

@@ -4,6 +4,7 @@
  * nothing here knows about sockets or child processes.
  */
 import { type MimeBundle } from '../../lib/index.js';
+import type { CompileAhead } from './compileAhead.js';
 
 /** Callbacks a running cell uses to emit output while it runs. */
 export interface CellHooks {
@@ -68,4 +69,11 @@ export interface SessionOptions {
   workDir: string;
   /** Shared flag the session keeps up to date with the cell's phase (kernel/session/phase.ts). */
   phase?: Int32Array;
+  /**
+   * The ahead check of a headless run, its cells planned (compileAhead.ts): cells are then
+   * type-checked and compiled on its thread while earlier cells run, and `execute` must be given
+   * them in their order. `warmUp()` then waits for the library and that thread's compiler.
+   * The session closes it.
+   */
+  ahead?: CompileAhead;
 }

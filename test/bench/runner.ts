@@ -108,3 +108,29 @@ process.stdout.write(`runner: ${(CELLS / (run.run.wallMs / 1000)).toFixed(1)} ce
   }
   process.stdout.write(`runner: example notebook 01, run + HTML report (×${REPEAT}): total ${s(totals)}; notebook process start-up median ${(median(starts) / 1000).toFixed(2)} s; steps median ${(median(stepsMs) / 1000).toFixed(2)} s; report render median ${median(reports).toFixed(0)} ms\n`);
 }
+
+// 5. The ahead check (issue 14): every example notebook run and reported with the cells compiled
+// on a second thread while earlier ones run, and with each compiled just before it runs — the two
+// interleaved, so a shared machine's load falls on both alike; the load average is printed beside.
+{
+  const { readdirSync } = await import('node:fs');
+  const { loadavg } = await import('node:os');
+  const { renderReport } = await import('../../kernel/report/index.js');
+  const folder = fileURLToPath(new URL('../../notebooks/', import.meta.url));
+  const examples = readdirSync(folder).filter((f) => f.endsWith('.ipynb')).sort();
+  const AHEAD_REPEAT = 2;
+  for (const name of examples) {
+    const times = { ahead: [] as number[], inline: [] as number[] };
+    const load0 = loadavg()[0];
+    for (let k = 0; k < AHEAD_REPEAT; k++) {
+      for (const compileAhead of k % 2 === 0 ? [false, true] : [true, false]) {
+        const t0 = performance.now();
+        const r = await runNotebook(join(folder, name), { cellTimeoutMs: 300_000, compileAhead });
+        renderReport({ notebook: r.notebook, run: r.run });
+        (compileAhead ? times.ahead : times.inline).push(performance.now() - t0);
+      }
+    }
+    const m = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length / 1000;
+    process.stdout.write(`runner: ${name} run + report (×${AHEAD_REPEAT}, interleaved): compiled in time mean ${m(times.inline).toFixed(2)} s, ahead mean ${m(times.ahead).toFixed(2)} s (${(m(times.ahead) / m(times.inline)).toFixed(2)} of it); load average ${load0.toFixed(1)} → ${loadavg()[0].toFixed(1)}\n`);
+  }
+}

@@ -49,7 +49,9 @@ e.g. const fieldT = knob('field', '1.5 T'). --set field="1.2 T" gives it a value
 value is checked against its knob's type and unit (a field needs a field unit, a number a number,
 a list the same length) before any cell runs. The report lists each knob with the value used.
 
-Cells run in order in a separate Node process. A cell that raises gets an error output; with
+Cells run in order in a separate Node process; while one runs, the next are type-checked on a
+second thread, and a cell runs only once checked (a type error stops the run there). A cell that
+raises gets an error output; with
 --keep-going the later cells still run. A cell that exceeds --cell-timeout, or that ends the
 process (process.exit, a crash), stops the process: that cell gets an error output saying so and
 the cells after it are marked not run. The executed notebook (nbformat 4.5, with per-cell times
