@@ -1,12 +1,12 @@
 import { readFileSync } from 'node:fs';
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { michelEndpoint } from '../../lib/analysis/michelEndpoint.js';
 import { material } from '../../lib/matter/materials.js';
 import { ELECTRON, MUON_PLUS, POSITRON } from '../../lib/particles.js';
 import { resolveScenario } from '../../lib/simulate/scenario.js';
 import { simulateChamber } from '../../lib/simulate/simulate.js';
 import { identifyTrack } from '../../lib/track/identifyTrack.js';
-import { identifyTracks } from '../../lib/track/identifyTracks.js';
+import { identifyTracks, type IdentifiedTracks } from '../../lib/track/identifyTracks.js';
 import { initialMomentumFromRange } from '../../lib/track/initialMomentumFromRange.js';
 import { linkStopDecays } from '../../lib/track/linkStopDecays.js';
 import { measureTracks } from '../../lib/track/measureTracks.js';
@@ -33,7 +33,10 @@ const sim = simulateChamber(resolveScenario(scenario), 7);
 const mat = material('liquid-propane');
 const volume = { min: [-0.8, -0.5, -0.3], max: [0.8, 0.5, 0.3] } as const;
 const tracks = measureTracks(sim.hits, { fieldT: 2 });
-const ids = identifyTracks(tracks, { fieldT: 2, material: mat, volume });
+// Identified in a hook, not at collection time, so that mutation testing sees these calls (code a
+// test file runs while it is collected is "static" to the mutation runner and not re-run per mutant).
+let ids: IdentifiedTracks;
+beforeAll(() => { ids = identifyTracks(tracks, { fieldT: 2, material: mat, volume }); }, 120_000);
 const truthRow = new Map<string, number>();
 for (let i = 0; i < sim.truth.length; i++) truthRow.set(`${sim.truth.event[i]}/${sim.truth.track[i]}`, i);
 const trueOf = (k: number) => truthRow.get(`${tracks.event[k]}/${tracks.track[k]}`)!;
