@@ -187,9 +187,11 @@ export function identifyTrack(hits: HitCoordinates, options: IdentifyTrackOption
  */
 /**
  * A mass whose filter −2 ln L is worse than the best by more than this is not refitted (a gross
- * mismatch: an electron profile on a muon, a proton on an electron spiral; the fit with material
- * of a light mass follows almost any curvature change with its radiative straggling, so its χ²
- * alone cannot reject it). 25 = a 5σ difference for one parameter (ours).
+ * mismatch: an electron profile on a muon, a proton on an electron spiral). The fit with
+ * material frees the first-hit momentum, so under a light mass it matched some muon tracks about
+ * as well as the muon's own fit (5–9 μ a sample were named e± without this), where the filter's
+ * profile, anchored at the stop, rules the electron out by hundreds. 25 = a 5σ difference for
+ * one parameter (ours).
  */
 const FILTER_VETO = 25;
 
