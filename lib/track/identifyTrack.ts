@@ -59,7 +59,8 @@ export const UNDECIDED = 'undecided';
 /**
  * One hypothesis of one track, named with the measured charge sign. For a stopping track
  * `m2lnL` is the value the choice is made on (see `identifyTrack`): the χ² of the fit with
- * material plus `rangeChi2`, Infinity when that fit could not reach the hits or did not settle.
+ * material plus the pull² of its residual range at the last hit against a stop within one
+ * spacing (`endTerm`), Infinity when that fit could not reach the hits or did not settle.
  */
 export interface TrackHypothesis extends HypothesisFit {
   readonly species: string;
@@ -143,8 +144,7 @@ export function identifyTrack(hits: HitCoordinates, options: IdentifyTrackOption
     // only when running out of range just past the last hit explains it nearly as well as the
     // best fit that leaves (ours, documented).
     const leaving = fitAll(false), stopping = fitAll(true);
-    const least = (hs: TrackHypothesis[]) => hs.reduce((m, h) => (h.m2lnL < m ? h.m2lnL : m), Infinity);
-    const excess = least(stopping) - least(leaving);
+    const excess = leastM2lnL(stopping) - leastM2lnL(leaving);
     const stops = excess <= (options.maxStopExcess ?? IDENTIFY_DEFAULTS.maxStopExcess);
     stop = Object.freeze({ ...geometric, stops });
     hypotheses = stops ? stopping : leaving;
@@ -196,7 +196,7 @@ export function identifyTrack(hits: HitCoordinates, options: IdentifyTrackOption
 const FILTER_VETO = 25;
 
 function withMatterFits(hs: TrackHypothesis[], hits: HitCoordinates, species: readonly Particle[], ranges: readonly SpeciesRange[], spacingM: number, o: { fieldT: number; medium: Material; hitErrorM: number }): TrackHypothesis[] {
-  const least = hs.reduce((m, h) => (h.m2lnL < m ? h.m2lnL : m), Infinity);
+  const least = leastM2lnL(hs);
   const fits = species.map((s, i) => (hs[i].m2lnL <= least + FILTER_VETO ? fitTrackInMatter(hits, { ...o, particle: s }) : undefined));
   const reaches = fits.map((f) => f !== undefined && (f.status === 'ok' || f.status === 'poor-fit'));
   const any = reaches.some(Boolean);
@@ -215,6 +215,11 @@ function endTerm(f: MatterTrackFit, range: SpeciesRange, spacingM: number): numb
   const sigmaR = 0.5 * Math.abs(range.rangeM(p + sp) - range.rangeM(Math.max(p - sp, 0)));
   const v = (spacingM * spacingM) / 12 + (Number.isFinite(sigmaR) ? sigmaR * sigmaR : 0);
   return (f.residualRangeM - 0.5 * spacingM) ** 2 / v;
+}
+
+/** The smallest −2 ln L of a set of hypotheses (Infinity for none). */
+function leastM2lnL(hs: readonly TrackHypothesis[]): number {
+  return hs.reduce((m, h) => (h.m2lnL < m ? h.m2lnL : m), Infinity);
 }
 
 function noFit(): HypothesisFit {

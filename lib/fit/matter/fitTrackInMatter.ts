@@ -53,8 +53,6 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
   const run = fitIntoScratch(model, hits, set, sc, true);
   if (run.status !== 'ok') return failed(run.status, options, n, run.reachedHits);
   const hasZ = hits.z !== undefined;
-  // A fit held at the reach limit whose hits reject it: the hypothesis cannot reach them.
-  if (run.atReachLimit && chi2Survival(run.chi2, n - 3 + (hasZ ? n - 2 : 0)) < MATTER_FIT_MIN_PROBABILITY) return failed('cannot-reach', options, n, n);
   const residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
   const hit = { n, last: false, tanLambda: run.tanLambda, hasZ };
   const first = reportedState(sc, model, options.fieldT, hit, 0);

@@ -93,8 +93,6 @@ export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Ar
     if (!inputsFinite(h, set.hitErrorM)) return failed(k, 'bad-input', 0);
     const run = fitIntoScratch(model, h, set, sc, false);
     if (run.status !== 'ok') return failed(k, run.status, run.reachedHits);
-    // A fit held at the reach limit whose hits reject it: the hypothesis cannot reach them.
-    if (run.atReachLimit && chi2Survival(run.chi2, n - 3 + (hit.hasZ ? n - 2 : 0)) < MATTER_FIT_MIN_PROBABILITY) return failed(k, 'cannot-reach', n);
     hit.n = n; hit.tanLambda = run.tanLambda;
     hit.last = true;
     endState(sc, model, options.fieldT, hit, lastOut);

@@ -1,9 +1,10 @@
+import { chi2Survival } from '../../analysis/chi2Survival.js';
 import { GEV_PER_TESLA_METRE } from '../../constants.js';
 import { msg } from '../../errors.js';
 import { kineticAndStoppingAtRange, type LossModel } from './lossModel.js';
 import { runMatterFitIterations, type MatterFitRun } from './matterFitIterations.js';
 import type { MatterFitScratch } from './matterFitScratch.js';
-import { MATTER_FIT_DEFAULTS, type MatterFitOptions, type MatterTrackHits } from './matterTrackFit.js';
+import { MATTER_FIT_DEFAULTS, MATTER_FIT_MIN_PROBABILITY, type MatterFitOptions, type MatterTrackHits } from './matterTrackFit.js';
 import type { ReferenceSettings } from './referenceTrack.js';
 
 /** The options of a fit, checked and with their defaults (plain data, shared by all tracks of a batch). */
@@ -44,12 +45,14 @@ export function inputsFinite(h: MatterTrackHits, hitErrorM: number): boolean {
  * iterations (`runMatterFitIterations`), then the range-end error added to the curvature
  * variances at both ends. When the run is 'ok' the scratch holds the reference and the filter
  * outputs at the first and the last hit for `endState` (and the smoothed residuals when
- * `withResiduals`).
+ * `withResiduals`). A fit held at the reach limit whose hits reject it (χ² probability below
+ * `MATTER_FIT_MIN_PROBABILITY`) is 'cannot-reach': the hypothesis cannot reach them.
  */
 export function fitIntoScratch(model: LossModel, hits: MatterTrackHits, set: MatterFitSettings, sc: MatterFitScratch, withResiduals: boolean): MatterFitRun {
   const n = hits.x.length;
   const run = runMatterFitIterations(model, hits, set, sc, set.maxIterations, withResiduals);
   if (run.status !== 'ok') return run;
+  if (run.atReachLimit && chi2Survival(run.chi2, n - 3 + (hits.z ? n - 2 : 0)) < MATTER_FIT_MIN_PROBABILITY) return { ...run, status: 'cannot-reach' };
   const residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
   const spacingM = sc.path[n - 1] / (n - 1);
   const stopVariance = residualRangeM < spacingM ? ((spacingM * model.gcm2PerM) ** 2) / 12 : 0;
