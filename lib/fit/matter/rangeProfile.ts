@@ -10,7 +10,7 @@ const SCAN_STEPS = 12;
 /** The scan on each side ends where −2 ln L is this far above its smallest value (e^(−6) of the peak). */
 const SCAN_DELTA = 12;
 /** Points of the even grid over the scanned span on which the likelihood is integrated. */
-const GRID_POINTS = 17;
+const GRID_POINTS = 9;
 
 /**
  * Error of the residual range at the first hit [g/cm²] from the profile of −2 ln L, for tracks
