@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { michelEndpoint } from '../../lib/analysis/michelEndpoint.js';
 import { material } from '../../lib/matter/materials.js';
 import { ELECTRON, MUON_PLUS, POSITRON } from '../../lib/particles.js';
@@ -29,16 +29,21 @@ import { trackHits } from '../../lib/track/trackHits.js';
  */
 const scenario = JSON.parse(readFileSync(new URL('../../notebooks/data/hollowmere.scenario.json', import.meta.url), 'utf8'));
 for (const s of scenario.sources) s.events = Math.round(s.events * 2.7);
-const sim = simulateChamber(resolveScenario(scenario), 7);
 const mat = material('liquid-propane');
 const volume = { min: [-0.8, -0.5, -0.3], max: [0.8, 0.5, 0.3] } as const;
-const tracks = measureTracks(sim.hits, { fieldT: 2 });
-// Identified in a hook, not at collection time, so that mutation testing sees these calls (code a
-// test file runs while it is collected is "static" to the mutation runner and not re-run per mutant).
-let ids: IdentifiedTracks;
-beforeAll(() => { ids = identifyTracks(tracks, { fieldT: 2, material: mat, volume }); }, 120_000);
+// Simulated, measured and identified by the first test that asks (in a beforeEach, never at
+// collection or in beforeAll): mutation testing switches a mutant on per test, so code run before
+// the tests would never be mutated.
+let sim: ReturnType<typeof simulateChamber>, tracks: ReturnType<typeof measureTracks>, ids: IdentifiedTracks, made = false;
 const truthRow = new Map<string, number>();
-for (let i = 0; i < sim.truth.length; i++) truthRow.set(`${sim.truth.event[i]}/${sim.truth.track[i]}`, i);
+beforeEach(() => {
+  if (made) return;
+  sim = simulateChamber(resolveScenario(scenario), 7);
+  tracks = measureTracks(sim.hits, { fieldT: 2 });
+  for (let i = 0; i < sim.truth.length; i++) truthRow.set(`${sim.truth.event[i]}/${sim.truth.track[i]}`, i);
+  ids = identifyTracks(tracks, { fieldT: 2, material: mat, volume });
+  made = true;
+}, 120_000);
 const trueOf = (k: number) => truthRow.get(`${tracks.event[k]}/${tracks.track[k]}`)!;
 
 function efficiency(prefix: string): { right: number; total: number } {
