@@ -6,7 +6,7 @@ import { fitTracksInMatter } from '../../lib/fit/matter/fitTracksInMatter.js';
 import { matterSample } from '../../lib/fitlab/matterSample.js';
 import { writeFileAtomic } from '../../lib/io/writeFileAtomic.js';
 import { material } from '../../lib/matter/materials.js';
-import { ELECTRON, MUON_MINUS, PION_PLUS, PROTON, type Particle } from '../../lib/particles.js';
+import { ALPHA, ELECTRON, MUON_MINUS, PION_PLUS, PROTON, type Particle } from '../../lib/particles.js';
 import { goldenUpdateRequested } from '../expectGolden.js';
 
 /**
@@ -14,7 +14,7 @@ import { goldenUpdateRequested } from '../expectGolden.js';
  * matterFit*.test.ts against Gluckstern, Highland and simulated truth): small simulated samples
  * in each regime the fit has — slowing and stopping protons (the reach limit, the range profile at
  * the wall), protons leaving just before their range end, muons in liquid hydrogen, pions in argon,
- * electron spirals (bremsstrahlung noise), a mass that cannot reach the hits, and the fit without scattering or without loss — with
+ * electron spirals (bremsstrahlung noise), a mass that cannot reach the hits, alphas (|z| = 2), hits out of order, an iteration cap, and the fit without scattering or without loss — with
  * every reported number compared against the recorded one to 1e-7 relative. Its job is to catch a
  * change nobody meant, quickly: the statistical tests need 10⁴ tracks and half a minute each, too
  * slow for mutation testing (test/mutation.md), while this file runs in about a second. A
@@ -24,7 +24,7 @@ import { goldenUpdateRequested } from '../expectGolden.js';
 const RECORD = fileURLToPath(new URL('./golden/matterFit-record.json', import.meta.url));
 const RELATIVE = 1e-7;
 
-interface Case { readonly name: string; readonly species: Particle; readonly medium: string; readonly p: readonly [number, number]; readonly maxHits: number; readonly fitAs?: Particle; readonly options?: { multipleScattering?: boolean; energyLoss?: boolean } }
+interface Case { readonly name: string; readonly species: Particle; readonly medium: string; readonly p: readonly [number, number]; readonly maxHits: number; readonly fitAs?: Particle; readonly scramble?: boolean; readonly options?: { multipleScattering?: boolean; energyLoss?: boolean; maxIterations?: number } }
 const CASES: readonly Case[] = [
   { name: 'protons stopping in propane', species: PROTON, medium: 'liquid-propane', p: [0.3, 0.5], maxHits: 60 },
   { name: 'protons leaving near their range end', species: PROTON, medium: 'liquid-propane', p: [0.45, 0.62], maxHits: 50 },
@@ -33,6 +33,9 @@ const CASES: readonly Case[] = [
   { name: 'electrons in propane', species: ELECTRON, medium: 'liquid-propane', p: [0.02, 0.3], maxHits: 50 },
   { name: 'pions in propane, no scattering noise', species: PION_PLUS, medium: 'liquid-propane', p: [0.2, 2], maxHits: 50, options: { multipleScattering: false } },
   { name: 'slowing muons fitted as protons (some cannot reach)', species: MUON_MINUS, medium: 'liquid-propane', p: [0.08, 0.3], maxHits: 60, fitAs: PROTON },
+  { name: 'alphas in argon gas (|z| = 2)', species: ALPHA, medium: 'argon-gas', p: [0.4, 1.2], maxHits: 50 },
+  { name: 'stopping protons, at most two iterations', species: PROTON, medium: 'liquid-propane', p: [0.3, 0.5], maxHits: 60, options: { maxIterations: 2 } },
+  { name: 'muons with their hits out of order (the fit steps back along the helix)', species: MUON_MINUS, medium: 'liquid-propane', p: [0.1, 0.4], maxHits: 40, scramble: true },
   { name: 'pions in propane, no energy loss', species: PION_PLUS, medium: 'liquid-propane', p: [0.5, 5], maxHits: 50, options: { energyLoss: false } },
 ];
 
@@ -45,6 +48,13 @@ function measure(): Record {
     const med = material(c.medium);
     const s = matterSample({ tracks: 24, species: c.species, momentumGeV: c.p, material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: c.maxHits, tanLambda: [-0.3, 0.3], seed: 4 });
     const hits = { x: s.x, y: s.y, z: s.z, sigmaX: s.sigma, sigmaY: s.sigma, sigmaZ: s.sigma };
+    if (c.scramble) {
+      // Swap hits i and n−1−i for every other i of each track: a path that doubles back.
+      for (let k = 0; k < s.count; k++) {
+        const a = s.offsets[k], n = s.offsets[k + 1] - a;
+        for (let i = 1; i < n >> 1; i += 2) for (const col of [s.x, s.y, s.z]) { const t = col[a + i]; col[a + i] = col[a + n - 1 - i]; col[a + n - 1 - i] = t; }
+      }
+    }
     const f = fitTracksInMatter(hits, s.offsets, { fieldT: 2, medium: med, particle: c.fitAs ?? c.species, ...c.options });
     const num = (a: ArrayLike<number>) => Array.from(a, (v) => (Number.isFinite(v) ? Number(v.toPrecision(12)) : String(v)));
     const row: { [column: string]: (number | string)[] } = {
@@ -65,7 +75,7 @@ function measure(): Record {
 }
 
 describe('fit with material: regression record (closure with this code, not a physics check)', () => {
-  it('reproduces every recorded number of eight small samples to 1e-7 relative', () => {
+  it('reproduces every recorded number of eleven small samples to 1e-7 relative', () => {
     const now = measure();
     if (goldenUpdateRequested()) {
       writeFileAtomic(RECORD, `${JSON.stringify(now, null, 1)}\n`);
