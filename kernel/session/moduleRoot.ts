@@ -10,7 +10,9 @@
  *   `<workDir>/node_modules/sagitta/` are served from this package's root, and any other
  *   `<workDir>/node_modules/<name>` the folder lacks is served from this package's own
  *   node_modules (so the library's dependencies and @types resolve as they do in the repo). The
- *   library stays an external library to the compiler: it is type-checked, never re-emitted.
+ *   library stays an external library to the compiler: it is type-checked, never re-emitted. In a
+ *   checkout its lib/ folder is served from the declarations emitted from it
+ *   (libraryDeclarations.ts), so the compiler reads types, not function bodies.
  * - Run time: `require("sagitta")` from compiled cells and from local .ts modules returns the
  *   library loaded once through the ordinary ESM loader (the same instance the kernel uses, so the
  *   display sink and provenance registry are shared); a bare name the notebook's folder cannot
@@ -22,6 +24,7 @@ import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { FROM_SOURCE, libraryEntry, packageRoot, requireFromPackage } from '../packageMode.js';
 import { addCellFolder, tslabTs } from './compilerShim.js';
+import { libraryDeclarations } from './libraryDeclarations.js';
 
 /** The name notebooks import the library by (package.json "name"). */
 export const PACKAGE_NAME = 'sagitta-tracks';
@@ -42,7 +45,10 @@ export function forwardPath(p: string): string {
     if (norm !== root && !norm.startsWith(`${root}/`)) continue;
     const rel = norm.slice(root.length + 1);
     if (rel === PACKAGE_NAME || rel.startsWith(`${PACKAGE_NAME}/`)) {
-      return path.join(packageRoot, rel.slice(PACKAGE_NAME.length)).replace(/\\/g, '/');
+      const inPackage = rel.slice(PACKAGE_NAME.length);
+      // A checkout's lib/ is seen as its emitted declarations (only .d.ts files), where there are.
+      const declarations = FROM_SOURCE && (inPackage === '/lib' || inPackage.startsWith('/lib/')) ? libraryDeclarations() : undefined;
+      return path.join(declarations ?? packageRoot, inPackage).replace(/\\/g, '/');
     }
     if (rel !== '' && !existsSync(p)) return path.join(packageRoot, 'node_modules', rel).replace(/\\/g, '/');
   }
@@ -80,12 +86,14 @@ function patchCompilerSys(): void {
 }
 
 /**
- * In a checkout the build may not exist: the compiler is shown a manifest whose types are the
- * library's sources (the installed package's manifest names dist/lib/index.d.ts).
+ * In a checkout the build may not exist or be stale: the compiler is shown a manifest whose types
+ * are lib/index.d.ts — declarations emitted from the library's sources as they are now, served
+ * in the sources' place (see forwardPath) — or lib/index.ts itself when those cannot be made.
+ * (The installed package's manifest names dist/lib/index.d.ts.)
  */
 function sourceManifest(text: string): string {
   const manifest = JSON.parse(text) as Record<string, unknown>;
-  return JSON.stringify({ ...manifest, types: './lib/index.ts', typings: undefined });
+  return JSON.stringify({ ...manifest, types: libraryDeclarations() === undefined ? './lib/index.ts' : './lib/index.d.ts', typings: undefined });
 }
 
 /** Makes `<workDir>/node_modules/sagitta-tracks` visible to tslab's compiler. */
