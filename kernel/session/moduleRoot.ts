@@ -55,6 +55,26 @@ export function forwardPath(p: string): string {
   return p;
 }
 
+/**
+ * danfojs-node's declarations import `Config` and `Layout` (options of its browser plotting) from
+ * "plotly.js-dist-min", a package danfojs-node does not depend on: they resolve only because this
+ * package installs plotly.js-dist-min for its reports, and then pull 1.8 MB of plotly's declarations
+ * into every cell's program. For that one import the compiler is shown what danfojs-node gets
+ * where it is installed on its own — nothing typed (a package with \`any\` for both names) — by a
+ * stand-in inside danfojs-node's own node_modules, which module resolution tries first. Cells that
+ * import plotly.js-dist-min themselves still get its real declarations.
+ */
+const PLOTLY_STAND_IN = /\/node_modules\/danfojs-node\/node_modules\/plotly\.js-dist-min(\/(package\.json|index\.d\.ts))?$/;
+const STAND_IN_FILES: Record<string, string> = {
+  'package.json': '{ "name": "plotly.js-dist-min", "types": "index.d.ts" }\n',
+  'index.d.ts': '// Stand-in for the compiler (kernel/session/moduleRoot.ts): what danfojs-node types see without plotly installed.\nexport type Config = any;\nexport type Layout = any;\n',
+};
+
+function standIn(p: string): string | undefined {
+  const m = PLOTLY_STAND_IN.exec(p.replace(/\\/g, '/'));
+  return m?.[2] === undefined ? undefined : STAND_IN_FILES[m[2]];
+}
+
 let sysPatched = false;
 
 function patchCompilerSys(): void {
@@ -67,12 +87,14 @@ function patchCompilerSys(): void {
   const getDirectories = sys.getDirectories.bind(sys);
   const readDirectory = sys.readDirectory.bind(sys);
   sys.readFile = (p, encoding) => {
+    const stood = standIn(p);
+    if (stood !== undefined) return stood;
     const real = forwardPath(p);
     const text = readFile(real, encoding);
     return FROM_SOURCE && text !== undefined && real === OWN_MANIFEST && real !== p.replace(/\\/g, '/') ? sourceManifest(text) : text;
   };
-  sys.fileExists = (p) => fileExists(forwardPath(p));
-  sys.directoryExists = (p) => directoryExists(forwardPath(p));
+  sys.fileExists = (p) => standIn(p) !== undefined || fileExists(forwardPath(p));
+  sys.directoryExists = (p) => PLOTLY_STAND_IN.test(p.replace(/\\/g, '/')) || directoryExists(forwardPath(p));
   sys.getDirectories = (p) => getDirectories(forwardPath(p));
   sys.readDirectory = (p, ext, exclude, include, depth) => readDirectory(forwardPath(p), ext, exclude, include, depth);
   if (sys.getModifiedTime) {
