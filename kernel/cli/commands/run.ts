@@ -84,10 +84,11 @@ export interface RunCommandResult {
 
 /** Runs the command (also used by `sagitta demo` and by tests). */
 export async function runCommand(notebook: string, options: RunCommandOptions): Promise<RunCommandResult> {
-  const [{ parseDuration }, { parseSetArguments }, { startNotebookProcess }] = await Promise.all([
+  const [{ parseDuration }, { parseSetArguments }, { startNotebookProcess }, { adoptEarlyNotebookProcess }] = await Promise.all([
     import('../../runner/duration.js'),
     import('../../runner/setArguments.js'),
     import('../../runner/notebookProcess.js'),
+    import('../../runner/earlyNotebookProcess.js'),
   ]);
   // Every option and every output checked before anything runs (usage errors, exit 2).
   const { cellTimeoutMs, knobs, outputs } = usage(() => ({
@@ -98,9 +99,10 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
   const executed = outputs.find((o) => o.flag === '--executed' || o.flag === '--write-back');
   const html = outputs.find((o) => o.flag === '--html' || o.flag === 'the HTML beside --pdf');
   const pdf = outputs.find((o) => o.flag === '--pdf');
-  // Start the notebook process first: it boots (library, cell compiler) while this process loads
-  // the runner and the report modules.
-  const notebookProcess = startNotebookProcess(dirname(resolve(notebook)), true);
+  // Start the notebook process first (or take the one the command started as it began): it boots
+  // (library, cell compiler) while this process loads the runner and the report modules.
+  const workDir = dirname(resolve(notebook));
+  const notebookProcess = adoptEarlyNotebookProcess(workDir, true) ?? startNotebookProcess(workDir, true);
   let runNotebook: typeof import('../../runner/runNotebook.js').runNotebook;
   let serializeNotebook: typeof import('../../notebook/write.js').serializeNotebook;
   try {
