@@ -1,16 +1,13 @@
-import { childExecArgv, moduleUrl } from '../packageMode.js';
-import { fork } from 'node:child_process';
 import path, { dirname, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { SagittaError } from '../../lib/index.js';
-import { type KnobRecord, type ProvenanceSnapshot } from '../../lib/internal.js';
+import { msg, type KnobRecord, type ProvenanceSnapshot } from '../../lib/internal.js';
 import type { DisplayDataOutput, Notebook, SagittaCellMeta } from '../notebook/types.js';
 import { runCell } from './cellRecorder.js';
 import { pushStream } from './cellRecorder.js';
 import { ChildChannel } from './childChannel.js';
-import { COMPILE_AHEAD_FLAG } from './messages.js';
 import { exitOutput, exitText, firstLine, formatLimit, lastLine, stepName, stoppedOutput, timeoutOutput } from './failureText.js';
 import { libraryRecord } from './libraryRecord.js';
+import { startNotebookProcess, type NotebookProcess } from './notebookProcess.js';
 import { prepareNotebook } from './prepare.js';
 import { describeInputs } from './simulatedInputs.js';
 import type { ModuleRecord, RunRecord } from './runRecord.js';
@@ -38,6 +35,12 @@ export interface RunNotebookOptions {
    * checked, and the first cell with a type error stops it with the same error.
    */
   readonly compileAhead?: boolean;
+  /**
+   * A notebook process the caller started already (startNotebookProcess), so that it boots while
+   * the caller loads the rest; it must have been started in this run's folder with this run's
+   * `compileAhead`. The run takes it over (and stops it if the notebook cannot be read).
+   */
+  readonly process?: NotebookProcess;
   readonly onProgress?: (event: RunProgress) => void;
 }
 
@@ -56,7 +59,6 @@ export interface NotebookRun {
 }
 
 const DEFAULTS = Object.freeze({ cellTimeoutMs: 120_000, keepGoing: false, startTimeoutMs: 120_000, compileAhead: true });
-const CHILD = fileURLToPath(moduleUrl('kernel/runner/child'));
 /** Signals to `sagitta run` itself that stop the run (the notebook process is stopped, the record still written). */
 const STOP_SIGNALS: readonly NodeJS.Signals[] = ['SIGINT', 'SIGTERM', 'SIGHUP'];
 
@@ -71,12 +73,24 @@ const STOP_SIGNALS: readonly NodeJS.Signals[] = ['SIGINT', 'SIGTERM', 'SIGHUP'];
  */
 export async function runNotebook(path: string, options: RunNotebookOptions = {}): Promise<NotebookRun> {
   const o = { ...DEFAULTS, ...options };
-  const { loaded, notebook: nb, code } = prepareNotebook(path);
   const workDir = resolve(options.workDir ?? dirname(resolve(path)));
+  const started = options.process;
+  if (started && (started.workDir !== workDir || started.compileAhead !== o.compileAhead)) {
+    started.child.kill('SIGKILL');
+    throw msg.badArgument('process', started.workDir, `a notebook process started in ${workDir} with compileAhead ${o.compileAhead}`);
+  }
+  let prepared: ReturnType<typeof prepareNotebook>;
+  try {
+    prepared = prepareNotebook(path);
+  } catch (err) {
+    started?.child.kill('SIGKILL');
+    throw err;
+  }
+  const { loaded, notebook: nb, code } = prepared;
   const startedAt = new Date();
   const t0 = performance.now();
   const library = libraryRecord();
-  const child = fork(CHILD, o.compileAhead ? [COMPILE_AHEAD_FLAG] : [], { cwd: workDir, execArgv: childExecArgv(), stdio: ['ignore', 'pipe', 'pipe', 'ipc'], env: { ...process.env, FORCE_COLOR: '0' } });
+  const { child } = started ?? startNotebookProcess(workDir, o.compileAhead);
   const channel = new ChildChannel(child);
   let stoppedBy: NodeJS.Signals | undefined;
   const onSignal = (signal: NodeJS.Signals) => {

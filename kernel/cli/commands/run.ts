@@ -84,8 +84,12 @@ export interface RunCommandResult {
 
 /** Runs the command (also used by `sagitta demo` and by tests). */
 export async function runCommand(notebook: string, options: RunCommandOptions): Promise<RunCommandResult> {
-  const { parseDuration, parseSetArguments, runNotebook } = await import('../../runner/index.js');
-  const { serializeNotebook } = await import('../../notebook/write.js');
+  const [{ parseDuration }, { parseSetArguments }, { startNotebookProcess }, { adoptEarlyNotebookProcess }] = await Promise.all([
+    import('../../runner/duration.js'),
+    import('../../runner/setArguments.js'),
+    import('../../runner/notebookProcess.js'),
+    import('../../runner/earlyNotebookProcess.js'),
+  ]);
   // Every option and every output checked before anything runs (usage errors, exit 2).
   const { cellTimeoutMs, knobs, outputs } = usage(() => ({
     cellTimeoutMs: parseDuration(options.cellTimeout),
@@ -95,8 +99,19 @@ export async function runCommand(notebook: string, options: RunCommandOptions): 
   const executed = outputs.find((o) => o.flag === '--executed' || o.flag === '--write-back');
   const html = outputs.find((o) => o.flag === '--html' || o.flag === 'the HTML beside --pdf');
   const pdf = outputs.find((o) => o.flag === '--pdf');
-  // Start the notebook process first; the report modules load while it boots.
-  const running = runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, knobs, onProgress: options.progress });
+  // Start the notebook process first (or take the one the command started as it began): it boots
+  // (library, cell compiler) while this process loads the runner and the report modules.
+  const workDir = dirname(resolve(notebook));
+  const notebookProcess = adoptEarlyNotebookProcess(workDir, true) ?? startNotebookProcess(workDir, true);
+  let runNotebook: typeof import('../../runner/runNotebook.js').runNotebook;
+  let serializeNotebook: typeof import('../../notebook/write.js').serializeNotebook;
+  try {
+    [{ runNotebook }, { serializeNotebook }] = await Promise.all([import('../../runner/runNotebook.js'), import('../../notebook/write.js')]);
+  } catch (err) {
+    notebookProcess.child.kill('SIGKILL');
+    throw err;
+  }
+  const running = runNotebook(notebook, { cellTimeoutMs, keepGoing: options.keepGoing, knobs, onProgress: options.progress, process: notebookProcess });
   const report = html !== undefined ? import('../../report/index.js') : undefined;
   report?.catch(() => undefined);
   const result = await running;
