@@ -60,9 +60,10 @@ describe('highlandTheta0 in a material and its argument checks (PDG RPP, Lynch &
     const ok = { momentumGeV: 1, beta: 1, charge: 1, thicknessOverX0: 0.1 };
     expect(() => highlandTheta0(ok)).not.toThrow();
     expect(() => highlandTheta0({ ...ok, momentumGeV: 0 })).toThrow(SagittaError);
+    expect(() => highlandTheta0({ ...ok, momentumGeV: 0 })).toThrow('momentumGeV/beta = [0,1] is not valid: expected p > 0 GeV/c and 0 < β ≤ 1');
     expect(() => highlandTheta0({ ...ok, beta: 0 })).toThrow(SagittaError);
     expect(() => highlandTheta0({ ...ok, beta: 1.0000001 })).toThrow(/p > 0 GeV\/c and 0 < β ≤ 1/);
-    expect(() => highlandTheta0InMaterial(MUON_MINUS, material('silicon'), 1, 0)).toThrow(/a positive path length in metres/);
+    expect(() => highlandTheta0InMaterial(MUON_MINUS, material('silicon'), 1, 0)).toThrow('pathM = 0 is not valid: expected a positive path length in metres');
     expect(() => highlandTheta0InMaterial(MUON_MINUS, material('silicon'), 1, -1e-3)).toThrow(SagittaError);
   });
   it('negative charge enters as |z|', () => {

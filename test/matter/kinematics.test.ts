@@ -65,5 +65,8 @@ describe('kinematics at T = M (γ = 2, β = √3/2, βγ = √3), each function 
       expect(f(PROTON, Number.NaN), f.name).toBeNaN();
     }
     expect(kineticFromMomentum(PROTON, Number.NaN)).toBeNaN();
+    // T < −2M would make T(T + 2M) positive again: still NaN, not √3 M.
+    expect(momentumFromKinetic(PROTON, -3 * M)).toBeNaN();
+    expect(gammaFromKinetic(PROTON, -3 * M)).toBeNaN();
   });
 });

@@ -49,6 +49,7 @@ describe('radiationLengthTsai: the formula written out (PDG RPP eq. for 1/X₀)'
   });
   it('is NaN for Z < 1 or A ≤ 0', () => {
     expect(radiationLengthTsai(0, 1)).toBeNaN();
+    expect(radiationLengthTsai(0.5, 1)).toBeNaN();
     expect(radiationLengthTsai(6, 0)).toBeNaN();
     expect(radiationLengthTsai(Number.NaN, 12)).toBeNaN();
   });
