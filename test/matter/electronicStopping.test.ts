@@ -119,4 +119,17 @@ describe('materials without a fit', () => {
     expect(checked).toBe(4);
     consumeWarnings();
   });
+  it('in a compound without a fit the effective charge takes the electron-weighted mean Z: polystyrene (CH)ₙ ⟨Z⟩ = (6·36 + 1)/(6 + 1)·… = 296/56', () => {
+    // Per C₈H₈: electrons 8·6 + 8·1 = 56, Σ Z² per electron 8·36 + 8·1 = 296 (common practice). With that
+    // Z₂ the ratio to z_eff² S_p is one constant (measured 0.997944) at every energy; another ⟨Z⟩ would make it drift.
+    const ps = material('polystyrene');
+    let checked = 0;
+    for (const t of [0.5, 2, 10, 30]) {
+      const ratio = collisionStoppingPower(ALPHA, ps, t) / (heliumEffectiveChargeSquared(MA, t, 296 / 56) * collisionStoppingPower(PROTON, ps, (t * MP) / MA));
+      expect(ratio, `${t} MeV`).toBeCloseTo(0.997944, 6);
+      checked++;
+    }
+    expect(checked).toBe(4);
+    consumeWarnings();
+  });
 });
