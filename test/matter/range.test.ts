@@ -4,7 +4,7 @@ import estar from '../fixtures/estar/water-electrons.json' with { type: 'json' }
 import { ELECTRON, MUON_PLUS, PION_MINUS, PROTON } from '../../lib/particles.js';
 import { consumeWarnings } from '../../lib/warnings.js';
 import {
-  csdaRange, energyAfterPath, energyAtRange, kineticEnergyFromRange, material, rangeAt, rangeCutoffMeV,
+  csdaRange, energyAfterPath, energyAtRange, kineticEnergyFromRange, material, rangeAt, rangeCutoffMeV, rangeMaxMeV,
   rangeTable, residualRange,
 } from '../../lib/matter/index.js';
 
@@ -104,5 +104,74 @@ describe('momentum ↔ range', () => {
     const r = csdaRangeFromMomentum(MUON_PLUS, lh2, 29.79);
     expect(r).toBeCloseTo(csdaRange(MUON_PLUS, lh2, Math.sqrt(29.79 ** 2 + MUON_PLUS.massMeV ** 2) - MUON_PLUS.massMeV), 12);
     expect(momentumFromRange(MUON_PLUS, lh2, r)).toBeCloseTo(29.79, 8);
+  });
+});
+
+describe('range.ts: validity, warnings and the inverse', () => {
+  it('warns APPROXIMATION when over 5 % of a no-fit range lies below the proton-equivalent 2 MeV (silicon: 7 % at 10 MeV, 4.9 % at 12 MeV)', () => {
+    const si = material('silicon');
+    csdaRange(PROTON, si, 10);
+    const w = consumeWarnings();
+    expect(w.map((x) => [x.code, x.source])).toEqual([['APPROXIMATION', 'csdaRange']]);
+    expect(w[0].message).toBe('csdaRange: silicon has no ICRU 49 low-energy fit; 7 % of this range lies below the proton-equivalent 2 MeV, where it rests on the no-fit approximations (good to ~5–20 %, lib/matter/README.md)');
+    csdaRange(PROTON, si, 12);
+    expect(consumeWarnings()).toEqual([]);
+    // A pion scales by mass: 2 MeV proton-equivalent is 0.2975 MeV for a π⁻; 13 % of R(1 MeV) lies below it.
+    csdaRange(PION_MINUS, si, 1);
+    expect(consumeWarnings()[0].message).toMatch(/; 13 % of this range lies below the proton-equivalent 2 MeV/);
+  });
+  it('for I > 400 eV the extrapolated part runs to 100 MeV proton-equivalent (lead: 51 % at 150 MeV, 7 % at 500, none at 1000)', () => {
+    const pb = material('lead');
+    csdaRange(PROTON, pb, 150);
+    expect(consumeWarnings()[0].message).toMatch(/^csdaRange: lead has no ICRU 49 low-energy fit; 51 % of this range lies below the proton-equivalent 100 MeV,/);
+    csdaRange(PROTON, pb, 500);
+    expect(consumeWarnings()[0].message).toMatch(/; 7 % of this range lies below the proton-equivalent 100 MeV,/);
+    csdaRange(PROTON, pb, 1000);
+    expect(consumeWarnings()).toEqual([]);
+  });
+  it('no APPROXIMATION for fitted materials or electrons, and none at T = 0', () => {
+    csdaRange(PROTON, material('water'), 0.5);
+    csdaRange(ELECTRON, material('silicon'), 0.5);
+    expect(csdaRange(PROTON, material('silicon'), 0)).toBe(0);
+    expect(consumeWarnings()).toEqual([]);
+  });
+  it('NaN with the interval named beyond the top of validity (βγ = 1000: 937000 MeV; R(T_max) = 394000 g/cm² in silicon)', () => {
+    const si = material('silicon');
+    expect(csdaRange(PROTON, si, 1e7)).toBeNaN();
+    expect(kineticEnergyFromRange(PROTON, si, 1e9)).toBeNaN();
+    const w = consumeWarnings();
+    expect(w.map((x) => x.message)).toEqual([
+      'csdaRange: proton kinetic energy [MeV] 10000000 is outside 0–937000 MeV; result is NaN',
+      'kineticEnergyFromRange: proton range [g/cm²] 1000000000 is outside 0–394000 g/cm²; result is NaN',
+    ]);
+    expect(w.map((x) => x.source)).toEqual(['csdaRange', 'kineticEnergyFromRange']);
+    // The top itself (T at βγ = 1000, 937334.29 MeV) is inside.
+    const top = rangeMaxMeV(PROTON);
+    expect(top).toBeCloseTo(938.27208816 * (Math.sqrt(1 + 1e6) - 1), 6);
+    expect(Number.isFinite(csdaRange(PROTON, si, top))).toBe(true);
+    expect(kineticEnergyFromRange(PROTON, si, csdaRange(PROTON, si, top)) / top).toBeCloseTo(1, 9);
+  });
+  it('kineticEnergyFromRange inverts csdaRange to 1e-12 at nodes’ neighbours, below the cutoff and for e± under 10 keV', () => {
+    const w = material('water');
+    let checked = 0;
+    for (const [p, t] of [[PROTON, 3], [PROTON, 250], [PROTON, 1e-6], [PROTON, 0.0100001], [PION_MINUS, 40], [ELECTRON, 0.5], [ELECTRON, 0.003], [ELECTRON, 5000]] as const) {
+      expect(rel(kineticEnergyFromRange(p, w, csdaRange(p, w, t)), t), `${p.name} ${t} MeV`).toBeLessThan(1e-12);
+      checked++;
+    }
+    expect(checked).toBe(8);
+    expect(kineticEnergyFromRange(PROTON, w, 0)).toBe(0);
+  });
+  it('residualRange refuses a negative path; energyAfterPath and momentum ↔ range at 100 MeV (p = 444.5834 MeV/c)', async () => {
+    const { csdaRangeFromMomentum, momentumFromRange } = await import('../../lib/matter/range.js');
+    const w = material('water');
+    expect(() => residualRange(PROTON, w, 100, -1)).toThrow('pathGcm2 = -1 is not valid: expected a non-negative path length in g/cm²');
+    expect(residualRange(PROTON, w, 100, 0)).toBe(csdaRange(PROTON, w, 100));
+    expect(energyAfterPath(PROTON, w, 100, 0)).toBeCloseTo(100, 9);
+    // 1 g/cm² of water at 100 MeV: ΔT ≈ S·1 = 7.29 MeV to first order, plus the rise of S: 92.61 MeV here.
+    expect(energyAfterPath(PROTON, w, 100, 1)).toBeCloseTo(kineticEnergyFromRange(PROTON, w, csdaRange(PROTON, w, 100) - 1), 9);
+    expect(100 - energyAfterPath(PROTON, w, 100, 1)).toBeGreaterThan(7.289);
+    expect(100 - energyAfterPath(PROTON, w, 100, 1)).toBeLessThan(7.6);
+    expect(csdaRangeFromMomentum(PROTON, w, 444.5834)).toBeCloseTo(csdaRange(PROTON, w, 100), 5);
+    expect(momentumFromRange(PROTON, w, csdaRange(PROTON, w, 100))).toBeCloseTo(444.5834, 3);
   });
 });
