@@ -70,7 +70,7 @@ export function fitIntoScratch(model: LossModel, hits: MatterTrackHits, set: Mat
  * is far too small. Two corrections, the larger is used: a hypothesis that stops before a next
  * hit one spacing on leaves the stopping point unknown within that spacing (residual range
  * uniform over one mean 3-D spacing, σ_R = spacing/√12); a track that ends within a few
- * spacings of its range end gets the excess of its χ²-profile error (`rangeProfileSigma`). The
+ * spacings of its range end gets the excess of its profile-likelihood error (`rangeProfileSigma`). The
  * variance `varianceGcm2` of the residual range is carried to κ at hit i through
  * dκ/dR = −(κ/p)·S/β (range–energy relation) and added to its variance in `b`.
  */
