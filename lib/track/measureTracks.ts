@@ -139,7 +139,9 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
   const planeHits = { x: table.x, y: table.y, sigmaX, sigmaY };
   const hasZ = table.z !== undefined;
   const fitOptions = { method, fieldT: options.fieldT };
-  const helix = hasZ ? fitHelices({ ...planeHits, z: table.z!, sigmaZ: table.sigmaZ }, index.offsets, fitOptions) : undefined;
+  // Spelled out, not spread: a spread built a new hidden class per call here, so the fits
+  // recompiled (deoptimised on "wrong map") chunk after chunk of a batch run.
+  const helix = hasZ ? fitHelices({ x: table.x, y: table.y, sigmaX, sigmaY, z: table.z!, sigmaZ: table.sigmaZ }, index.offsets, fitOptions) : undefined;
   const circle = helix ? helix.circle : fitCircles(planeHits, index.offsets, fitOptions);
   const n = index.count;
   const nhits = new Int32Array(n);
@@ -150,7 +152,7 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
     if (sigmaX === undefined) throw msg.badArgument('hitErrorM', undefined, "hit errors for the fit with material: sigma columns, hitErrorM (--hit-error), or the plain helix fit (fit: 'plain-helix', --plain-helix)");
     const medium = typeof options.material === 'string' ? lookupMaterial(options.material) : options.material!;
     const species = options.particle === undefined ? PION_PLUS : typeof options.particle === 'string' ? lookupParticle(options.particle) : (options.particle as Particle);
-    const matter = fitTracksInMatter({ ...planeHits, z: table.z, sigmaZ: table.sigmaZ }, index.offsets, { fieldT: options.fieldT, medium, particle: species, hitErrorM: options.hitErrorM });
+    const matter = fitTracksInMatter({ x: table.x, y: table.y, sigmaX, sigmaY, z: table.z, sigmaZ: table.sigmaZ }, index.offsets, { fieldT: options.fieldT, medium, particle: species, hitErrorM: options.hitErrorM });
     const status = Array.from(matter.status, (s) => MATTER_FIT_STATUS[s] as FitStatus);
     return {
       count: n, event: index.event, track: index.track, nhits,

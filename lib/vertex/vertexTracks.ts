@@ -56,7 +56,7 @@ export function vertexTracks(table: TrackTable, options: VertexTracksOptions = {
   const planeHits = { x: hits.x, y: hits.y, sigmaX, sigmaY };
   const fitOptions = { method: table.method, fieldT };
   const hasZ = hits.z !== undefined;
-  const helix = hasZ ? fitHelices({ ...planeHits, z: hits.z!, sigmaZ: hits.sigmaZ }, offsets, fitOptions) : undefined;
+  const helix = hasZ ? fitHelices({ x: hits.x, y: hits.y, sigmaX, sigmaY, z: hits.z!, sigmaZ: hits.sigmaZ }, offsets, fitOptions) : undefined;
   const circle = helix ? helix.circle : fitCircles(planeHits, offsets, fitOptions);
   const n = table.count;
   const cov = new Float64Array(25 * n);
