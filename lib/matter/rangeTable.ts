@@ -64,7 +64,8 @@ export function rangeTable(particle: Particle, material: Material, options: Part
   const lnFrom = Math.log(from);
   const step = (Math.log(to) - lnFrom) / (n - 1);
   for (let i = 0; i < n; i++) {
-    t[i] = i === n - 1 ? to : Math.exp(lnFrom + i * step);
+    // Both ends exactly as asked (exp(ln from) can differ from it in the last bit).
+    t[i] = i === 0 ? from : i === n - 1 ? to : Math.exp(lnFrom + i * step);
     p[i] = momentumFromKinetic(particle, t[i]);
     s[i] = massStoppingPower(particle, material, t[i]);
   }
