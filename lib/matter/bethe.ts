@@ -66,5 +66,6 @@ function fmt(x: number): string {
 }
 
 export function warnOutside(source: string, particle: Particle, kineticEnergyMeV: number, valid: string): void {
-  warn('OUTSIDE_VALIDITY', `${source}: ${particle.name} at T = ${fmt(kineticEnergyMeV)} MeV is outside the validity range ${valid}; result is NaN`, source);
+  // T to 6 digits, not 3: a value just past a limit must not read as the limit itself.
+  warn('OUTSIDE_VALIDITY', `${source}: ${particle.name} at T = ${Number(kineticEnergyMeV.toPrecision(6))} MeV is outside the validity range ${valid}; result is NaN`, source);
 }

@@ -109,9 +109,10 @@ describe('betheStoppingPower validity 0.045 ≤ βγ ≤ 1000 (closed)', () => {
     expect(betheStoppingPower(PROTON, w, 0)).toBeNaN();
     const warned = consumeWarnings();
     expect(warned.map((x) => x.code)).toEqual(['OUTSIDE_VALIDITY', 'OUTSIDE_VALIDITY', 'OUTSIDE_VALIDITY']);
-    // T(βγ) = M βγ² / (√(1 + βγ²) + 1): proton 0.9495 … 937334 MeV, muon 0.10693 … 105553 MeV.
-    expect(warned[0].message).toBe('betheStoppingPower: proton at T = 0.95 MeV is outside the validity range 0.95–937000 MeV; result is NaN');
-    expect(warned[1].message).toBe('betheStoppingPower: mu- at T = 106000 MeV is outside the validity range 0.107–106000 MeV; result is NaN');
+    // T(βγ) = M βγ² / (√(1 + βγ²) + 1): proton 0.9495 … 937334 MeV, muon 0.10693 … 105553 MeV; the
+    // limits are printed to 3 digits, the value given to 6 (so it never reads as the limit itself).
+    expect(warned[0].message).toBe('betheStoppingPower: proton at T = 0.9495 MeV is outside the validity range 0.95–937000 MeV; result is NaN');
+    expect(warned[1].message).toBe('betheStoppingPower: mu- at T = 105553 MeV is outside the validity range 0.107–106000 MeV; result is NaN');
     expect(warned[0].source).toBe('betheStoppingPower');
   });
 });

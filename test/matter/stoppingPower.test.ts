@@ -88,8 +88,35 @@ describe('massStoppingPower for heavy particles (Bethe)', () => {
     expect(w.map((x) => x.code)).toEqual(['OUTSIDE_VALIDITY', 'OUTSIDE_VALIDITY', 'OUTSIDE_VALIDITY']);
     expect(w[0].message).toMatch(/proton at T = 0 MeV/);
   });
-  it('refuses a neutral particle as a bad call', () => {
+  it('refuses a neutral particle as a bad call, word for word', () => {
     expect(() => massStoppingPower(KAON_SHORT, material('water'), 100)).toThrow(SagittaError);
+    expect(() => collisionStoppingPower(KAON_SHORT, material('water'), 100))
+      .toThrow('particle = "K0S" is not valid: expected a charged particle (neutral particles do not lose energy by ionisation)');
+  });
+  it('ends at βγ = 1000 (proton T = M(√(1 + 10⁶) − 1) = 937 335 MeV): finite below, NaN with the warning text above', () => {
+    // The top of validity is a kinematic identity (common practice); the warning rounds it to 3 digits.
+    expect(Number.isFinite(massStoppingPower(PROTON, material('water'), 937_300))).toBe(true);
+    expect(Number.isFinite(collisionStoppingPower(PROTON, material('water'), 937_300))).toBe(true);
+    expect(consumeWarnings()).toEqual([]);
+    expect(massStoppingPower(PROTON, material('water'), 937_400)).toBeNaN();
+    expect(collisionStoppingPower(PROTON, material('water'), 937_400)).toBeNaN();
+    expect(consumeWarnings().map((w) => [w.code, w.source, w.message])).toEqual([
+      ['OUTSIDE_VALIDITY', 'massStoppingPower', 'massStoppingPower: proton at T = 937400 MeV is outside the validity range 0–937000 MeV; result is NaN'],
+      ['OUTSIDE_VALIDITY', 'collisionStoppingPower', 'collisionStoppingPower: proton at T = 937400 MeV is outside the validity range 0–937000 MeV; result is NaN'],
+    ]);
+  });
+  it('warns, naming the function, where a material has no ICRU 49 low-energy fit (liquid propane at 0.5 MeV)', () => {
+    const prop = material('liquid-propane');
+    expect(collisionStoppingPower(PROTON, prop, 0.5)).toBeGreaterThan(400);
+    expect(massStoppingPower(PROTON, prop, 0.5)).toBeGreaterThan(collisionStoppingPower(PROTON, prop, 0.5));
+    const tail = 'has no ICRU 49 low-energy fit at this energy (below the proton-equivalent 2 MeV, or 100 MeV for I > 400 eV); the value there is good to ~5–20 % only (lib/matter/README.md)';
+    expect(consumeWarnings().map((w) => [w.code, w.source, w.message])).toEqual([
+      ['APPROXIMATION', 'collisionStoppingPower', `collisionStoppingPower: proton in liquid-propane at T = 0.5 MeV ${tail}`],
+      ['APPROXIMATION', 'massStoppingPower', `massStoppingPower: proton in liquid-propane at T = 0.5 MeV ${tail}`],
+    ]);
+    // Water has the fit: no warning at the same energy.
+    massStoppingPower(PROTON, material('water'), 0.5);
+    expect(consumeWarnings()).toEqual([]);
   });
 });
 
