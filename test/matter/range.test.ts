@@ -130,6 +130,19 @@ describe('range.ts: validity, warnings and the inverse', () => {
     expect(consumeWarnings()[0].message).toMatch(/; 7 % of this range lies below the proton-equivalent 100 MeV,/);
     csdaRange(PROTON, pb, 1000);
     expect(consumeWarnings()).toEqual([]);
+    // Scaled by mass: 100 MeV proton-equivalent is 14.9 MeV for a π⁻; 14 % of R(50 MeV) lies below it.
+    csdaRange(PION_MINUS, pb, 50);
+    expect(consumeWarnings()[0].message).toMatch(/; 14 % of this range lies below the proton-equivalent 100 MeV,/);
+  });
+  it('csdaRange and kineticEnergyFromRange each record the clinical caution in the provenance', async () => {
+    const { provenanceSnapshot, resetProvenance } = await import('../../lib/provenance.js');
+    resetProvenance();
+    csdaRange(PROTON, material('water'), 100);
+    expect(provenanceSnapshot().cautions).toEqual(['stopping-power']);
+    resetProvenance();
+    kineticEnergyFromRange(PROTON, material('water'), 7.718);
+    expect(provenanceSnapshot().cautions).toEqual(['stopping-power']);
+    resetProvenance();
   });
   it('no APPROXIMATION for fitted materials or electrons, and none at T = 0', () => {
     csdaRange(PROTON, material('water'), 0.5);
