@@ -1,5 +1,6 @@
 import { GEV_PER_TESLA_METRE } from '../../constants.js';
-import { highlandLogThickness, highlandPathTerm, kineticAndStoppingAtRange, rangeAtKinetic, type LossModel } from './lossModel.js';
+import { HIGHLAND_MAX_X_OVER_X0, HIGHLAND_MIN_X_OVER_X0 } from '../../matter/highland.js';
+import { kineticAndStoppingAtRange, rangeAtKinetic, type LossModel } from './lossModel.js';
 import type { MatterFitScratch } from './matterFitScratch.js';
 import type { MatterTrackHits } from './matterTrackFit.js';
 
@@ -72,11 +73,9 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
   storeHit(sc, 0, hits, set);
   sc.ds[0] = 0;
   for (let i = 1; i < n; i++) {
-    // This hit step's Jacobian and noise accumulate in place: F = 1, Q = 0 to start.
-    const o = 9 * i, oz = 3 * i, F = sc.F, Q = sc.Q, Qz = sc.Qz;
-    F[o] = 1; F[o + 1] = 0; F[o + 2] = 0; F[o + 3] = 0; F[o + 4] = 1; F[o + 5] = 0; F[o + 6] = 0; F[o + 7] = 0; F[o + 8] = 1;
-    for (let k = 0; k < 9; k++) Q[o + k] = 0;
-    Qz[oz] = 0; Qz[oz + 1] = 0; Qz[oz + 2] = 0;
+    // This hit step's Jacobian and noise accumulate in place over its arcs; its first arc writes
+    // them whole (`fresh`), and a step without an arc gets F = 1, Q = 0 after the loop.
+    const o = 9 * i, oz = 3 * i;
     let dsTotal = 0, fresh = true;
     for (let it = 0; it < 8; it++) {
       // Arc to the point of the current circle closest to the hit: angle atan2(κ·a, 1 − κ·b) with
@@ -166,7 +165,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
           const F = sc.F, Q = sc.Q, Qz = sc.Qz;
           let n00 = 0, n01 = 0, n11 = 0, n02 = 0, n12 = 0, n22 = 0, z00 = 0, z01 = 0, z11 = 0;
           if (fresh) {
-            F[o] = f00; F[o + 1] = f01; F[o + 2] = f02; F[o + 3] = f10; F[o + 4] = f11; F[o + 5] = f12; F[o + 8] = g;
+            F[o] = f00; F[o + 1] = f01; F[o + 2] = f02; F[o + 3] = f10; F[o + 4] = f11; F[o + 5] = f12; F[o + 6] = 0; F[o + 7] = 0; F[o + 8] = g;
           } else {
             // F ← Fs·F (F's last row is [0, 0, G]).
             for (let c = o; c < o + 3; c++) {
@@ -191,16 +190,29 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
           }
           const al = Math.abs(l);
           if (set.multipleScattering && al > 0) {
-            // Highland θ₀² increment over this step after the path before it (lossModel.highlandPathTerm).
+            // Highland θ₀² increment over this step after the path before it, in the stepwise form
+            // of the chamber medium (`chamberMedium(...).forSpecies(...).theta0Rad`; PDG RPP "Passage
+            // of particles through matter"): θ₀²(t) = (0.0136 z/(βp))²·t·[1 + 0.038 (ln t̃ + ln z² − ln β²)]²,
+            // t = x/X₀, t̃ = t clamped to 1e-3…100 (θ₀² continued linearly in t outside), the step's
+            // increment (0.0136 z/(βp))²·(term(t_after) − term(t_before)). The same formula as
+            // `highlandTheta0`, arranged so that a step needs one new logarithm (the log of the path
+            // before it is the one after the previous step). Validity: Highland's (11 %, 1e-3 < x/X₀ < 100).
             // (0.0136 z/(βp))² = (0.0136 z)²·E²/p⁴ with E² = p² + m² [GeV²].
             const pM = 0.5 * (pS + pE);
             const pM2 = pM * pM, e2 = pM2 + model.massGeVSq, beta2 = pM2 / e2;
             const lnZB = model.lnChargeSq - lnBetaSq(cur, beta2);
             const perX0 = model.radiationLengthsPerM;
             const tB = before * perX0, tA = cur[9] * perX0;
-            const lnA = highlandLogThickness(tA);
-            const termB = before > 0 ? highlandPathTerm(tB, cur[13] === before ? cur[12] : highlandLogThickness(tB), lnZB) : 0;
-            const t2 = Math.max(0, ((model.highlandScaleSq * e2) / (pM2 * pM2)) * (highlandPathTerm(tA, lnA, lnZB) - termB));
+            // term(t) = t·[1 + 0.038 (ln t̃ + lnZB)]² after and before the step, written out here
+            // (the engine does not inline calls into this large function).
+            const lnA = Math.log(Math.min(Math.max(tA, HIGHLAND_MIN_X_OVER_X0), HIGHLAND_MAX_X_OVER_X0));
+            let termB = 0;
+            if (before > 0) {
+              const fB = 1 + 0.038 * ((cur[13] === before ? cur[12] : Math.log(Math.min(Math.max(tB, HIGHLAND_MIN_X_OVER_X0), HIGHLAND_MAX_X_OVER_X0))) + lnZB);
+              termB = tB * fB * fB;
+            }
+            const fA = 1 + 0.038 * (lnA + lnZB);
+            const t2 = Math.max(0, ((model.highlandScaleSq * e2) / (pM2 * pM2)) * (tA * fA * fA - termB));
             cur[12] = lnA; cur[13] = cur[9];
             const t2l = t2 * al, sec2 = secL * secL;
             n00 += t2l * al * (1 / 3); n01 += 0.5 * t2l * secL; n11 += t2 * sec2;
@@ -220,6 +232,12 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
         dsTotal += ds;
         remaining = Math.abs(remaining - ds) < 1e-15 ? 0 : remaining - ds;
       }
+    }
+    if (fresh) {
+      const F = sc.F, Q = sc.Q, Qz = sc.Qz;
+      F[o] = 1; F[o + 1] = 0; F[o + 2] = 0; F[o + 3] = 0; F[o + 4] = 1; F[o + 5] = 0; F[o + 6] = 0; F[o + 7] = 0; F[o + 8] = 1;
+      for (let k = 0; k < 9; k++) Q[o + k] = 0;
+      Qz[oz] = 0; Qz[oz + 1] = 0; Qz[oz + 2] = 0;
     }
     if (!Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3])) return REFERENCE_DIVERGED;
     sc.ds[i] = dsTotal;
