@@ -136,11 +136,12 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
             const cphi = cur[10], sphi = cur[11];
             let ca: number, sa: number, sOverK: number, oneMinusCOverK2: number;
             if (Math.abs(a) < 0.1) {
-              // Taylor series to a⁸ (the next terms are below 3e-17 at |a| = 0.1).
+              // Taylor series to a⁸ (the next terms are below 3e-17 at |a| = 0.1), multiplied by the
+              // reciprocals of the factorial ratios (folded constants: no division per arc).
               const a2 = a * a;
-              const sinc = 1 - (a2 / 6) * (1 - (a2 / 20) * (1 - (a2 / 42) * (1 - a2 / 72)));
-              const cosc = 1 - (a2 / 12) * (1 - (a2 / 30) * (1 - (a2 / 56) * (1 - a2 / 90)));
-              ca = 1 - 0.5 * a2 * (1 - (a2 / 12) * (1 - (a2 / 30) * (1 - a2 / 56)));
+              const sinc = 1 - a2 * (1 / 6) * (1 - a2 * (1 / 20) * (1 - a2 * (1 / 42) * (1 - a2 * (1 / 72))));
+              const cosc = 1 - a2 * (1 / 12) * (1 - a2 * (1 / 30) * (1 - a2 * (1 / 56) * (1 - a2 * (1 / 90))));
+              ca = 1 - 0.5 * a2 * (1 - a2 * (1 / 12) * (1 - a2 * (1 / 30) * (1 - a2 * (1 / 56))));
               sa = a * sinc;
               sOverK = ds * sinc;
               oneMinusCOverK2 = 0.5 * ds * ds * cosc;
@@ -203,7 +204,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
             // r = 1 + x by its series where |x| < 1e-3 (to x⁵: error below 2e-16), else Math.log: a
             // track's β changes little from one step to the next, so this saves a logarithm per step.
             const xb = cur[15] > 0 ? beta2 / cur[15] - 1 : Infinity;
-            const lnBeta2 = Math.abs(xb) < 1e-3 ? cur[14] + xb * (1 - xb * (1 / 2 - xb * (1 / 3 - xb * (1 / 4 - xb / 5)))) : Math.log(beta2);
+            const lnBeta2 = Math.abs(xb) < 1e-3 ? cur[14] + xb * (1 - xb * (1 / 2 - xb * (1 / 3 - xb * (1 / 4 - xb * (1 / 5))))) : Math.log(beta2);
             cur[14] = lnBeta2; cur[15] = beta2;
             const lnZB = model.lnChargeSq - lnBeta2;
               const perX0 = model.radiationLengthsPerM;
