@@ -15,6 +15,8 @@ import { ELECTRON_MASS_MEV } from '../../constants.js';
  */
 export interface LossModel {
   readonly table: CachedRange;
+  /** 1/(R[i+1] − R[i]) [cm²/g] of each cell of the table's ranges (the Hermite's divisions, done once). */
+  readonly invCellWidth: Float64Array;
   /** g/cm² per metre of the material (ρ·100). */
   readonly gcm2PerM: number;
   readonly massMeV: number;
@@ -55,8 +57,12 @@ export function lossModel(material: Material, particle: Particle): LossModel {
   if (m) return m;
   const loss = chamberMedium(material).forSpecies(particle);
   const gcm2PerM = material.densityGcm3 * 100;
+  const table = cachedRange(particle, material), r = table.csdaRangeGcm2;
+  const invCellWidth = new Float64Array(Math.max(0, r.length - 1));
+  for (let i = 0; i < invCellWidth.length; i++) invCellWidth[i] = 1 / (r[i + 1] - r[i]);
   m = Object.freeze({
-    table: cachedRange(particle, material),
+    table,
+    invCellWidth,
     gcm2PerM,
     massMeV: particle.massMeV,
     chargeAbs: Math.abs(particle.charge),
@@ -111,9 +117,9 @@ export function kineticAndStoppingAtRange(m: LossModel, rangeGcm2: number, out: 
   }
   out[2] = lo;
   const h = r[hi] - r[lo];
-  const u = (rangeGcm2 - r[lo]) / h;
+  const ih = m.invCellWidth[lo], u = (rangeGcm2 - r[lo]) * ih;
   const u2 = u * u, u3 = u2 * u;
   const y0 = t[lo], y1 = t[hi], d0 = s[lo], d1 = s[hi];
   out[0] = (2 * u3 - 3 * u2 + 1) * y0 + (u3 - 2 * u2 + u) * h * d0 + (-2 * u3 + 3 * u2) * y1 + (u3 - u2) * h * d1;
-  out[1] = ((6 * u2 - 6 * u) * y0 + (-6 * u2 + 6 * u) * y1) / h + (3 * u2 - 4 * u + 1) * d0 + (3 * u2 - 2 * u) * d1;
+  out[1] = ((6 * u2 - 6 * u) * y0 + (-6 * u2 + 6 * u) * y1) * ih + (3 * u2 - 4 * u + 1) * d0 + (3 * u2 - 2 * u) * d1;
 }

@@ -64,6 +64,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
     if (Number.isFinite(r)) {
       kineticAndStoppingAtRange(model, r, sc.tmp);
       cur[4] = r; cur[5] = sc.tmp[0]; cur[6] = sc.tmp[1];
+      cur[16] = (cur[5] + m) / pm; // 1/β, carried from arc to arc with T and S
     }
   }
   cur[8] = start[4]; cur[9] = 0; cur[10] = Math.cos(start[2]); cur[11] = Math.sin(start[2]);
@@ -98,12 +99,12 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
           {
             // One arc of transverse length ds [m] (negative: backwards) from the current state
             // (cur: x, y, φ, κ, residual range, T, S, p, z, path, cos φ, sin φ, ln x̃/X₀ at path
-            // cur[13], ln β² at β² = cur[15]); the hit step's Jacobian and noise accumulate at
+            // cur[13], ln β² at β² = cur[15], 1/β); the hit step's Jacobian and noise accumulate at
             // sc.F/sc.Q[o..o+8], sc.Qz[oz..oz+2] (`fresh`: its first arc, the accumulators still 1
             // and 0). Written out here rather than called, so that the engine keeps it in one frame.
             const l = ds * secL;
             const kapS = cur[3], pS = cur[7];
-            let kapE = kapS, pE = pS, g = 1, betaE = 1;
+            let kapE = kapS, pE = pS, g = 1, invPBeta = 0;
             const m = model.massMeV;
             if (set.energyLoss && Number.isFinite(cur[4])) {
               const rE = cur[4] - l * model.gcm2PerM;
@@ -113,10 +114,10 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
               let tE: number, sE: number;
               if (lo >= 0 && lo < rr.length - 2 && rr[lo] <= rE && rE < rr[lo + 1]) {
                 const tt = model.table.kineticEnergyMeV, ss = model.table.stoppingPowerMeVcm2g;
-                const h = rr[lo + 1] - rr[lo], u = (rE - rr[lo]) / h, u2 = u * u, u3 = u2 * u;
+                const h = rr[lo + 1] - rr[lo], ih = model.invCellWidth[lo], u = (rE - rr[lo]) * ih, u2 = u * u, u3 = u2 * u;
                 const y0 = tt[lo], y1 = tt[lo + 1], d0 = ss[lo], d1 = ss[lo + 1];
                 tE = (2 * u3 - 3 * u2 + 1) * y0 + (u3 - 2 * u2 + u) * h * d0 + (-2 * u3 + 3 * u2) * y1 + (u3 - u2) * h * d1;
-                sE = ((6 * u2 - 6 * u) * y0 + (-6 * u2 + 6 * u) * y1) / h + (3 * u2 - 4 * u + 1) * d0 + (3 * u2 - 2 * u) * d1;
+                sE = ((6 * u2 - 6 * u) * y0 + (-6 * u2 + 6 * u) * y1) * ih + (3 * u2 - 4 * u + 1) * d0 + (3 * u2 - 2 * u) * d1;
               } else {
                 kineticAndStoppingAtRange(model, rE, tmp);
                 tE = tmp[0]; sE = tmp[1];
@@ -124,11 +125,13 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
               const pEm = Math.sqrt(tE * (tE + 2 * m)), invPm = 1 / pEm;
               pE = pEm * 0.001;
               kapE = sgn * cK * 1000 * invPm;
-              const betaS = (1000 * pS) / (cur[5] + m);
-              betaE = pEm / (tE + m);
+              // 1/β at the start (carried) and at the end of the arc: divisions saved.
+              const invBetaS = cur[16], invBetaE = (tE + m) * invPm;
+              invPBeta = invBetaE * invPm;
               const ratio = 1000 * pS * invPm;
-              g = cur[6] > 0 ? (ratio * ratio * betaS * sE) / (betaE * cur[6]) : 1;
-              cur[4] = rE; cur[5] = tE; cur[6] = sE; cur[7] = pE; cur[3] = kapE;
+              // g = (pS/pE)²·βS·S_E/(βE·S_S).
+              g = cur[6] > 0 ? (ratio * ratio * sE * invBetaE) / (invBetaS * cur[6]) : 1;
+              cur[4] = rE; cur[5] = tE; cur[6] = sE; cur[7] = pE; cur[3] = kapE; cur[16] = invBetaE;
             }
             const kapM = 0.5 * (kapS + kapE);
             const a = kapM * ds;
@@ -225,7 +228,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
               z00 += t2l * al * sec2 * (1 / 3); z01 += 0.5 * t2l * sec2 * secL; z11 += t2 * sec2 * sec2;
             }
             if (set.energyLoss && model.stragglingMeV2PerM > 0 && Number.isFinite(cur[4])) {
-              const dk = kapE / (1000 * pE * betaE);
+              const dk = kapE * invPBeta; // κ/(pβ), p [MeV/c]
               n22 += dk * dk * model.stragglingMeV2PerM * al;
             }
             // e±: bremsstrahlung straggling, var(δκ/κ) = var(δp/p) = 0.415 per radiation length.
