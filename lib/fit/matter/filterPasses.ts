@@ -8,7 +8,8 @@ import type { MatterFitScratch } from './matterFitScratch.js';
  * z measured. Both start from a wide prior centred on the reference (`prior`: variances of u,
  * ψ, δκ, z, tan λ), so at convergence (deviations → 0) the prior pulls nowhere.
  * - `backwardPass` runs from the last hit to the first: its filtered state at the first hit uses
- *   every hit (it equals the smoothed state there), and it keeps the filtered state at each hit.
+ *   every hit (it equals the smoothed state there), and (with `keepFiltered`) it keeps the
+ *   filtered state at each hit for the smoothed residuals.
  * - `forwardPass` runs from the first hit to the last (the smoothed state at the last hit) and
  *   (with `residuals`), combining at each hit its prediction with the backward pass's filtered state (two-filter
  *   smoother, equivalent to Rauch–Tung–Striebel; Fraser & Potter, IEEE TAC 14 (1969) 387), gives
@@ -17,7 +18,7 @@ import type { MatterFitScratch } from './matterFitScratch.js';
  * backward pass with `withLogDet` also leaves Σ ln(variance of each predicted residual) in sc.tmp[14], so that
  * χ² + that sum is −2 ln L up to a constant when the noise itself depends on the state.
  */
-export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, withLogDet = false): number {
+export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, keepFiltered: boolean, withLogDet = false): number {
   let x0 = 0, x1 = 0, x2 = 0;
   let c00 = prior[0], c01 = 0, c02 = 0, c11 = prior[1], c12 = 0, c22 = prior[2];
   let z0 = 0, z1 = 0, d00 = prior[3], d01 = 0, d11 = prior[4];
@@ -60,8 +61,10 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
     const k0 = c00 * iv, k1 = c01 * iv, k2 = c02 * iv;
     x0 += k0 * r; x1 += k1 * r; x2 += k2 * r;
     c22 -= k2 * c02; c12 -= k1 * c02; c11 -= k1 * c01; c02 -= k0 * c02; c01 -= k0 * c01; c00 -= k0 * c00;
-    const b = 9 * i, bs = sc.bs;
-    bs[b] = x0; bs[b + 1] = x1; bs[b + 2] = x2; bs[b + 3] = c00; bs[b + 4] = c01; bs[b + 5] = c02; bs[b + 6] = c11; bs[b + 7] = c12; bs[b + 8] = c22;
+    if (keepFiltered) {
+      const b = 9 * i, bs = sc.bs;
+      bs[b] = x0; bs[b + 1] = x1; bs[b + 2] = x2; bs[b + 3] = c00; bs[b + 4] = c01; bs[b + 5] = c02; bs[b + 6] = c11; bs[b + 7] = c12; bs[b + 8] = c22;
+    }
     if (hasZ) {
       const rz = sc.zr[i] - z0, svz = d00 + sc.zv[i], ivz = 1 / svz;
       chi2 += rz * rz * ivz;
@@ -69,8 +72,10 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
       const kz0 = d00 * ivz, kz1 = d01 * ivz;
       z0 += kz0 * rz; z1 += kz1 * rz;
       d11 -= kz1 * d01; d01 -= kz0 * d01; d00 -= kz0 * d00;
-      const bz = sc.bz, q = 5 * i;
-      bz[q] = z0; bz[q + 1] = z1; bz[q + 2] = d00; bz[q + 3] = d01; bz[q + 4] = d11;
+      if (keepFiltered) {
+        const bz = sc.bz, q = 5 * i;
+        bz[q] = z0; bz[q + 1] = z1; bz[q + 2] = d00; bz[q + 3] = d01; bz[q + 4] = d11;
+      }
     }
   }
   writeEnd(sc.firstB, sc.firstZ, x0, x1, x2, c00, c01, c02, c11, c12, c22, z0, z1, d00, d01, d11);
