@@ -51,6 +51,10 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
   const tanL = start[5];
   const secL = Math.sqrt(1 + tanL * tanL), cosL = 1 / secL;
   const cK = GEV_PER_TESLA_METRE * model.chargeAbs * Math.abs(set.fieldT) * secL; // |κ| = cK / p
+  // Settings and model numbers the arcs read, loaded once.
+  const energyLoss = set.energyLoss, multipleScattering = set.multipleScattering, gcm2PerM = model.gcm2PerM;
+  const rr = model.table.csdaRangeGcm2, tt = model.table.kineticEnergyMeV, ss = model.table.stoppingPowerMeVcm2g, iw = model.invCellWidth;
+  const straggling = energyLoss && model.stragglingMeV2PerM > 0, radiative = energyLoss && model.radiativeVariancePerX0 > 0;
   const cur = sc.cur, tmp = sc.tmp;
   const kap0 = start[3];
   const sgn = kap0 < 0 ? -1 : 1;
@@ -86,14 +90,14 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
         if (it > 0 && Math.abs(along) < APPROACH_TOLERANCE_M) break;
         const kap = cur[3], across = -ex * s + ey * c;
         const d = arcToClosest(kap, along, across);
-        if (set.energyLoss && d > 0 && d * secL * model.gcm2PerM >= cur[4]) return i;
+        if (energyLoss && d > 0 && d * secL * gcm2PerM >= cur[4]) return i;
         let remaining = d;
         while (remaining !== 0) {
           const kap = Math.abs(cur[3]);
           let ds = remaining;
           if (Math.abs(ds) * kap > MAX_TURN_RAD) ds = Math.sign(ds) * (MAX_TURN_RAD / kap);
-          if (set.energyLoss && ds > 0 && Number.isFinite(cur[4]) && ds * model.gcm2PerM > MAX_RANGE_FRACTION * cur[4] * cosL) {
-            const rangeLimit = (MAX_RANGE_FRACTION * cur[4] * cosL) / model.gcm2PerM;
+          if (energyLoss && ds > 0 && Number.isFinite(cur[4]) && ds * gcm2PerM > MAX_RANGE_FRACTION * cur[4] * cosL) {
+            const rangeLimit = (MAX_RANGE_FRACTION * cur[4] * cosL) / gcm2PerM;
             if (ds > rangeLimit && remaining > rangeLimit * 1.0001) ds = rangeLimit;
           }
           {
@@ -106,15 +110,14 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
             const kapS = cur[3], pS = cur[7];
             let kapE = kapS, pE = pS, g = 1, invPBeta = 0;
             const m = model.massMeV;
-            if (set.energyLoss && Number.isFinite(cur[4])) {
-              const rE = cur[4] - l * model.gcm2PerM;
+            if (energyLoss && Number.isFinite(cur[4])) {
+              const rE = cur[4] - l * gcm2PerM;
               // The cell of the last table lookup (hint tmp[2]) mostly still holds rE: the cubic
               // Hermite of `kineticAndStoppingAtRange` there, else the full lookup.
-              const rr = model.table.csdaRangeGcm2, lo = tmp[2] | 0;
+              const lo = tmp[2] | 0;
               let tE: number, sE: number;
               if (lo >= 0 && lo < rr.length - 2 && rr[lo] <= rE && rE < rr[lo + 1]) {
-                const tt = model.table.kineticEnergyMeV, ss = model.table.stoppingPowerMeVcm2g;
-                const h = rr[lo + 1] - rr[lo], ih = model.invCellWidth[lo], u = (rE - rr[lo]) * ih, u2 = u * u, u3 = u2 * u;
+                const h = rr[lo + 1] - rr[lo], ih = iw[lo], u = (rE - rr[lo]) * ih, u2 = u * u, u3 = u2 * u;
                 const y0 = tt[lo], y1 = tt[lo + 1], d0 = ss[lo], d1 = ss[lo + 1];
                 tE = (2 * u3 - 3 * u2 + 1) * y0 + (u3 - 2 * u2 + u) * h * d0 + (-2 * u3 + 3 * u2) * y1 + (u3 - u2) * h * d1;
                 sE = ((6 * u2 - 6 * u) * y0 + (-6 * u2 + 6 * u) * y1) * ih + (3 * u2 - 4 * u + 1) * d0 + (3 * u2 - 2 * u) * d1;
@@ -192,7 +195,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
               z11 = Qz[oz + 2];
             }
             const al = Math.abs(l);
-            if (set.multipleScattering && al > 0) {
+            if (multipleScattering && al > 0) {
               // Highland θ₀² increment over this step after the path before it, in the stepwise form
               // of the chamber medium (`chamberMedium(...).forSpecies(...).theta0Rad`; PDG RPP "Passage
               // of particles through matter"): θ₀²(t) = (0.0136 z/(βp))²·t·[1 + 0.038 (ln t̃ + ln z² − ln β²)]²,
@@ -227,12 +230,12 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
               n00 += t2l * al * (1 / 3); n01 += 0.5 * t2l * secL; n11 += t2 * sec2;
               z00 += t2l * al * sec2 * (1 / 3); z01 += 0.5 * t2l * sec2 * secL; z11 += t2 * sec2 * sec2;
             }
-            if (set.energyLoss && model.stragglingMeV2PerM > 0 && Number.isFinite(cur[4])) {
+            if (straggling && Number.isFinite(cur[4])) {
               const dk = kapE * invPBeta; // κ/(pβ), p [MeV/c]
               n22 += dk * dk * model.stragglingMeV2PerM * al;
             }
             // e±: bremsstrahlung straggling, var(δκ/κ) = var(δp/p) = 0.415 per radiation length.
-            if (set.energyLoss && model.radiativeVariancePerX0 > 0) n22 += kapE * kapE * model.radiativeVariancePerX0 * al * model.radiationLengthsPerM;
+            if (radiative) n22 += kapE * kapE * model.radiativeVariancePerX0 * al * model.radiationLengthsPerM;
             Q[o] = n00; Q[o + 1] = n01; Q[o + 2] = n02; Q[o + 3] = n01; Q[o + 4] = n11; Q[o + 5] = n12; Q[o + 6] = n02; Q[o + 7] = n12; Q[o + 8] = n22;
             Qz[oz] = z00; Qz[oz + 1] = z01; Qz[oz + 2] = z11;
             if (!Number.isFinite(cur[0] + cur[1] + cur[2] + cur[3])) return REFERENCE_DIVERGED;
