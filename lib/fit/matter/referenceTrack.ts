@@ -207,12 +207,12 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
               const pM = 0.5 * (pS + pE);
               const pM2 = pM * pM, e2 = pM2 + model.massGeVSq, beta2 = pM2 / e2;
               // ln β² from the last step's (cur[14] at β² = cur[15]) plus the log of their ratio
-            // r = 1 + x by its series where |x| < 1e-3 (to x⁵: error below 2e-16), else Math.log: a
-            // track's β changes little from one step to the next, so this saves a logarithm per step.
-            const xb = cur[15] > 0 ? beta2 / cur[15] - 1 : Infinity;
-            const lnBeta2 = Math.abs(xb) < 1e-3 ? cur[14] + xb * (1 - xb * (1 / 2 - xb * (1 / 3 - xb * (1 / 4 - xb * (1 / 5))))) : Math.log(beta2);
-            cur[14] = lnBeta2; cur[15] = beta2;
-            const lnZB = model.lnChargeSq - lnBeta2;
+              // r = 1 + x by its series where |x| < 1e-3 (to x⁵: error below 2e-16), else Math.log: a
+              // track's β changes little from one step to the next, so this saves a logarithm per step.
+              const xb = cur[15] > 0 ? beta2 / cur[15] - 1 : Infinity;
+              const lnBeta2 = Math.abs(xb) < 1e-3 ? cur[14] + xb * (1 - xb * (1 / 2 - xb * (1 / 3 - xb * (1 / 4 - xb * (1 / 5))))) : Math.log(beta2);
+              cur[14] = lnBeta2; cur[15] = beta2;
+              const lnZB = model.lnChargeSq - lnBeta2;
               const perX0 = model.radiationLengthsPerM;
               const tB = before * perX0, tA = cur[9] * perX0;
               // term(t) = t·[1 + 0.038 (ln t̃ + lnZB)]² after and before the step, written out here
