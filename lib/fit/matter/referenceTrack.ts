@@ -55,7 +55,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
   const energyLoss = set.energyLoss, multipleScattering = set.multipleScattering, gcm2PerM = model.gcm2PerM;
   const rr = model.table.csdaRangeGcm2, tt = model.table.kineticEnergyMeV, ss = model.table.stoppingPowerMeVcm2g, iw = model.invCellWidth;
   const straggling = energyLoss && model.stragglingMeV2PerM > 0, radiative = energyLoss && model.radiativeVariancePerX0 > 0;
-  const cur = sc.cur, tmp = sc.tmp;
+  const cur = sc.cur, tmp = sc.tmp, F = sc.F, Q = sc.Q, Qz = sc.Qz;
   const kap0 = start[3];
   const sgn = kap0 < 0 ? -1 : 1;
   cur[0] = start[0]; cur[1] = start[1]; cur[2] = start[2]; cur[3] = kap0;
@@ -104,7 +104,7 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
             // One arc of transverse length ds [m] (negative: backwards) from the current state
             // (cur: x, y, φ, κ, residual range, T, S, p, z, path, cos φ, sin φ, ln x̃/X₀ at path
             // cur[13], ln β² at β² = cur[15], 1/β); the hit step's Jacobian and noise accumulate at
-            // sc.F/sc.Q[o..o+8], sc.Qz[oz..oz+2] (`fresh`: its first arc, the accumulators still 1
+            // F/Q[o..o+8], Qz[oz..oz+2] (`fresh`: its first arc, the accumulators still 1
             // and 0). Written out here rather than called, so that the engine keeps it in one frame.
             const l = ds * secL;
             const kapS = cur[3], pS = cur[7];
@@ -168,7 +168,6 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
             const gm = 0.5 * (1 + g);
             const f00 = ca, f01 = sOverK, f02 = oneMinusCOverK2 * gm;
             const f10 = -kapM * sa, f11 = ca, f12 = sOverK * gm;
-            const F = sc.F, Q = sc.Q, Qz = sc.Qz;
             let n00 = 0, n01 = 0, n11 = 0, n02 = 0, n12 = 0, n22 = 0, z00 = 0, z01 = 0, z11 = 0;
             if (fresh) {
               F[o] = f00; F[o + 1] = f01; F[o + 2] = f02; F[o + 3] = f10; F[o + 4] = f11; F[o + 5] = f12; F[o + 6] = 0; F[o + 7] = 0; F[o + 8] = g;
@@ -246,7 +245,6 @@ export function buildReference(model: LossModel, hits: MatterTrackHits, start: F
         }
       }
       if (fresh) {
-        const F = sc.F, Q = sc.Q, Qz = sc.Qz;
         F[o] = 1; F[o + 1] = 0; F[o + 2] = 0; F[o + 3] = 0; F[o + 4] = 1; F[o + 5] = 0; F[o + 6] = 0; F[o + 7] = 0; F[o + 8] = 1;
         for (let k = 0; k < 9; k++) Q[o + k] = 0;
         Qz[oz] = 0; Qz[oz + 1] = 0; Qz[oz + 2] = 0;
