@@ -8,7 +8,8 @@ import type { MatterFitScratch } from './matterFitScratch.js';
  * z measured. Both start from a wide prior centred on the reference (`prior`: variances of u,
  * ψ, δκ, z, tan λ), so at convergence (deviations → 0) the prior pulls nowhere.
  * - `backwardPass` runs from the last hit to the first: its filtered state at the first hit uses
- *   every hit (it equals the smoothed state there), and it keeps the filtered state at each hit.
+ *   every hit (it equals the smoothed state there), and (with `keepFiltered`) it keeps the
+ *   filtered state at each hit for the smoothed residuals.
  * - `forwardPass` runs from the first hit to the last (the smoothed state at the last hit) and
  *   (with `residuals`), combining at each hit its prediction with the backward pass's filtered state (two-filter
  *   smoother, equivalent to Rauch–Tung–Striebel; Fraser & Potter, IEEE TAC 14 (1969) 387), gives
@@ -17,15 +18,16 @@ import type { MatterFitScratch } from './matterFitScratch.js';
  * backward pass with `withLogDet` also leaves Σ ln(variance of each predicted residual) in sc.tmp[14], so that
  * χ² + that sum is −2 ln L up to a constant when the noise itself depends on the state.
  */
-export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, withLogDet = false): number {
+export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, keepFiltered: boolean, withLogDet = false): number {
   let x0 = 0, x1 = 0, x2 = 0;
   let c00 = prior[0], c01 = 0, c02 = 0, c11 = prior[1], c12 = 0, c22 = prior[2];
   let z0 = 0, z1 = 0, d00 = prior[3], d01 = 0, d11 = prior[4];
   let chi2 = 0, lnDet = 0;
+  const F = sc.F, Q = sc.Q, Qz = sc.Qz, ds = sc.ds, mr = sc.mr, mv = sc.mv, zr = sc.zr, zv = sc.zv, bs = sc.bs, bz = sc.bz;
   for (let i = n - 1; i >= 0; i--) {
     if (i < n - 1) {
       // Back through step i+1: x_i = F⁻¹ (x_{i+1} − w), C_i = F⁻¹ (C + Q) F⁻ᵀ.
-      const o = 9 * (i + 1), F = sc.F, Q = sc.Q;
+      const o = 9 * (i + 1);
       c00 += Q[o]; c01 += Q[o + 1]; c02 += Q[o + 2]; c11 += Q[o + 4]; c12 += Q[o + 5]; c22 += Q[o + 8];
       const a00 = F[o], a01 = F[o + 1], b0 = F[o + 2], a10 = F[o + 3], a11 = F[o + 4], b1 = F[o + 5], g = F[o + 8];
       const det = a00 * a11 - a01 * a10;
@@ -46,31 +48,35 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
       c12 = m12 * ig;
       c22 = m22 * ig;
       if (hasZ) {
-        const qz = 3 * (i + 1), ds = sc.ds[i + 1];
-        d00 += sc.Qz[qz]; d01 += sc.Qz[qz + 1]; d11 += sc.Qz[qz + 2];
-        z0 -= ds * z1;
-        const e00 = d00 - 2 * ds * d01 + ds * ds * d11, e01 = d01 - ds * d11;
+        const qz = 3 * (i + 1), dsi = ds[i + 1];
+        d00 += Qz[qz]; d01 += Qz[qz + 1]; d11 += Qz[qz + 2];
+        z0 -= dsi * z1;
+        const e00 = d00 - 2 * dsi * d01 + dsi * dsi * d11, e01 = d01 - dsi * d11;
         d00 = e00; d01 = e01;
       }
     }
     // Update with hit i.
-    const r = sc.mr[i] - x0, sv = c00 + sc.mv[i], iv = 1 / sv;
+    const r = mr[i] - x0, sv = c00 + mv[i], iv = 1 / sv;
     chi2 += r * r * iv;
     if (withLogDet) lnDet += Math.log(sv);
     const k0 = c00 * iv, k1 = c01 * iv, k2 = c02 * iv;
     x0 += k0 * r; x1 += k1 * r; x2 += k2 * r;
     c22 -= k2 * c02; c12 -= k1 * c02; c11 -= k1 * c01; c02 -= k0 * c02; c01 -= k0 * c01; c00 -= k0 * c00;
-    const b = 9 * i, bs = sc.bs;
-    bs[b] = x0; bs[b + 1] = x1; bs[b + 2] = x2; bs[b + 3] = c00; bs[b + 4] = c01; bs[b + 5] = c02; bs[b + 6] = c11; bs[b + 7] = c12; bs[b + 8] = c22;
+    if (keepFiltered) {
+      const b = 9 * i;
+      bs[b] = x0; bs[b + 1] = x1; bs[b + 2] = x2; bs[b + 3] = c00; bs[b + 4] = c01; bs[b + 5] = c02; bs[b + 6] = c11; bs[b + 7] = c12; bs[b + 8] = c22;
+    }
     if (hasZ) {
-      const rz = sc.zr[i] - z0, svz = d00 + sc.zv[i], ivz = 1 / svz;
+      const rz = zr[i] - z0, svz = d00 + zv[i], ivz = 1 / svz;
       chi2 += rz * rz * ivz;
       if (withLogDet) lnDet += Math.log(svz);
       const kz0 = d00 * ivz, kz1 = d01 * ivz;
       z0 += kz0 * rz; z1 += kz1 * rz;
       d11 -= kz1 * d01; d01 -= kz0 * d01; d00 -= kz0 * d00;
-      const bz = sc.bz, q = 5 * i;
-      bz[q] = z0; bz[q + 1] = z1; bz[q + 2] = d00; bz[q + 3] = d01; bz[q + 4] = d11;
+      if (keepFiltered) {
+        const q = 5 * i;
+        bz[q] = z0; bz[q + 1] = z1; bz[q + 2] = d00; bz[q + 3] = d01; bz[q + 4] = d11;
+      }
     }
   }
   writeEnd(sc.firstB, sc.firstZ, x0, x1, x2, c00, c01, c02, c11, c12, c22, z0, z1, d00, d01, d11);
@@ -83,9 +89,10 @@ export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prio
   let c00 = prior[0], c01 = 0, c02 = 0, c11 = prior[1], c12 = 0, c22 = prior[2];
   let z0 = 0, z1 = 0, d00 = prior[3], d01 = 0, d11 = prior[4];
   let chi2 = 0;
+  const F = sc.F, Q = sc.Q, Qz = sc.Qz, ds = sc.ds, mr = sc.mr, mv = sc.mv, zr = sc.zr, zv = sc.zv, bs = sc.bs, bz = sc.bz;
   for (let i = 0; i < n; i++) {
     if (i > 0) {
-      const o = 9 * i, F = sc.F, Q = sc.Q;
+      const o = 9 * i;
       const a00 = F[o], a01 = F[o + 1], a02 = F[o + 2], a10 = F[o + 3], a11 = F[o + 4], a12 = F[o + 5], g = F[o + 8];
       const y0 = a00 * x0 + a01 * x1 + a02 * x2, y1 = a10 * x0 + a11 * x1 + a12 * x2;
       x0 = y0; x1 = y1; x2 = g * x2;
@@ -99,39 +106,39 @@ export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prio
       c12 = m12 * g + Q[o + 5];
       c22 = m22 * g + Q[o + 8];
       if (hasZ) {
-        const ds = sc.ds[i], qz = 3 * i;
-        z0 += ds * z1;
-        d00 = d00 + 2 * ds * d01 + ds * ds * d11 + sc.Qz[qz];
-        d01 = d01 + ds * d11 + sc.Qz[qz + 1];
-        d11 = d11 + sc.Qz[qz + 2];
+        const dsi = ds[i], qz = 3 * i;
+        z0 += dsi * z1;
+        d00 = d00 + 2 * dsi * d01 + dsi * dsi * d11 + Qz[qz];
+        d01 = d01 + dsi * d11 + Qz[qz + 1];
+        d11 = d11 + Qz[qz + 2];
       }
     }
     if (residuals) {
       // Smoothed residual: prediction (without hit i) combined with the backward filtered state (with it).
-      const b = 9 * i, bs = sc.bs;
+      const b = 9 * i;
       const e0 = bs[b] - x0, e1 = bs[b + 1] - x1, e2 = bs[b + 2] - x2;
       const s00 = c00 + bs[b + 3], s01 = c01 + bs[b + 4], s02 = c02 + bs[b + 5], s11 = c11 + bs[b + 6], s12 = c12 + bs[b + 7], s22 = c22 + bs[b + 8];
       const w00 = s11 * s22 - s12 * s12, w01 = s02 * s12 - s01 * s22, w02 = s01 * s12 - s02 * s11;
       const det = s00 * w00 + s01 * w01 + s02 * w02;
       const w11 = s00 * s22 - s02 * s02, w12 = s01 * s02 - s00 * s12, w22 = s00 * s11 - s01 * s01;
       const v0 = (w00 * e0 + w01 * e1 + w02 * e2) / det, v1 = (w01 * e0 + w11 * e1 + w12 * e2) / det, v2 = (w02 * e0 + w12 * e1 + w22 * e2) / det;
-      sc.residual[i] = sc.mr[i] - (x0 + c00 * v0 + c01 * v1 + c02 * v2);
+      sc.residual[i] = mr[i] - (x0 + c00 * v0 + c01 * v1 + c02 * v2);
     }
-    const r = sc.mr[i] - x0, sv = c00 + sc.mv[i];
+    const r = mr[i] - x0, sv = c00 + mv[i];
     chi2 += (r * r) / sv;
     const k0 = c00 / sv, k1 = c01 / sv, k2 = c02 / sv;
     x0 += k0 * r; x1 += k1 * r; x2 += k2 * r;
     c22 -= k2 * c02; c12 -= k1 * c02; c11 -= k1 * c01; c02 -= k0 * c02; c01 -= k0 * c01; c00 -= k0 * c00;
     if (hasZ) {
       if (residuals) {
-        const bz = sc.bz, q = 5 * i;
+        const q = 5 * i;
         const f0 = bz[q] - z0, f1 = bz[q + 1] - z1;
         const t00 = d00 + bz[q + 2], t01 = d01 + bz[q + 3], t11 = d11 + bz[q + 4];
         const dt = t00 * t11 - t01 * t01;
         const u0 = (t11 * f0 - t01 * f1) / dt, u1 = (t00 * f1 - t01 * f0) / dt;
-        sc.residualZ[i] = sc.zr[i] - (z0 + d00 * u0 + d01 * u1);
+        sc.residualZ[i] = zr[i] - (z0 + d00 * u0 + d01 * u1);
       }
-      const rz = sc.zr[i] - z0, svz = d00 + sc.zv[i];
+      const rz = zr[i] - z0, svz = d00 + zv[i];
       chi2 += (rz * rz) / svz;
       const kz0 = d00 / svz, kz1 = d01 / svz;
       z0 += kz0 * rz; z1 += kz1 * rz;

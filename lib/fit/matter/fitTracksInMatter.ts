@@ -78,10 +78,11 @@ export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Ar
   const hit = { n: 0, last: false, tanLambda: 0, hasZ: hits.z !== undefined };
   for (let k = 0; k < count; k++) {
     const a = offsets[k], b = offsets[k + 1], n = b - a;
-    const h: MatterTrackHits = {
-      x: hits.x.subarray(a, b), y: hits.y.subarray(a, b), z: hits.z?.subarray(a, b),
-      sigmaX: hits.sigmaX?.subarray(a, b), sigmaY: hits.sigmaY?.subarray(a, b), sigmaZ: hits.sigmaZ?.subarray(a, b),
-    };
+    // One view per distinct column (a table often shares one error column for x, y and z).
+    const sigmaX = hits.sigmaX?.subarray(a, b);
+    const sigmaY = hits.sigmaY === hits.sigmaX ? sigmaX : hits.sigmaY?.subarray(a, b);
+    const sigmaZ = hits.sigmaZ === hits.sigmaX ? sigmaX : hits.sigmaZ === hits.sigmaY ? sigmaY : hits.sigmaZ?.subarray(a, b);
+    const h: MatterTrackHits = { x: hits.x.subarray(a, b), y: hits.y.subarray(a, b), z: hits.z?.subarray(a, b), sigmaX, sigmaY, sigmaZ };
     const status = fitOne(h, n, k);
     out.status[k] = MATTER_FIT_STATUS.indexOf(status);
     counts[status]++;

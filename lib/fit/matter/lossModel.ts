@@ -1,7 +1,7 @@
 import { cachedRange, cachedRangeAt, type CachedRange } from '../../matter/rangeIntegral.js';
 import { chamberMedium } from '../../matter/chamberMedium.js';
 import { bohrVarianceMeV2 } from '../../matter/bohrStraggling.js';
-import { HIGHLAND_MAX_X_OVER_X0, HIGHLAND_MIN_X_OVER_X0, radiationLengthM } from '../../matter/highland.js';
+import { radiationLengthM } from '../../matter/highland.js';
 import type { Material } from '../../matter/materials.js';
 import type { Particle } from '../../particles.js';
 import { ELECTRON_MASS_MEV } from '../../constants.js';
@@ -15,6 +15,8 @@ import { ELECTRON_MASS_MEV } from '../../constants.js';
  */
 export interface LossModel {
   readonly table: CachedRange;
+  /** 1/(R[i+1] − R[i]) [cm²/g] of each cell of the table's ranges (the Hermite's divisions, done once). */
+  readonly invCellWidth: Float64Array;
   /** g/cm² per metre of the material (ρ·100). */
   readonly gcm2PerM: number;
   readonly massMeV: number;
@@ -22,7 +24,7 @@ export interface LossModel {
   readonly chargeAbs: number;
   /** θ₀ [rad] for a step (same signature as the medium's). */
   readonly theta0Rad: (momentumGeV: number, beta: number, stepM: number, pathBeforeM: number) => number;
-  /** 1/X₀ [1/m] of the material, (0.0136 z)² [GeV²], ln z² (for `highlandPathTerm`), m² [GeV²]. */
+  /** 1/X₀ [1/m] of the material, (0.0136 z)² [GeV²], ln z² (for the stepwise Highland term of `buildReference`), m² [GeV²]. */
   readonly radiationLengthsPerM: number;
   readonly highlandScaleSq: number;
   readonly lnChargeSq: number;
@@ -55,8 +57,12 @@ export function lossModel(material: Material, particle: Particle): LossModel {
   if (m) return m;
   const loss = chamberMedium(material).forSpecies(particle);
   const gcm2PerM = material.densityGcm3 * 100;
+  const table = cachedRange(particle, material), r = table.csdaRangeGcm2;
+  const invCellWidth = new Float64Array(Math.max(0, r.length - 1));
+  for (let i = 0; i < invCellWidth.length; i++) invCellWidth[i] = 1 / (r[i + 1] - r[i]);
   m = Object.freeze({
-    table: cachedRange(particle, material),
+    table,
+    invCellWidth,
     gcm2PerM,
     massMeV: particle.massMeV,
     chargeAbs: Math.abs(particle.charge),
@@ -111,29 +117,9 @@ export function kineticAndStoppingAtRange(m: LossModel, rangeGcm2: number, out: 
   }
   out[2] = lo;
   const h = r[hi] - r[lo];
-  const u = (rangeGcm2 - r[lo]) / h;
+  const ih = m.invCellWidth[lo], u = (rangeGcm2 - r[lo]) * ih;
   const u2 = u * u, u3 = u2 * u;
   const y0 = t[lo], y1 = t[hi], d0 = s[lo], d1 = s[hi];
   out[0] = (2 * u3 - 3 * u2 + 1) * y0 + (u3 - 2 * u2 + u) * h * d0 + (-2 * u3 + 3 * u2) * y1 + (u3 - u2) * h * d1;
-  out[1] = ((6 * u2 - 6 * u) * y0 + (-6 * u2 + 6 * u) * y1) / h + (3 * u2 - 4 * u + 1) * d0 + (3 * u2 - 2 * u) * d1;
-}
-
-/** ln of x/X₀ clamped to where Highland is quoted (1e-3…100), the log the stepwise θ₀² needs. */
-export function highlandLogThickness(thicknessOverX0: number): number {
-  return Math.log(Math.min(Math.max(thicknessOverX0, HIGHLAND_MIN_X_OVER_X0), HIGHLAND_MAX_X_OVER_X0));
-}
-
-/**
- * The path part of Highland's θ₀² in the stepwise form the chamber medium uses
- * (`chamberMedium(...).forSpecies(...).theta0Rad`, PDG RPP "Passage of particles through matter"):
- * θ₀²(t) = (0.0136 z/(βp))² · t · [1 + 0.038 (ln t̃ + ln z² − ln β²)]², t = x/X₀, t̃ = t clamped to
- * 1e-3…100 (θ₀² continued linearly in t outside, as the medium does). Returns the bracketed
- * part times t, given ln t̃ (`highlandLogThickness`) and ln z² − ln β²; the step increment is
- * (0.0136 z/(βp))² · (term(t_after) − term(t_before)). The same formula as `highlandTheta0`,
- * arranged so that a track's steps need one new logarithm each (the log of the path before a
- * step is the one after the previous step). Validity: that of Highland (11 %, 1e-3 < x/X₀ < 100).
- */
-export function highlandPathTerm(thicknessOverX0: number, logClampedThickness: number, logChargeOverBetaSq: number): number {
-  const f = 1 + 0.038 * (logClampedThickness + logChargeOverBetaSq);
-  return thicknessOverX0 * f * f;
+  out[1] = ((6 * u2 - 6 * u) * y0 + (-6 * u2 + 6 * u) * y1) * ih + (3 * u2 - 4 * u + 1) * d0 + (3 * u2 - 2 * u) * d1;
 }

@@ -103,7 +103,7 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
       continue;
     }
     if (!haveGood) setPrior(prior, start);
-    chi2 = backwardPass(sc, n, hasZ, prior);
+    chi2 = backwardPass(sc, n, hasZ, prior, withResiduals);
     if (haveGood && chi2 > goodChi2 + Math.max(2, 0.02 * goodChi2) && halvings < MAX_HALVINGS) {
       // The move made the fit worse (it overshot into the steep end of the range): halve it.
       halvings++; lambda *= 0.5; lastBuildGood = false;
@@ -133,7 +133,7 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     if (!atReachLimit && !(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
     if (!lastBuildGood) {
       if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
-      chi2 = backwardPass(sc, n, hasZ, prior);
+      chi2 = backwardPass(sc, n, hasZ, prior, withResiduals);
     }
     // Report the reachable state itself, not the move beyond it.
     sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0;
@@ -156,7 +156,7 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     if (Number.isFinite(sigmaR) && sigmaR > sigmaLin) extraRangeVariance = sigmaR * sigmaR - sigmaLin * sigmaLin;
     // The scan overwrote the scratch: rebuild the fitted reference.
     if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
-    chi2 = backwardPass(sc, n, hasZ, prior);
+    chi2 = backwardPass(sc, n, hasZ, prior, withResiduals);
     if (!converged) { sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0; }
   }
   forwardPass(sc, n, hasZ, prior, withResiduals);

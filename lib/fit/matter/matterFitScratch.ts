@@ -34,7 +34,7 @@ export function matterFitScratch(capacity: number): MatterFitScratch {
     x: f(1), y: f(1), phi: f(1), kappa: f(1), z: f(1), range: f(1), p: f(1), ds: f(1), path: f(1),
     F: f(9), Q: f(9), Qz: f(3), mr: f(1), mv: f(1), zr: f(1), zv: f(1), bs: f(9), bz: f(5),
     residual: f(1), residualZ: f(1),
-    cur: new Float64Array(16), tmp: new Float64Array(16),
+    cur: new Float64Array(17), tmp: new Float64Array(16),
     start: new Float64Array(6), good: new Float64Array(6), delta: new Float64Array(6), est: new Float64Array(6), prior: new Float64Array(5),
     firstB: new Float64Array(12), firstZ: new Float64Array(6), lastB: new Float64Array(12), lastZ: new Float64Array(6),
   };

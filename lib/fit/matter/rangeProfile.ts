@@ -48,7 +48,7 @@ export function rangeProfileSigma(model: LossModel, hits: MatterTrackHits, set: 
     const p = Math.sqrt(sc.tmp[0] * (sc.tmp[0] + 2 * m)) / 1000;
     trial[3] = (sign * cK) / p;
     if (buildReference(model, hits, trial, set, sc) !== REFERENCE_OK) return NaN;
-    const chi2 = backwardPass(sc, n, hasZ, prior, true);
+    const chi2 = backwardPass(sc, n, hasZ, prior, false, true);
     return chi2 + sc.tmp[14] + (sc.firstB[2] * sc.firstB[2]) / sc.firstB[11];
   };
   const base = profile(r0);
