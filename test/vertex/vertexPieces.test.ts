@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import type { Medium, SpeciesLoss } from '../../lib/matter/index.js';
-import { PION_MINUS, PION_PLUS, PROTON, type Particle } from '../../lib/particles.js';
+import { chamberMedium, type Medium, type SpeciesLoss } from '../../lib/matter/index.js';
+import { ALPHA, PION_MINUS, PION_PLUS, PROTON, type Particle } from '../../lib/particles.js';
 import {
   arcLengthNear, armenteros, boostFourVector, closestApproach, decayWindowInBox, energyLossFactor, fitLifetime, fitMassPeak,
   fitTwoTrackVertex, fourMomentum, helixCentre, helixPoint, helixPointJacobian, invariantMassMeV, invariantMassWithError,
-  newHelixParameters, sumFourVectors, trackStateAt, twoBodyMomentumMeV, type HelixParameters,
+  newHelixParameters, newTrackState, sumFourVectors, trackStateAt, twoBodyMomentumMeV, type HelixParameters,
 } from '../../lib/vertex/index.js';
 import { sinc } from '../../lib/vertex/helixParameters.js';
 import { kineticFromMomentum, momentumFromKinetic } from '../../lib/matter/kinematics.js';
@@ -186,6 +186,16 @@ describe('helix geometry (circle identities and finite differences)', () => {
     }
   });
 
+  it('helixPointJacobian ∂x/∂κ just inside the series of sinc′ (κs/2 = 9e-4, φ0 + κs/2 = 0): (s²/2)·sinc′ with sinc′ to h⁵ (1e-12 relative)', () => {
+    const s = 0.6, kappa = 3e-3, h = (kappa * s) / 2;
+    const hx = helix({ kappa, phi0: -h });
+    const jac = new Float64Array(15);
+    helixPointJacobian(hx, s, jac);
+    // sinc′(h) = −h/3 + h³/30 − h⁵/840 + … (Taylor series of (h cos h − sin h)/h²).
+    const slope = -h / 3 + h ** 3 / 30 - h ** 5 / 840;
+    expect(Math.abs(jac[0] / ((s * s / 2) * slope) - 1)).toBeLessThan(1e-12);
+  });
+
   it('arcLengthNear returns s for points of the circle and for points moved radially off it (|κs| < π); for a straight track the projection', () => {
     const h = helix({ xRef: -0.2, yRef: 0.1, kappa: 2, phi0: 2.5, d0: -0.002, z0: 0, tanLambda: 0 });
     const [cx, cy] = helixCentre(h);
@@ -317,6 +327,8 @@ describe('trackStateAt and energyLossFactor (constant dE/dx medium: T changes by
     expect(energyLossFactor(p1, t1 / 20, pion, medium)).toBeNaN();
     expect(energyLossFactor(p1, t1 / 20 + 0.01, pion, medium)).toBeNaN();
     expect(energyLossFactor(p1, 0, pion, medium)).toBe(1);
+    // With tabulated ranges the round trip T → R → T is not exact, so no path must short-cut to exactly 1.
+    expect(energyLossFactor(p1, 0, pion, chamberMedium('liquid-hydrogen'))).toBe(1);
     const none: Medium = { ...medium, forSpecies: () => ({ ...medium.forSpecies(pion), rangeM: () => Infinity }) };
     expect(energyLossFactor(p1, -0.3, pion, none)).toBe(1);
   });
@@ -358,6 +370,15 @@ describe('trackStateAt and energyLossFactor (constant dE/dx medium: T changes by
         expect(Math.abs(st.covMeV2[3 * r + q] - v)).toBeLessThan(1e-6 * Math.sqrt(st.covMeV2[4 * r] * st.covMeV2[4 * q]));
       }
     }
+  });
+
+  it('a fresh state is ok with loss factor 1; an α (|z| = 2) has twice the p_T of a unit charge on the same helix', () => {
+    expect(newTrackState().status).toBe('ok');
+    expect(newTrackState().lossFactor).toBe(1);
+    const h = helix({ kappa: 2, phi0: 0, tanLambda: 0 });
+    const one = trackStateAt(h, 0, { fieldT: 1, species: pion }).pMeV[0];
+    expect(Math.abs(one - (1e3 * 0.299792458) / 2)).toBeLessThan(1e-9);
+    expect(Math.abs(trackStateAt(h, 0, { fieldT: 1, species: ALPHA }).pMeV[0] - 2 * one)).toBeLessThan(1e-9);
   });
 
   it('trackStateAt downstream beyond the range: status ranged-out, loss factor 0, momentum 0', () => {
