@@ -4,7 +4,7 @@ import { ALPHA, PION_MINUS, PION_PLUS, PROTON, type Particle } from '../../lib/p
 import {
   arcLengthNear, armenteros, boostFourVector, closestApproach, decayWindowInBox, energyLossFactor, fitLifetime, fitMassPeak,
   fitTwoTrackVertex, fourMomentum, helixCentre, helixPoint, helixPointJacobian, invariantMassMeV, invariantMassWithError,
-  newHelixParameters, newTrackState, sumFourVectors, trackStateAt, twoBodyMomentumMeV, type HelixParameters,
+  nearestArcLength, newClosestApproachScratch, newHelixParameters, newTrackState, refineClosestApproach, sumFourVectors, trackStateAt, twoBodyMomentumMeV, type HelixParameters,
 } from '../../lib/vertex/index.js';
 import { sinc } from '../../lib/vertex/helixParameters.js';
 import { kineticFromMomentum, momentumFromKinetic } from '../../lib/matter/kinematics.js';
@@ -269,6 +269,28 @@ describe('closestApproach in the cases the circles decide (flat helices: DCA = d
       expect(ca.status).toBe('ok');
       expect(Math.abs(ca.s1 - want)).toBeLessThan(1e-9);
     }
+  });
+});
+
+describe('nearestArcLength and the Newton refinement', () => {
+  it('a point 1 cm off a helix along its in-plane normal at s = 0.5 m is found at s = 0.5 (1e-9 m) from near and from 2 m away (steps capped at a quarter turn)', () => {
+    const hx = helix({ xRef: 0.1, yRef: 0.2, kappa: 1.5, phi0: 0.3, tanLambda: 0.4, z0: 0.01 });
+    const p = [0, 0, 0];
+    helixPoint(hx, 0.5, p);
+    const phi = 0.3 + 1.5 * 0.5;
+    const q = [p[0] - 0.01 * Math.sin(phi), p[1] + 0.01 * Math.cos(phi), p[2]];
+    for (const start of [0.3, 0.9, 2.5]) expect(Math.abs(nearestArcLength(hx, q[0], q[1], q[2], start, new Float64Array(3)) - 0.5)).toBeLessThan(1e-9);
+  });
+
+  it('refineClosestApproach with one iteration from a distant start is not converged; with the default count it is, at the crossing', () => {
+    const a = helix({ kappa: 2, phi0: 0.2 }), b = helix({ xRef: 0.05, yRef: -0.1, kappa: -1.2, phi0: 1.4 });
+    const out = { s1: NaN, s2: NaN, distanceM: NaN, status: 'ok' as const } as { s1: number; s2: number; distanceM: number; status: 'ok' | 'not-converged' | 'no-start' };
+    expect(refineClosestApproach(a, b, 0.3, 0.3, out, newClosestApproachScratch(), 1).status).toBe('not-converged');
+    const ref = closestApproach(a, b);
+    refineClosestApproach(a, b, ref.s1 + 0.02, ref.s2 - 0.02, out, newClosestApproachScratch());
+    expect(out.status).toBe('ok');
+    expect(Math.abs(out.s1 - ref.s1) + Math.abs(out.s2 - ref.s2)).toBeLessThan(1e-9);
+    expect(out.distanceM).toBeLessThan(1e-9);
   });
 });
 
