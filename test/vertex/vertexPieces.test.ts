@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { chamberMedium, type Medium, type SpeciesLoss } from '../../lib/matter/index.js';
 import { ALPHA, PION_MINUS, PION_PLUS, PROTON, type Particle } from '../../lib/particles.js';
 import {
-  arcLengthNear, armenteros, boostFourVector, closestApproach, decayWindowInBox, energyLossFactor, fitLifetime, fitMassPeak,
+  arcLengthNear, armenteros, boostFourVector, circleCrossings, closestApproach, decayWindowInBox, energyLossFactor, fitLifetime, fitMassPeak,
   fitTwoTrackVertex, fourMomentum, helixCentre, helixPoint, helixPointJacobian, invariantMassMeV, invariantMassWithError,
   nearestArcLength, newClosestApproachScratch, newHelixParameters, newTrackState, refineClosestApproach, sumFourVectors, trackStateAt, twoBodyMomentumMeV, type HelixParameters,
 } from '../../lib/vertex/index.js';
@@ -269,6 +269,89 @@ describe('closestApproach in the cases the circles decide (flat helices: DCA = d
       expect(ca.status).toBe('ok');
       expect(Math.abs(ca.s1 - want)).toBeLessThan(1e-9);
     }
+  });
+});
+
+describe('circleCrossings: the starting arc lengths themselves (points computed back with helixPoint)', () => {
+  const at = (h: HelixParameters, s: number) => { const p = [0, 0, 0]; helixPoint(h, s, p); return p; };
+  const centreOf = (h: HelixParameters) => helixCentre(h);
+  const dist = (p: number[], c: readonly number[]) => Math.hypot(p[0] - c[0], p[1] - c[1]);
+  // Tracks with d0 ≠ 0, so that the perigee offsets enter every branch.
+  const a = helix({ xRef: 0.02, yRef: -0.01, kappa: 2, phi0: 0.4, d0: 0.003 });
+
+  it('crossing circles: two starts, each the same x–y point on both circles, and the two points differ', () => {
+    const b = helix({ xRef: 0.3, yRef: 0.1, kappa: -1.5, phi0: 2.2, d0: -0.002 });
+    const out = new Float64Array(4);
+    expect(circleCrossings(a, b, out)).toBe(2);
+    const p0 = at(a, out[0]), q0 = at(b, out[1]), p1 = at(a, out[2]), q1 = at(b, out[3]);
+    expect(Math.hypot(p0[0] - q0[0], p0[1] - q0[1])).toBeLessThan(1e-12);
+    expect(Math.hypot(p1[0] - q1[0], p1[1] - q1[1])).toBeLessThan(1e-12);
+    expect(Math.hypot(p0[0] - p1[0], p0[1] - p1[1])).toBeGreaterThan(0.01);
+    for (const p of [p0, p1]) { expect(Math.abs(dist(p, centreOf(a)) - 0.5)).toBeLessThan(1e-12); expect(Math.abs(dist(p, centreOf(b)) - 1 / 1.5)).toBeLessThan(1e-12); }
+  });
+
+  it('circles apart or nested: one start, each point on the line of centres, nearest the other circle', () => {
+    const out = new Float64Array(4);
+    const [ax, ay] = centreOf(a);
+    // Apart: second circle of radius 0.25 with centre 1 m away along (0.6, 0.8).
+    const apart = helix({ xRef: ax + 0.6 + 0.25 * Math.sin(1), yRef: ay + 0.8 - 0.25 * Math.cos(1), kappa: 4, phi0: 1, d0: 0 });
+    expect(circleCrossings(a, apart, out)).toBe(1);
+    expect(Math.abs(dist(at(a, out[0]), centreOf(apart)) - 0.5)).toBeLessThan(1e-12); // 1 − r₁
+    expect(Math.abs(dist(at(apart, out[1]), [ax, ay]) - 0.75)).toBeLessThan(1e-12); // 1 − r₂
+    // Nested: radius 0.1 with centre 0.2 from a's (r₁ = 0.5 > r₂): a's point is r₁ − d = 0.3 from it, its point d + r₂ = 0.3 from a's centre.
+    for (const [first, second, big] of [[a, 0, 1], [0, a, 2]] as const) {
+      const small = helix({ xRef: ax + 0.2 * 0.6 + 0.1 * Math.sin(-2), yRef: ay + 0.2 * 0.8 - 0.1 * Math.cos(-2), kappa: 10, phi0: -2 });
+      const h1 = first === 0 ? small : first, h2 = second === 0 ? small : second;
+      expect(circleCrossings(h1, h2, out)).toBe(1);
+      const onBig = big === 1 ? at(h1, out[0]) : at(h2, out[1]), onSmall = big === 1 ? at(h2, out[1]) : at(h1, out[0]);
+      expect(Math.abs(dist(onBig, centreOf(small)) - 0.3)).toBeLessThan(1e-12);
+      expect(Math.abs(dist(onSmall, [ax, ay]) - 0.3)).toBeLessThan(1e-12);
+      // Both on the ray from a's centre through the small one's (same side).
+      const e = [0.6, 0.8];
+      expect(Math.abs((onBig[0] - ax) * e[1] - (onBig[1] - ay) * e[0])).toBeLessThan(1e-12);
+      expect((onBig[0] - ax) * e[0] + (onBig[1] - ay) * e[1]).toBeGreaterThan(0);
+    }
+    // The same circle twice (centres exactly equal): no direction to start along.
+    expect(circleCrossings(a, helix({ ...a }), out)).toBe(0);
+  });
+
+  it('a line and a circle, in either order: two starts on both where it cuts the circle; one, the foot of the perpendicular from the centre, where it misses', () => {
+    const out = new Float64Array(4);
+    const [cx, cy] = centreOf(a);
+    for (const offset of [0.3, 0.7]) {
+      // A line along φ = 0.3 whose perigee sits `offset` from a's centre (d0 = 0.004 m).
+      const u = [Math.cos(0.3), Math.sin(0.3)], nrm = [-u[1], u[0]];
+      const line = helix({ xRef: cx + offset * nrm[0] - 0.004 * Math.sin(0.3) - 0.2 * u[0], yRef: cy + offset * nrm[1] + 0.004 * Math.cos(0.3) - 0.2 * u[1], kappa: 0, phi0: 0.3, d0: 0.004 });
+      for (const lineFirst of [true, false]) {
+        const n = lineFirst ? circleCrossings(line, a, out) : circleCrossings(a, line, out);
+        const sl = (i: number) => out[2 * i + (lineFirst ? 0 : 1)], sc = (i: number) => out[2 * i + (lineFirst ? 1 : 0)];
+        if (offset < 0.5) {
+          expect(n).toBe(2);
+          for (const i of [0, 1]) {
+            const p = at(line, sl(i)), q = at(a, sc(i));
+            expect(Math.hypot(p[0] - q[0], p[1] - q[1])).toBeLessThan(1e-12);
+            expect(Math.abs(dist(p, [cx, cy]) - 0.5)).toBeLessThan(1e-12);
+          }
+          expect(Math.abs(sl(1) - sl(0) - 2 * Math.sqrt(0.25 - offset * offset))).toBeLessThan(1e-12);
+        } else {
+          expect(n).toBe(1);
+          const p = at(line, sl(0));
+          expect(Math.abs((p[0] - cx) * u[0] + (p[1] - cy) * u[1])).toBeLessThan(1e-12);
+          expect(Math.abs(dist(p, [cx, cy]) - offset)).toBeLessThan(1e-12);
+          const q = at(a, sc(0));
+          expect(Math.abs(dist(q, p) - (offset - 0.5))).toBeLessThan(1e-12);
+        }
+      }
+    }
+  });
+
+  it('two lines: one start at their intersection (d0 ≠ 0 on both); parallel lines none', () => {
+    const out = new Float64Array(4);
+    const l1 = helix({ xRef: 0.1, yRef: 0.2, kappa: 0, phi0: 0.3, d0: 0.005 }), l2 = helix({ xRef: -0.3, yRef: 0.5, kappa: 0, phi0: -1.1, d0: -0.002 });
+    expect(circleCrossings(l1, l2, out)).toBe(1);
+    const p = at(l1, out[0]), q = at(l2, out[1]);
+    expect(Math.hypot(p[0] - q[0], p[1] - q[1])).toBeLessThan(1e-12);
+    expect(circleCrossings(l1, helix({ xRef: 0.5, yRef: 0, kappa: 0, phi0: 0.3 + Math.PI }), out)).toBe(0);
   });
 });
 
