@@ -41,12 +41,33 @@ const stats = (a: number[]) => {
   return { n: a.length, mean, rms: Math.sqrt(a.reduce((s, x) => s + (x - mean) ** 2, 0) / a.length) };
 };
 
+/**
+ * Simulated and measured samples, made once per test-file run by the first test that needs them.
+ * The vertex room's own steps (vertexTracks, findV0s) run inside every test: code run at collection
+ * or in beforeAll cannot be mutated, and a memoised find would be seen by the first test only
+ * (test/mutation.md, "Static mutants").
+ */
+const samples = new Map<string, { sim: SimulationResult; measured: ReturnType<typeof measureTracks> }>();
+function sample(medium: Medium, seed: number) {
+  const key = `${medium.name}/${seed}`;
+  let s = samples.get(key);
+  if (!s) {
+    const sim = run(medium, seed);
+    s = { sim, measured: measureTracks(sim.hits, { fieldT: 1.5 }) };
+    samples.set(key, s);
+  }
+  return s;
+}
+function vacuumFound() {
+  const { sim, measured } = sample(VACUUM, 5);
+  const found = findV0s(vertexTracks(measured), { primaryM: ORIGIN });
+  return { found, rows: matched(sim, found) };
+}
+
 describe('findV0s on simulated K⁰_S and Λ decays (truth from the simulator; PDG 2022 masses)', () => {
-  const vacuum = run(VACUUM, 5);
-  const found = findV0s(vertexTracks(measureTracks(vacuum.hits, { fieldT: 1.5 })), { primaryM: ORIGIN });
-  const rows = matched(vacuum, found);
 
   it('finds a candidate for most decays beyond the 2 cm flight cut, one per event, and counts the pairs it tried', () => {
+    const { found, rows } = vacuumFound();
     expect(found.pairsTried).toBeGreaterThan(550);
     expect(rows.length).toBeGreaterThan(350);
     expect(found.candidates.count).toBe(rows.length);
@@ -55,6 +76,7 @@ describe('findV0s on simulated K⁰_S and Λ decays (truth from the simulator; P
   });
 
   it('vertex pulls (fit − truth)/σ in x, y, z have mean 0 ± 0.15 and rms 1 ± 0.15 (exact helices: the fit errors are the whole error)', () => {
+    const { found, rows } = vacuumFound();
     const c = found.candidates;
     const pulls = [0, 1, 2].map((axis) => stats(rows.map(([i, ...v]) => ((axis === 0 ? c.xM : axis === 1 ? c.yM : c.zM)[i] - v[axis]) / Math.sqrt(c.cov[6 * i + [0, 3, 5][axis]]))));
     for (const p of pulls) {
@@ -65,6 +87,7 @@ describe('findV0s on simulated K⁰_S and Λ decays (truth from the simulator; P
   });
 
   it('mass pulls (m − m_PDG)/σ_m under ππ for K⁰_S and pπ⁻ for Λ: mean 0 ± 0.2, rms 1 ± 0.15', () => {
+    const { found, rows } = vacuumFound();
     const c = found.candidates;
     const k = stats(rows.filter((r) => r[4] === 0).map(([i]) => (c.massPiPiMeV[i] - KAON_SHORT.massMeV) / c.sigmaMassPiPiMeV[i]));
     const l = stats(rows.filter((r) => r[4] === 1).map(([i]) => (c.massPPiMeV[i] - LAMBDA.massMeV) / c.sigmaMassPPiMeV[i]));
@@ -76,6 +99,7 @@ describe('findV0s on simulated K⁰_S and Λ decays (truth from the simulator; P
   });
 
   it('Armenteros: Λ candidates have α > 0.35 (α₀ − 2p*/βM at 0.9 GeV/c is 0.40) and q_T ≤ 101 MeV/c; K⁰_S have |α| ≤ 1 and q_T ≤ 206 MeV/c (+3 MeV/c, about 3 σ of the measurement)', () => {
+    const { found, rows } = vacuumFound();
     const c = found.candidates;
     let checked = 0;
     for (const [i, , , , isLambda] of rows) {
@@ -89,9 +113,7 @@ describe('findV0s on simulated K⁰_S and Λ decays (truth from the simulator; P
 
 describe('findV0s in liquid hydrogen: the energy lost between vertex and first hits', () => {
   const lh2 = chamberMedium('liquid-hydrogen');
-  const sim = run(lh2, 6);
-  const tracks = vertexTracks(measureTracks(sim.hits, { fieldT: 1.5 }));
-  const peak = (found: V0FinderResult) => {
+  const peak = (sim: SimulationResult, found: V0FinderResult) => {
     const rows = matched(sim, found);
     const c = found.candidates;
     return {
@@ -100,8 +122,10 @@ describe('findV0s in liquid hydrogen: the energy lost between vertex and first h
     };
   };
   it('without the correction the K⁰_S peak sits > 5 MeV and the Λ peak > 2.5 MeV low; with it within 2.5 MeV and 1 MeV of PDG', () => {
-    const plain = peak(findV0s(tracks, { primaryM: ORIGIN }));
-    const corrected = peak(findV0s(tracks, { primaryM: ORIGIN, medium: lh2 }));
+    const { sim, measured } = sample(lh2, 6);
+    const tracks = vertexTracks(measured);
+    const plain = peak(sim, findV0s(tracks, { primaryM: ORIGIN }));
+    const corrected = peak(sim, findV0s(tracks, { primaryM: ORIGIN, medium: lh2 }));
     expect(plain.k.n).toBeGreaterThan(150);
     // PDG RPP 2022 literals (test/fixtures/pdg-particles): K⁰ 497.611 MeV, Λ 1115.683 MeV.
     expect(497.611 - plain.k.mean).toBeGreaterThan(5);
