@@ -5,6 +5,7 @@ import { MUON_MINUS } from '../../lib/particles.js';
 import { kineticFromBetaGamma } from '../../lib/matter/kinematics.js';
 import { massStoppingPower } from '../../lib/matter/stoppingPower.js';
 import type { Material } from '../../lib/matter/materials.js';
+import { sternheimerPeierls } from '../../lib/matter/densityEffect.js';
 
 /**
  * The built-in material table, row by row, from a module imported afresh inside each test: the
@@ -109,7 +110,47 @@ describe('the built-in material table', () => {
       ['  Liquid Propane ', 'liquid-propane'],
     ];
     for (const [alias, name] of pairs) expect(material(alias).name, alias).toBe(name);
+    expect(material('liquid  hydrogen').name).toBe('liquid-hydrogen');
     for (const m of MATERIALS) expect(material(m.name.toUpperCase())).toBe(m);
     expect(() => material('unobtainium')).toThrow(`unknown material "unobtainium"; known: ${MATERIALS.map((m) => m.name).join(', ')} (or define a compound or mixture)`);
+  });
+
+  it('the Ar/CO₂ 70/30 row is Bragg additivity of the argon and CO₂ rows, worked out here, with the gas Sternheimer–Peierls δ', async () => {
+    // Rules (PDG RPP; ICRU 37; common practice): ⟨Z/A⟩ = Σ w (Z/A), ln I = Σ w (Z/A) ln I / ⟨Z/A⟩,
+    // 1/X₀ = Σ w/X₀; density 0.7 ρ_Ar + 0.3 ρ_CO₂ (ideal gases, 70/30 by volume).
+    const { material } = await freshTable();
+    const ar = material('argon-gas'), co2 = material('carbon-dioxide-gas'), mix = material('ar-co2-70-30');
+    const w = [0.6793, 0.3207], parts = [ar, co2];
+    const zOverA = w[0] * ar.zOverA + w[1] * co2.zOverA;
+    const lnI = (w[0] * ar.zOverA * Math.log(ar.meanExcitationEV) + w[1] * co2.zOverA * Math.log(co2.meanExcitationEV)) / zOverA;
+    expect(mix.densityGcm3).toBeCloseTo(0.7 * 1.662e-3 + 0.3 * 1.842e-3, 15);
+    expect(mix.zOverA).toBeCloseTo(zOverA, 14);
+    expect(mix.meanExcitationEV).toBeCloseTo(Math.exp(lnI), 10);
+    expect(mix.radiationLengthGcm2).toBeCloseTo(1 / (w[0] / ar.radiationLengthGcm2 + w[1] / co2.radiationLengthGcm2), 10);
+    expect(mix.densityEffect).toEqual(sternheimerPeierls(mix.meanExcitationEV, mix.densityGcm3, mix.zOverA, true));
+    // Composition: Ar, C and O by mass, from the parts' own compositions.
+    const byZ = new Map(mix.composition.map((c) => [c.atomicNumber, c.massFraction]));
+    expect([...byZ.keys()].sort((a, b) => a - b)).toEqual([6, 8, 18]);
+    expect(byZ.get(18)).toBeCloseTo(w[0], 12);
+    const co2C = co2.composition.find((c) => c.atomicNumber === 6)!.massFraction;
+    expect(byZ.get(6)).toBeCloseTo(w[1] * co2C, 12);
+    expect(byZ.get(8)).toBeCloseTo(w[1] * (1 - co2C), 12);
+    expect(parts.every((p) => p.approximate === false)).toBe(true);
+  });
+
+  it('liquid neon takes the condensed-phase Sternheimer–Peierls δ (not the gas one)', async () => {
+    const { material } = await freshTable();
+    const ne = material('liquid-neon');
+    expect(ne.densityEffect).toEqual(sternheimerPeierls(137.0, 1.204, 0.49555, false));
+    expect(ne.densityEffect).not.toEqual(sternheimerPeierls(137.0, 1.204, 0.49555, true));
+  });
+
+  it('zz1OverA is Σ w Z(Z + 1)/A: water 4.2187 mol/g from its H and O fractions', async () => {
+    const { material, zz1OverA } = await freshTable();
+    const w = material('water');
+    const h = w.composition.find((c) => c.atomicNumber === 1)!.massFraction;
+    const expected = (h * 2) / 1.00794 + ((1 - h) * 72) / 15.9994;
+    expect(zz1OverA(w)).toBeCloseTo(expected, 10);
+    expect(zz1OverA(w)).toBeCloseTo(4.2187, 3);
   });
 });

@@ -89,6 +89,26 @@ describe('compound() and mixture()', () => {
     expect(() => mixture('bad', [{ of: 'H', massFraction: 0.5 }], { densityGcm3: 1 })).toThrow(SagittaError);
     expect(() => mixture('bad', [{ of: 'H', massFraction: 1 }], { densityGcm3: 0 })).toThrow(SagittaError);
   });
+  it('mixture and compound refusals, word for word; fractions within 1 % of 1 are renormalised', () => {
+    const fractions = 'is not valid: expected non-negative mass fractions summing to 1';
+    expect(() => mixture('m', [{ of: 'H', massFraction: 0.5 }], { densityGcm3: 1 })).toThrow(`massFraction = [0.5] ${fractions}`);
+    expect(() => mixture('m', [{ of: 'H', massFraction: 1.02 }], { densityGcm3: 1 })).toThrow(`massFraction = [1.02] ${fractions}`);
+    expect(() => mixture('m', [{ of: 'H', massFraction: -0.2 }, { of: 'O', massFraction: 1.2 }], { densityGcm3: 1 })).toThrow(`massFraction = [-0.2,1.2] ${fractions}`);
+    expect(() => mixture('m', [{ of: 'H', massFraction: 1 }], { densityGcm3: 0 })).toThrow('densityGcm3 = 0 is not valid: expected a positive density in g/cm³');
+    expect(() => mixture('m', [{ of: 'H', massFraction: 1 }], { densityGcm3: Infinity })).toThrow('densityGcm3 = Infinity is not valid: expected a positive density in g/cm³');
+    expect(() => mixture('m', [], { densityGcm3: 1 })).toThrow('parts = [] is not valid: expected at least one constituent');
+    expect(() => compound('c', {}, { densityGcm3: 1 })).toThrow('formula = {} is not valid: expected element symbols with positive atom counts, e.g. { C: 3, H: 8 }');
+    expect(() => compound('c', { C: 3, H: 0 }, { densityGcm3: 1 })).toThrow('formula = {"C":3,"H":0} is not valid: expected element symbols with positive atom counts');
+    // 0.5 + 0.505 = 1.005: renormalised to 0.4975 / 0.5025 (the weights, not refused).
+    const m = mixture('m', [{ of: 'H', massFraction: 0.5 }, { of: 'O', massFraction: 0.505 }], { densityGcm3: 1 });
+    expect(m.zOverA).toBeCloseTo((0.5 / 1.005) * (1 / 1.00794) + (0.505 / 1.005) * (8 / 15.9994), 12);
+    expect(m.state).toBe('solid');
+    expect(m.composition.map((c) => c.massFraction)).toEqual([0.5 / 1.005, 0.505 / 1.005]);
+    // The same element from two parts adds up; a table material given by name is taken whole.
+    const twice = mixture('h', [{ of: 'H', massFraction: 0.5 }, { of: 'liquid-hydrogen', massFraction: 0.5 }], { densityGcm3: 0.07, state: 'liquid' });
+    expect(twice.composition).toEqual([{ atomicNumber: 1, atomicMassGmol: 1.00794, massFraction: 1 }]);
+    expect(twice.densityEffect).toEqual(sternheimerPeierls(twice.meanExcitationEV, 0.07, twice.zOverA, false));
+  });
   it('Sternheimer–Peierls reproduces the fitted water δ within 5 % at βγ = 100 and 1000 (approximate by design)', () => {
     const w = material('water');
     const sp = sternheimerPeierls(w.meanExcitationEV, w.densityGcm3, w.zOverA, false);
