@@ -43,6 +43,7 @@ describe('parseMaterialFile (our material-file format)', () => {
     const m = parseMaterialFile('# a comment line\nname: a-1 # trailing comment\n\n   density :   1.56 kg / m³  \nstate:liquid\nformula:C3H8\nexcitation: 60eV\n', 'f.txt');
     expect([m.name, m.state, m.densityGcm3, m.meanExcitationEV]).toEqual(['a-1', 'liquid', 1.56e-3, 60]);
     expect(parseMaterialFile('name: b\ndensity: 2 g/cm3\nformula: H2O\n', 'f.txt').state).toBe('solid');
+    expect(parseMaterialFile('name: b\ndensity: 2 g/cm3\nstate: solid\nformula: H2O\n', 'f.txt').state).toBe('solid');
     expect(parseMaterialFile('name: b\ndensity: 2g / cm3\nstate: gas\nformula: H2O\n', 'f.txt')).toMatchObject({ state: 'gas', densityGcm3: 2 });
     // Without an excitation line I comes from additivity: the same as compound() gives.
     const c = compound('b', { H: 2, O: 1 }, { densityGcm3: 2 });
@@ -53,8 +54,8 @@ describe('parseMaterialFile (our material-file format)', () => {
     const a = parseMaterialFile('name: e\ndensity: 1 g/cm3\nformula: CH3CH3\n', 'f.txt');
     const b = compound('e', { C: 2, H: 6 }, { densityGcm3: 1 });
     expect(a.zOverA).toBe(b.zOverA);
-    const d = parseMaterialFile('name: d\ndensity: 1 g/cm3\nformula: C1.5H4\n', 'f.txt');
-    expect(d.zOverA).toBeCloseTo(compound('d', { C: 1.5, H: 4 }, { densityGcm3: 1 }).zOverA, 14);
+    const d = parseMaterialFile('name: d\ndensity: 1 g/cm3\nformula: C1.25H4\n', 'f.txt');
+    expect(d.zOverA).toBeCloseTo(compound('d', { C: 1.25, H: 4 }, { densityGcm3: 1 }).zOverA, 14);
     const mix = parseMaterialFile('name: arch4\ndensity: 1.6e-3 g/cm3\nstate: gas\npart: Ar  0.9\npart: CH4 0.1\n', 'f.txt');
     const ref = compound('ch4', { C: 1, H: 4 }, { densityGcm3: 1 });
     expect(mix.zOverA).toBeCloseTo(0.9 * (18 / 39.948) + 0.1 * ref.zOverA, 12);
@@ -86,6 +87,10 @@ describe('parseMaterialFile (our material-file format)', () => {
       ['name: a\ndensity: 1 g/cm3\nformula: H2O\nexcitation: 0 eV\n', 'm.txt:4: excitation must be a positive energy in eV, e.g. "excitation: 85.7 eV", found "0 eV"'],
       ['name: a\ndensity: 1 g/cm3\nformula: H2O\nexcitation: x85 eV\n', 'm.txt:4: excitation must be a positive energy in eV, e.g. "excitation: 85.7 eV", found "x85 eV"'],
       ['density: 1 g/cm3\nformula: H2O\n', 'm.txt:3: no "name:" line; add one, e.g. "name: my-gas"'],
+      ['name: a\ndensity: 1 g/cm3\nformula: H2O\nexcitation: 85 eVx\n', 'm.txt:4: excitation must be a positive energy in eV, e.g. "excitation: 85.7 eV", found "85 eVx"'],
+      ['name: a\ndensity: 1 g/cm3\npart: CH4x 1\n', 'm.txt:3: "CH4x" is neither an element symbol, a table material nor a formula; use e.g. "Ar", "argon-gas" or "CH4"'],
+      ['name: a\ndensity: 1 g/cm3\npart: xCH4 1\n', 'm.txt:3: "xCH4" is neither an element symbol, a table material nor a formula; use e.g. "Ar", "argon-gas" or "CH4"'],
+      ['name: a\ndensity: 1 g/cm3\npart: C1.x 1\n', 'm.txt:3: "C1.x" is neither an element symbol, a table material nor a formula; use e.g. "Ar", "argon-gas" or "CH4"'],
       ['name: a\ndensity: 1 g/cm3\n', 'm.txt:3: no "formula:" line and no "part:" lines; give a formula (e.g. "formula: C3H8") or the parts of a mixture'],
     ];
     for (const [text, message] of msgs) expect(bad(text), text).toBe(`BAD_MATERIAL_FILE ${message}`);

@@ -95,6 +95,10 @@ describe('rangeTableFrame (DataFrame for notebooks)', () => {
     expect(df.columns).toEqual(['kinetic_energy_MeV', 'momentum_MeV', 'stopping_power_MeV_cm2_g', 'csda_range_g_cm2', 'csda_range_cm']);
     const r = df['csda_range_g_cm2'].values as number[];
     expect(r[4]).toBeCloseTo(csdaRange(PROTON, material('water'), 100), 6);
+    // The cm column is g/cm² over the density (liquid propane, ρ = 0.43 g/cm³).
+    const prop = rangeTableFrame(PROTON, material('liquid-propane'), { fromMeV: 10, toMeV: 100, points: 2 });
+    const gcm2 = prop['csda_range_g_cm2'].values as number[], cm = prop['csda_range_cm'].values as number[];
+    expect(cm[1]).toBeCloseTo(gcm2[1] / 0.43, 9);
   });
 });
 
