@@ -27,11 +27,25 @@ interface EarlyWorker {
 const early: EarlyWorker[] = [];
 
 /**
- * The thread count of a batch run: the request (default all cores), at most 64 and at most one
- * per chunk of the input. runBatch uses the same rule.
+ * Input bytes per worker thread beyond this one when the thread count is not given, per batch
+ * job. Each thread loads the library and warms up its compiled code on its own (≈ 0.5 s of CPU),
+ * and two busy threads on this 2-core machine run each chunk ≈ 1.3× slower than one. Measured
+ * for `fit` on the 20-hit helix CSV (2026-12-04, load < 2): 126 MB took 1.99 s with one thread
+ * and 2.22 s with two, 252 MB 2.8–3.0 s and 2.4–2.8 s, 644 MB 7.1 s and 5.3 s; so a second
+ * thread starts from 160 MB (`npm run bench -- batch`). Jobs not listed (`vertices`, whose work
+ * per byte is far larger) use every core from the second chunk on.
  */
-export function batchThreads(requested: number | undefined, inputBytes: number): number {
-  return Math.max(1, Math.min(requested ?? availableParallelism(), 64, Math.ceil(inputBytes / CHUNK_BYTES)));
+export const BYTES_PER_EXTRA_THREAD: Readonly<Record<string, number>> = Object.freeze({ fit: 160e6 });
+
+/**
+ * The thread count of a batch run of `jobName`: the request, or by default all cores — for a
+ * job in BYTES_PER_EXTRA_THREAD one thread more per that many bytes of input (a small file is
+ * quicker in one); at most 64 and at most one per chunk of the input. runBatch uses the same rule.
+ */
+export function batchThreads(requested: number | undefined, inputBytes: number, jobName: string): number {
+  const per = BYTES_PER_EXTRA_THREAD[jobName];
+  const byDefault = per === undefined ? availableParallelism() : Math.min(availableParallelism(), 1 + Math.floor(inputBytes / per));
+  return Math.max(1, Math.min(requested ?? byDefault, 64, Math.ceil(inputBytes / CHUNK_BYTES)));
 }
 
 /**
@@ -58,7 +72,7 @@ export function startEarlyWorkers(argv: readonly string[]): void {
   } catch {
     return;
   }
-  const workers = batchThreads(requested, bytes) - 1;
+  const workers = batchThreads(requested, bytes, command) - 1;
   for (let t = 0; t < workers; t++) {
     const worker = new Worker(workerUrl('kernel/batch/batchWorker'), { workerData: { jobName: command } });
     worker.unref();

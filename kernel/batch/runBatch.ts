@@ -71,7 +71,7 @@ export async function runBatch(o: BatchRunOptions): Promise<BatchTotals> {
   const size = statSync(o.input).size;
   const job = await loadBatchJob(o.job);
   const settings: ChunkSettings = { file: o.input, lengthUnit: o.lengthUnit, format: o.format, shard: o.shard, jobOptions: o.jobOptions };
-  const threads = batchThreads(o.threads, size);
+  const threads = batchThreads(o.threads, size, o.job);
   const progress = o.progress ? new Progress(o.progressLabel ?? 'reading', size) : undefined;
   let sink = new ResultSink(o.format, o.target);
   const totals = newTotals(format, threads);
