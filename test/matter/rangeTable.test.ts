@@ -98,6 +98,11 @@ describe('rangeTable: refusals and clamps, word for word', () => {
     expect(consumeWarnings()).toEqual([]);
   });
 
+  it('refuses a start on the top limit (clamped to an empty interval)', () => {
+    expect(() => rangeTable(ELECTRON, water(), { fromMeV: 10000, toMeV: 20000 }))
+      .toThrow('fromMeV/toMeV = [10000,20000] is not valid: expected an interval overlapping the validity range 0.01–10000 MeV');
+  });
+
   it('refuses an interval wholly outside the validity range once clamped', () => {
     expect(() => rangeTable(ELECTRON, water(), { fromMeV: 20000, toMeV: 30000 }))
       .toThrow('fromMeV/toMeV = [20000,30000] is not valid: expected an interval overlapping the validity range 0.01–10000 MeV');
