@@ -377,6 +377,21 @@ describe('nearestArcLength and the Newton refinement', () => {
   });
 });
 
+describe('refineClosestApproach on parallel tracks (the degenerate case: any pair of points across)', () => {
+  it('two parallel straight tracks 10 mm apart, started 0.2 m out of step: distance 10 mm, converged', () => {
+    // Lines along x at y = 0 and y = 0.01 m (tan λ = 0 and 0.5): the closest distance is 0.01 m
+    // wherever the points sit along them (geometry, common practice).
+    for (const tanLambda of [0, 0.5]) {
+      const a = helix({ kappa: 0, phi0: 0, tanLambda }), b = helix({ yRef: 0.01, kappa: 0, phi0: 0, tanLambda });
+      const out = { s1: NaN, s2: NaN, distanceM: NaN, status: 'ok' as const } as { s1: number; s2: number; distanceM: number; status: 'ok' | 'not-converged' | 'no-start' };
+      refineClosestApproach(a, b, 0.3, 0.1, out, newClosestApproachScratch());
+      expect(out.status, `tan λ ${tanLambda}`).toBe('ok');
+      expect(Math.abs(out.distanceM - 0.01), `tan λ ${tanLambda}`).toBeLessThan(1e-12);
+      expect(Math.abs(out.s1 - out.s2), `tan λ ${tanLambda}`).toBeLessThan(1e-9);
+    }
+  });
+});
+
 describe('fitTwoTrackVertex on two straight tracks with diagonal covariances (closed-form weighted mean)', () => {
   it('tracks along x at z = +δ/2 and along y at z = −δ/2: V = weighted means, χ² = δ²/(σ_a² + σ_b²), cov from the weights (1e-12)', () => {
     const delta = 0.004, sa = 1e-3, sb = 2e-3, da = 3e-4, db = 5e-4;
