@@ -64,7 +64,14 @@ describe('vertexTracks', () => {
     const c = v.cov.subarray(0, 25);
     expect([c[18], c[24]]).toEqual([1, 1]);
     for (const i of [3, 4, 8, 9, 13, 14, 15, 16, 17, 19, 20, 21, 22, 23]) expect(c[i], `cov[${i}]`).toBe(0);
-    for (let r = 0; r < 3; r++) for (let u = 0; u < 3; u++) expect(c[5 * r + u]).toBe(c[5 * u + r]);
+    for (let r = 0; r < 3; r++) for (let u = 0; u < 3; u++) {
+      expect(Number.isFinite(c[5 * r + u]), `cov[${5 * r + u}]`).toBe(true);
+      expect(c[5 * r + u]).toBe(c[5 * u + r]);
+    }
+    // The circle block is the no-z circle fit's: κ, φ0, d0 variances as the helix fit gives them
+    // (the circle part of a two-step helix fit is the same circle fit).
+    const withZ = vertexTracks(measureTracks(hits(true, true), { fieldT: 1.5 })).cov.subarray(0, 25);
+    for (const i of [0, 1, 2, 6, 7, 12]) expect(c[i] / withZ[i], `cov[${i}]`).toBeCloseTo(1, 9);
     expect(c[0]).toBeGreaterThan(0);
     expect([v.z0[0], v.tanLambda[0]]).toEqual([0, 0]);
   });
@@ -76,5 +83,8 @@ describe('vertexTracks', () => {
     expect(b.cov[24] / a.cov[24]).toBeCloseTo(4, 6);
     const withSigma = vertexTracks(measureTracks(hits(true, true), { fieldT: 1.5 }));
     expect(a.cov[0] / withSigma.cov[0]).toBeCloseTo(1, 9);
+    // Hits that carry their own errors keep them: hitErrorM is only for hits without.
+    const own = measureTracks(hits(true, true), { fieldT: 1.5 });
+    expect(vertexTracks(own, { hitErrorM: 4e-4 }).cov[0]).toBe(vertexTracks(own).cov[0]);
   });
 });
