@@ -4,6 +4,7 @@ import { performance } from 'node:perf_hooks';
 import { fitMethods, formatWarning, lengthMetres, material as lookupMaterial, particle as lookupParticle, READ_HITS_DEFAULTS } from '../../../lib/index.js';
 import { msg, POOR_FIT_PROBABILITY, speciesList } from '../../../lib/internal.js';
 import type { FitJobOptions } from '../../batch/fitJob.js';
+import { BYTES_PER_EXTRA_THREAD } from '../../batch/earlyWorkers.js';
 import { resultFormatOf } from '../../batch/inputFormat.js';
 import { planOutputs } from '../../batch/outputPlan.js';
 import { OutputSet } from '../../batch/outputSet.js';
@@ -64,7 +65,7 @@ export function registerFit(program: Command): void {
     .option('--particle <name>', 'mass hypothesis for the fit with material (energy loss, β in the scattering term); "auto" identifies each track by range among e, mu, pi, K, p, or give a list such as mu-,pi-,proton', 'pi+')
     .option('--volume <x,y,z>', 'with --particle auto or a list: full sizes of the sensitive box centred on the origin, e.g. "160 cm,100 cm,60 cm"; a track whose last hit lies 2 cm or more inside every face stops (without it: the curvature must rise along the track)')
     .option('--plain-helix', 'with --material: fit one plain helix per track as without a material (for comparison; biased low on slowing tracks)')
-    .option('--threads <n>', `threads to work in: this one and n − 1 workers (default: all ${availableParallelism()} cores, one more per 160 MB of input); the output is the same for any count`)
+    .option('--threads <n>', `threads to work in: this one and n − 1 workers (default: all ${availableParallelism()} cores, one more per ${BYTES_PER_EXTRA_THREAD.fit / 1e6} MB of input); the output is the same for any count`)
     .option('--shard <K/N>', 'fit only the K-th of N slices of the events (by event id), e.g. 3/8; combine the parts with "sagitta merge"')
     .option('-q, --quiet', 'no progress bar (there is none off a terminal anyway)')
     .addHelpText('after', `
