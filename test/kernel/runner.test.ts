@@ -183,7 +183,9 @@ describe('sagitta run (child process per run)', { timeout: 180_000 }, () => {
     expect(outcomes(nb)).toEqual(['done', 'failed', 'not-run']);
     const loop = nb.cells[2] as unknown as { outputs: Array<{ ename?: string }>; metadata: { sagitta: { wallMs: number } } };
     expect(loop.outputs[0].ename).toBe('CellTimeout');
-    expect(loop.metadata.sagitta.wallMs).toBeGreaterThanOrEqual(2000);
+    // The budget is a libuv timer (whole milliseconds on its own loop clock): against
+    // performance.now it may fire up to 1 ms early (seen once: 1999.9 ms).
+    expect(loop.metadata.sagitta.wallMs).toBeGreaterThanOrEqual(1999);
     expect(existsSync(join(dir, 'r.html'))).toBe(true);
   }, 180_000);
 
