@@ -41,7 +41,7 @@ export { fitHelices, fitHelix, type HelixFit, type HelixFitColumns, type SpaceHi
 export { fitLine, type LineFit } from './fit/fitLine.js';
 export { type CircleFitMethod, type FitContext, type FitMethod, type HelixFitMethod } from './fit/fitMethod.js';
 export { BUILT_IN_FIT_METHODS, fitMethod, fitMethods, registerFitMethod } from './fit/fitMethods.js';
-export { MATTER_FIT_DEFAULTS, MATTER_FIT_MIN_HITS, MATTER_FIT_MIN_PROBABILITY, MATTER_FIT_STATUS, fitTrackInMatter, fitTracksInMatter, type MatterFitColumns, type MatterFitOptions, type MatterFitState, type MatterFitStatus, type MatterTrackColumnsHits, type MatterTrackFit, type MatterTrackHits } from './fit/matter/index.js';
+export { MATTER_FIT_DEFAULTS, MATTER_FIT_MIN_HITS, MATTER_FIT_MIN_PROBABILITY, MATTER_FIT_STATUS, STOP_CONSTRAINT_SPACINGS, fitTrackInMatter, fitTracksInMatter, type MatterBatchFitOptions, type MatterFitColumns, type MatterFitOptions, type MatterFitState, type MatterFitStatus, type MatterTrackColumnsHits, type MatterTrackFit, type MatterTrackHits } from './fit/matter/index.js';
 export { GEOMETRIC_FIT_DEFAULTS, GEOMETRIC_METHOD, type GeometricFitOptions } from './fit/geometricCircle.js';
 export { KASA_METHOD } from './fit/kasaCircle.js';
 export { type PlaneHits } from './fit/preparePlaneHits.js';
@@ -51,6 +51,7 @@ export { TAUBIN_METHOD } from './fit/taubinCircle.js';
 export { BETHE_MAX_BETA_GAMMA, BETHE_MIN_BETA_GAMMA, betheStoppingPower, maxEnergyTransferMeV } from './matter/bethe.js';
 export { SHELL_MIN_BETA_GAMMA, blochCorrection, materialShellCorrection, shellCorrectionOverZ } from './matter/betheCorrections.js';
 export { bohrVarianceMeV2 } from './matter/bohrStraggling.js';
+export { rangeStragglingGcm2 } from './matter/rangeStraggling.js';
 export { chamberMedium } from './matter/chamberMedium.js';
 export { densityEffectDelta, type DensityEffect } from './matter/densityEffect.js';
 export { ELECTRON_MAX_MEV, ELECTRON_MIN_MEV, electronCollisionStoppingPower, electronRadiativeStoppingPower } from './matter/electronLoss.js';
@@ -91,7 +92,7 @@ export { meanHitSpacingM, pathLengthsM, residualRangesM } from './track/pathLeng
 export { momentumAgainstResidualRange, predictedCurvature, type MomentumAgainstRange } from './track/profileAlongTrack.js';
 export { SEGMENT_CURVATURE_DEFAULTS, segmentCurvatures, type SegmentCurvatureOptions, type SegmentCurvatures, type SegmentHits } from './track/segmentCurvatures.js';
 export { ELECTRON_RANGE_SPREAD, RANGE_TABLE_ACCURACY, speciesRange, type SpeciesRange } from './track/speciesRange.js';
-export { STOPS_INSIDE_DEFAULTS, curvatureSlopeSignificance, stopsInside, type FiducialBox, type StopDecision, type StopsInsideOptions } from './track/stopsInside.js';
+export { STOPS_INSIDE_DEFAULTS, curvatureSlopeSignificance, endsInside, stopsInside, type FiducialBox, type StopDecision, type StopsInsideOptions } from './track/stopsInside.js';
 
 // ── analysis: histograms, fitting layer, statistics
 export { addHistograms } from './analysis/addHistograms.js';

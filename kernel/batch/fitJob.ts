@@ -55,6 +55,7 @@ export const FIT_JOB: BatchJob<FitJobOptions> = {
     const table: ColumnTable = { rows: tracks.count, columns };
     const counts: Record<string, number> = { tracks: tracks.count, track_hits: tracks.hits.length, unassigned_hits: tracks.unassignedHits };
     for (const [s, c] of Object.entries(tracks.statusCounts)) counts[`status_${s}`] = c;
+    if (tracks.stops && !tracks.identity) counts.stopping = tracks.stops.reduce((a, v) => a + v, 0);
     if (tracks.identity) {
       for (const p of tracks.identity.pid) counts[`pid_${p}`] = (counts[`pid_${p}`] ?? 0) + 1;
       counts.stopping = tracks.identity.stops.reduce((a, v) => a + v, 0);

@@ -2,6 +2,7 @@
 export { BETHE_MAX_BETA_GAMMA, BETHE_MIN_BETA_GAMMA, betheStoppingPower, kineticRangeText, maxEnergyTransferMeV, warnOutside } from './bethe.js';
 export { SHELL_MIN_BETA_GAMMA, blochCorrection, materialShellCorrection, shellCorrectionOverZ } from './betheCorrections.js';
 export { bohrVarianceMeV2 } from './bohrStraggling.js';
+export { rangeStragglingGcm2, rangeStragglingVariances, varianceAtKinetic } from './rangeStraggling.js';
 export { chamberMedium } from './chamberMedium.js';
 export { cBarFromPlasma, densityEffectDelta, plasmaEnergyEV, sternheimerPeierls, type DensityEffect } from './densityEffect.js';
 export { ELECTRON_MAX_MEV, ELECTRON_MIN_MEV, electronCollisionStoppingPower, electronRadiativeStoppingPower, radiativeDirect } from './electronLoss.js';

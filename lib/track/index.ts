@@ -8,7 +8,7 @@ export { trackHits, type OneTrackHits } from './trackHits.js';
 export { trackTableColumns } from './trackTableColumns.js';
 export { pathLengthsM, meanHitSpacingM, residualRangesM } from './pathLength.js';
 export { segmentCurvatures, SEGMENT_CURVATURE_DEFAULTS, type SegmentCurvatures, type SegmentCurvatureOptions, type SegmentHits } from './segmentCurvatures.js';
-export { stopsInside, curvatureSlopeSignificance, STOPS_INSIDE_DEFAULTS, type FiducialBox, type StopDecision, type StopsInsideOptions } from './stopsInside.js';
+export { stopsInside, endsInside, curvatureSlopeSignificance, STOPS_INSIDE_DEFAULTS, type FiducialBox, type StopDecision, type StopsInsideOptions } from './stopsInside.js';
 export { speciesRange, ELECTRON_RANGE_SPREAD, RANGE_TABLE_ACCURACY, type SpeciesRange } from './speciesRange.js';
 export { chargedSpecies, PID_SPECIES } from './chargedSpecies.js';
 export { filterTrack, newFilterScratch, bendingPlaneFilter, type FilterTrack, type FilterScratch, type FilterContext, type FilterResult } from './bendingPlaneFilter.js';

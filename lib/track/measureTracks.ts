@@ -15,7 +15,7 @@ import { particle as lookupParticle, PION_PLUS, type Particle } from '../particl
 import { matterMomenta } from './matterMomenta.js';
 import { measureByIdentity, speciesList } from './measureByIdentity.js';
 import type { IdentifiedTracks } from './identifyTracks.js';
-import type { FiducialBox } from './stopsInside.js';
+import { endsInside, type FiducialBox } from './stopsInside.js';
 import type { StopDecayLinks } from './linkStopDecays.js';
 
 /** χ² probability below which a fitted track is flagged 'poor-fit' (the fit-with-material threshold, 1e-3). */
@@ -45,7 +45,13 @@ export interface MeasureTracksOptions {
    * report it under the chosen species (`identity` in the table).
    */
   readonly particle?: Particle | string | readonly (Particle | string)[];
-  /** With several species: the fiducial volume for the stop decision (`stopsInside`); omitted → the curvature-rise criterion. */
+  /**
+   * The chamber's fiducial volume [m]. With the fit with material, a track whose last hit lies
+   * 2 cm or more inside every face is taken to stop (`endsInside`) and is fitted with the stop
+   * constraint (momentum from range, `MatterFitOptions.stops`; `stops` in the table). With several
+   * species it is also the stop decision of the identification (`stopsInside`); omitted → no stop
+   * constraint, and the identification uses the curvature-rise criterion.
+   */
   readonly volume?: FiducialBox;
   /** 'matter' (default with a material) or 'plain-helix' (one helix, no material; the only choice without one). */
   readonly fit?: TrackFitKind;
@@ -86,6 +92,11 @@ export interface TrackTable {
   readonly matter?: MatterFitColumns;
   /** With `particle: 'auto'` or a list: the identification of every track (pid, margin, stop, bound). */
   readonly identity?: IdentifiedTracks;
+  /**
+   * With the fit with material and a `volume`: 1 for each track that ends inside it (`endsInside`),
+   * fitted with the stop constraint.
+   */
+  readonly stops?: Uint8Array;
   /** With identification: each track's link to the stopping track it starts from (decay at rest). */
   readonly decays?: StopDecayLinks;
   readonly momentum: MomentumColumns;
@@ -152,13 +163,14 @@ export function measureTracks(hits: HitTable, options: MeasureTracksOptions): Tr
     if (sigmaX === undefined) throw msg.badArgument('hitErrorM', undefined, "hit errors for the fit with material: sigma columns, hitErrorM (--hit-error), or the plain helix fit (fit: 'plain-helix', --plain-helix)");
     const medium = typeof options.material === 'string' ? lookupMaterial(options.material) : options.material!;
     const species = options.particle === undefined ? PION_PLUS : typeof options.particle === 'string' ? lookupParticle(options.particle) : (options.particle as Particle);
-    const matter = fitTracksInMatter({ x: table.x, y: table.y, sigmaX, sigmaY, z: table.z, sigmaZ: table.sigmaZ }, index.offsets, { fieldT: options.fieldT, medium, particle: species, hitErrorM: options.hitErrorM });
+    const stops = options.volume ? endsInside(table, index.offsets, options.volume) : undefined;
+    const matter = fitTracksInMatter({ x: table.x, y: table.y, sigmaX, sigmaY, z: table.z, sigmaZ: table.sigmaZ }, index.offsets, { fieldT: options.fieldT, medium, particle: species, hitErrorM: options.hitErrorM, stoppingTracks: stops });
     const status = Array.from(matter.status, (s) => MATTER_FIT_STATUS[s] as FitStatus);
     return {
       count: n, event: index.event, track: index.track, nhits,
       kappa: matter.kappa, phi0: matter.phi, d0: new Float64Array(n), z0: hasZ ? matter.zM : new Float64Array(n).fill(NaN),
       xRef: matter.xM, yRef: matter.yM, chi2: matter.chi2, ndf: matter.ndf, iterations: matter.iterations,
-      chi2Prob: matter.pValue, status, fit, particle: species.name, matter,
+      chi2Prob: matter.pValue, status, fit, particle: species.name, matter, ...(stops ? { stops } : {}),
       momentum: matterMomenta(matter), hasZ, method: 'matter', fieldT: options.fieldT,
       hits: table, offsets: index.offsets, hitRows, statusCounts: countStatuses(status), unassignedHits,
     };

@@ -38,15 +38,39 @@ export interface StopDecision {
  */
 export function stopsInside(seg: SegmentCurvatures, end: readonly [number, number, number], options: StopsInsideOptions = {}): StopDecision {
   const o = { volume: options.volume, marginM: options.marginM ?? STOPS_INSIDE_DEFAULTS.marginM, minRise: options.minRise ?? STOPS_INSIDE_DEFAULTS.minRise };
-  let endInside = true;
-  if (o.volume) {
-    for (let a = 0; a < 3; a++) {
-      if (!(end[a] >= o.volume.min[a] + o.marginM && end[a] <= o.volume.max[a] - o.marginM)) endInside = false;
-    }
-  }
+  const endInside = o.volume ? insideBy(end[0], end[1], end[2], o.volume, o.marginM) : true;
   const rise = curvatureSlopeSignificance(seg);
   const stops = o.volume ? endInside : rise >= o.minRise;
   return Object.freeze({ stops, endInside, riseSignificance: rise });
+}
+
+/** Whether (x, y, z) [m] lies inside `volume` by at least `marginM` on every face (z NaN: the bending plane only). */
+function insideBy(x: number, y: number, z: number, volume: FiducialBox, marginM: number): boolean {
+  const c = [x, y, z];
+  for (let a = 0; a < 3; a++) {
+    if (a === 2 && Number.isNaN(z)) continue;
+    if (!(c[a] >= volume.min[a] + marginM && c[a] <= volume.max[a] - marginM)) return false;
+  }
+  return true;
+}
+
+/**
+ * Per track (track k is rows [offsets[k], offsets[k+1]) of the hit columns, in travel order): 1
+ * when its last hit lies inside `volume` by at least `marginM` on every face (default 2 cm, the
+ * criterion of `stopsInside` with a volume); without z only x and y are tested. A track that ends
+ * inside stopped, interacted or decayed in flight, or lost its hits; the fit with material's stop
+ * constraint (`stops`) then tests the first through its χ².
+ * @example endsInside(tracks.hits, tracks.offsets, { min: [-0.8, -0.5, -0.3], max: [0.8, 0.5, 0.3] })
+ */
+export function endsInside(hits: { readonly x: Float64Array; readonly y: Float64Array; readonly z?: Float64Array }, offsets: Int32Array, volume: FiducialBox, marginM: number = STOPS_INSIDE_DEFAULTS.marginM): Uint8Array {
+  const n = offsets.length - 1;
+  const out = new Uint8Array(Math.max(0, n));
+  for (let k = 0; k < n; k++) {
+    const last = offsets[k + 1] - 1;
+    if (last < offsets[k]) continue;
+    out[k] = insideBy(hits.x[last], hits.y[last], hits.z ? hits.z[last] : NaN, volume, marginM) ? 1 : 0;
+  }
+  return out;
 }
 
 /** Slope of |κ| against path over its error (weighted least squares); NaN below two segments. */

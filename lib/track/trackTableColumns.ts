@@ -6,7 +6,9 @@ import type { TrackTable } from './measureTracks.js';
  * ending in their unit (`_m`, `_rad`, `_GeV_c` for momenta). `p_GeV_c`, `tan_lambda`, `z0_m` and
  * `sigma_p_GeV_c` are empty when the hits carry no z. `chi2_prob` is P(χ²_ndf ≥ χ²). After a fit with
  * material: `p_last_GeV_c` and its error at the last hit, the 3-D `path_m` first → last hit and the
- * hypothesis' CSDA `residual_range_m` left at the last hit. After identification by range
+ * hypothesis' CSDA `residual_range_m` left at the last hit, and with a fiducial volume `stops`
+ * (1 for a track that ends inside it and was fitted with the stop constraint) and `stop_chi2`
+ * (that constraint's own χ², 1 degree of freedom; empty without it). After identification by range
  * (`particle: 'auto'` or a list): `pid` (the chosen species, or 'undecided'), `pid_delta_m2lnL`
  * (−2 ln L of the runner-up minus the best), `stops` (1 when the track stops inside) and
  * `p_min_GeV_c` (least first-hit momentum that reaches the last hit, the bound for a track that
@@ -45,6 +47,7 @@ export function trackTableColumns(t: TrackTable): ColumnTable {
         { name: 'path_m', values: t.matter.pathLengthM },
         { name: 'residual_range_m', values: t.matter.residualRangeM },
       ] : []),
+      ...(t.stops && !t.identity ? [{ name: 'stops', values: t.stops, digits: 0 }, { name: 'stop_chi2', values: t.matter!.stopChi2, digits: 6 }] : []),
       ...(t.identity ? [
         { name: 'pid', values: t.identity.pid },
         { name: 'pid_delta_m2lnL', values: t.identity.deltaM2lnL, digits: 6 },

@@ -63,7 +63,7 @@ export function registerFit(program: Command): void {
     .option('--charge-number <z>', 'charge magnitude |z| of the particles (2 for alpha particles)', '1')
     .option('--material <name>', 'medium the tracks cross, e.g. argon-gas, liquid-hydrogen, liquid-propane: fits with energy loss and multiple scattering, p at the first hit, and adds the error budget columns')
     .option('--particle <name>', 'mass hypothesis for the fit with material (energy loss, β in the scattering term); "auto" identifies each track by range among e, mu, pi, K, p, or give a list such as mu-,pi-,proton', 'pi+')
-    .option('--volume <x,y,z>', 'with --particle auto or a list: full sizes of the sensitive box centred on the origin, e.g. "160 cm,100 cm,60 cm"; a track whose last hit lies 2 cm or more inside every face stops (without it: the curvature must rise along the track)')
+    .option('--volume <x,y,z>', 'with --material: full sizes of the sensitive box centred on the origin, e.g. "160 cm,100 cm,60 cm"; a track whose last hit lies 2 cm or more inside every face stops and is fitted with its range (with --particle auto or a list it is also the stop decision; without it the curvature must rise along the track)')
     .option('--plain-helix', 'with --material: fit one plain helix per track as without a material (for comparison; biased low on slowing tracks)')
     .option('--threads <n>', `threads to work in: this one and n − 1 workers (default: all ${availableParallelism()} cores, one more per ${BYTES_PER_EXTRA_THREAD.fit / 1e6} MB of input); the output is the same for any count`)
     .option('--shard <K/N>', 'fit only the K-th of N slices of the events (by event id), e.g. 3/8; combine the parts with "sagitta merge"')
@@ -85,7 +85,11 @@ With --material (and not --plain-helix): a helix fit with the mean energy loss o
 and multiple scattering in the medium (Kalman filter with smoother); p_GeV_c, phi0_rad and
 the direction are at the first hit, sigma_p_GeV_c includes the scattering, and the columns
 p_last_GeV_c, sigma_p_last_GeV_c, path_m and residual_range_m follow status. It needs hit errors
-(sigma columns or --hit-error).
+(sigma columns or --hit-error). With --volume, a track whose last hit lies 2 cm or more inside
+the box is taken to stop within one hit spacing after it: its fit adds the range-energy relation
+(momentum from range, range straggling; one more degree of freedom), column stops = 1, so its
+momentum error is that of the range, and a track that did not stop (a decay in flight, a gap, a
+wrong mass) shows as poor-fit. Range tables are research values, not for treatment planning.
 Ids are exact whole numbers up to 2^63 - 1.
 
 With --material: sigma_p_meas_GeV_c (from the hit errors, exact least squares for each track's
@@ -227,12 +231,13 @@ function fitSummary(hitsPath: string, t: BatchTotals, c: CheckedFit, o: FitComma
       : matter
       ? `fit with material: energy loss of ${c.job.particle} and multiple scattering in ${o.material}, p at the first hit`
       : `fitter ${t.method ?? c.job.method}${t.hasZ ? ', helix (z present)' : ', circle only (no z: p and tan(lambda) not measured)'}`),
-    `  fitted ${(n.status_ok ?? 0) + poor}` + (poor ? ` (${poor} poor fits: chi2 probability below 0.001)` : '') + `, failed ${failed}${statuses.length ? ` (${statuses.join(', ')})` : ''}`,
+    `  fitted ${(n.status_ok ?? 0) + poor}` + (poor ? ` (${poor} poor fits: chi2 probability${matter && c.job.volume && !speciesList(c.job.particle) ? ', or that of stop_chi2,' : ''} below 0.001)` : '') + `, failed ${failed}${statuses.length ? ` (${statuses.join(', ')})` : ''}`,
   ];
   if (c.shard) lines.push(`  shard ${c.shard.index}/${c.shard.count}: ${n.other_shard_hits ?? 0} hits of other slices' events skipped`);
   if (t.readWhole) lines.push('  the events of this file are not grouped (an event reappears after others): read whole instead of streamed');
   lines.push(`  time ${seconds.toFixed(2)} s, ${t.threads} thread${t.threads === 1 ? '' : 's'}${o.out ? `; results in ${o.out}` : ''}`);
   const pids = Object.entries(n).filter(([k]) => k.startsWith('pid_')).map(([k, v]) => `${k.slice(4)} ${v}`);
+  if (!pids.length && c.job.volume && c.job.material && n.stopping !== undefined) lines.push(`  ${n.stopping} tracks end 2 cm or more inside --volume: fitted as stopping (momentum from range)`);
   if (pids.length) lines.push(`  pid: ${pids.join(', ')}; ${n.stopping ?? 0} tracks stop (${c.job.volume ? 'last hit 2 cm or more inside --volume' : 'curvature rising along the track'})`);
   if (o.material !== undefined && !speciesList(c.job.particle)) {
     lines.push(`  error budget in ${o.material} (β from ${c.job.particle}): median σp/p measurement ${medianPercent(t.samples.measurement)}, multiple scattering ${medianPercent(t.samples.scattering)}`);

@@ -14,11 +14,13 @@ import type { MatterFitScratch } from './matterFitScratch.js';
  *   (with `residuals`), combining at each hit its prediction with the backward pass's filtered state (two-filter
  *   smoother, equivalent to Rauch–Tung–Striebel; Fraser & Potter, IEEE TAC 14 (1969) 387), gives
  *   the smoothed residuals.
+ * With `stopAt` ≥ 0 both take the stop constraint in sc.stop (`stopConstraint`) as a measurement
+ * of δκ at that hit, after the hit's own (so the smoother's two halves never both hold it).
  * Each returns the χ² of its predicted residuals (the fit χ² of the linear problem); the
  * backward pass with `withLogDet` also leaves Σ ln(variance of each predicted residual) in sc.tmp[14], so that
  * χ² + that sum is −2 ln L up to a constant when the noise itself depends on the state.
  */
-export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, keepFiltered: boolean, withLogDet = false): number {
+export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, keepFiltered: boolean, withLogDet = false, stopAt = -1): number {
   let x0 = 0, x1 = 0, x2 = 0;
   let c00 = prior[0], c01 = 0, c02 = 0, c11 = prior[1], c12 = 0, c22 = prior[2];
   let z0 = 0, z1 = 0, d00 = prior[3], d01 = 0, d11 = prior[4];
@@ -62,6 +64,15 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
     const k0 = c00 * iv, k1 = c01 * iv, k2 = c02 * iv;
     x0 += k0 * r; x1 += k1 * r; x2 += k2 * r;
     c22 -= k2 * c02; c12 -= k1 * c02; c11 -= k1 * c01; c02 -= k0 * c02; c01 -= k0 * c01; c00 -= k0 * c00;
+    if (i === stopAt) {
+      // The stop constraint (sc.stop, `stopConstraint`): a measurement of δκ after the hit's own.
+      const y = sc.stop[1] - x2, sk = c22 + sc.stop[2];
+      const g0 = c02 / sk, g1 = c12 / sk, g2 = c22 / sk;
+      chi2 += (y * y) / sk;
+      if (withLogDet) lnDet += Math.log(sk);
+      x0 += g0 * y; x1 += g1 * y; x2 += g2 * y;
+      c00 -= g0 * c02; c01 -= g0 * c12; c11 -= g1 * c12; c02 -= g0 * c22; c12 -= g1 * c22; c22 -= g2 * c22;
+    }
     if (keepFiltered) {
       const b = 9 * i;
       bs[b] = x0; bs[b + 1] = x1; bs[b + 2] = x2; bs[b + 3] = c00; bs[b + 4] = c01; bs[b + 5] = c02; bs[b + 6] = c11; bs[b + 7] = c12; bs[b + 8] = c22;
@@ -84,7 +95,7 @@ export function backwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, pri
   return chi2;
 }
 
-export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, residuals: boolean): number {
+export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prior: Float64Array, residuals: boolean, stopAt = -1): number {
   let x0 = 0, x1 = 0, x2 = 0;
   let c00 = prior[0], c01 = 0, c02 = 0, c11 = prior[1], c12 = 0, c22 = prior[2];
   let z0 = 0, z1 = 0, d00 = prior[3], d01 = 0, d11 = prior[4];
@@ -129,6 +140,14 @@ export function forwardPass(sc: MatterFitScratch, n: number, hasZ: boolean, prio
     const k0 = c00 / sv, k1 = c01 / sv, k2 = c02 / sv;
     x0 += k0 * r; x1 += k1 * r; x2 += k2 * r;
     c22 -= k2 * c02; c12 -= k1 * c02; c11 -= k1 * c01; c02 -= k0 * c02; c01 -= k0 * c01; c00 -= k0 * c00;
+    if (i === stopAt) {
+      // The stop constraint (sc.stop, `stopConstraint`): a measurement of δκ after the hit's own.
+      const y = sc.stop[1] - x2, sk = c22 + sc.stop[2];
+      const g0 = c02 / sk, g1 = c12 / sk, g2 = c22 / sk;
+      chi2 += (y * y) / sk;
+      x0 += g0 * y; x1 += g1 * y; x2 += g2 * y;
+      c00 -= g0 * c02; c01 -= g0 * c12; c11 -= g1 * c12; c02 -= g0 * c22; c12 -= g1 * c22; c22 -= g2 * c22;
+    }
     if (hasZ) {
       if (residuals) {
         const q = 5 * i;

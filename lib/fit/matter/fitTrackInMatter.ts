@@ -3,7 +3,7 @@ import { msg } from '../../errors.js';
 import { lossModel, type LossModel } from './lossModel.js';
 import {
   END_KAPPA, END_KINETIC, END_P, END_PT, END_SIGMA_KAPPA, END_SIGMA_P, END_X, END_Y, END_Z,
-  endState, fitIntoScratch, inputsFinite, matterFitSettings, type EndHit,
+  convergedStatus, endState, fitIntoScratch, inputsFinite, matterFitNdf, matterFitSettings, type EndHit,
 } from './matterFitCore.js';
 import { ensureScratch, type MatterFitScratch } from './matterFitScratch.js';
 import {
@@ -50,7 +50,7 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
   if (n < MATTER_FIT_MIN_HITS) return failed('too-few-hits', options, n, 0);
   if (!inputsFinite(hits, set.hitErrorM)) return failed('bad-input', options, n, 0);
   const sc = ensureScratch(scratch, n);
-  const run = fitIntoScratch(model, hits, set, sc, true);
+  const run = fitIntoScratch(model, hits, set, sc, true, options.stops === true);
   if (run.status !== 'ok') return failed(run.status, options, n, run.reachedHits);
   const hasZ = hits.z !== undefined;
   const residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
@@ -59,14 +59,14 @@ export function fitTrackInMatter(hits: MatterTrackHits, options: MatterFitOption
   hit.last = true;
   const path = sc.path[n - 1];
   const last = reportedState(sc, model, options.fieldT, hit, path);
-  const ndf = n - 3 + (hasZ ? n - 2 : 0);
+  const ndf = matterFitNdf(n, hasZ, run.constrained);
   const pValue = chi2Survival(run.chi2, ndf);
   return Object.freeze({
-    status: pValue < MATTER_FIT_MIN_PROBABILITY ? 'poor-fit' : 'ok',
+    status: convergedStatus(pValue, run.stopChi2),
     particle: options.particle.name,
     first, last,
     charge: -Math.sign(first.kappa) * Math.sign(options.fieldT) * model.chargeAbs,
-    chi2: run.chi2, ndf, pValue,
+    chi2: run.chi2, ndf, pValue, stopChi2: run.stopChi2,
     pathLengthM: path,
     residualRangeM,
     reachedEnd: true,
@@ -85,7 +85,7 @@ const NAN_STATE: MatterFitState = Object.freeze({
 
 function failed(status: MatterFitStatus, o: MatterFitOptions, n: number, reached: number): MatterTrackFit {
   return Object.freeze({
-    status, particle: o.particle.name, first: NAN_STATE, last: NAN_STATE, charge: NaN, chi2: NaN, ndf: 0, pValue: NaN,
+    status, particle: o.particle.name, first: NAN_STATE, last: NAN_STATE, charge: NaN, chi2: NaN, ndf: 0, pValue: NaN, stopChi2: NaN,
     pathLengthM: NaN, residualRangeM: NaN, reachedEnd: false, reachedHits: reached, stopsBeforeNextHit: status === 'cannot-reach',
     iterations: 0, residualM: new Float64Array(n).fill(NaN), residualZM: new Float64Array(n).fill(NaN),
   });

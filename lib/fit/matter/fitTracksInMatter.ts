@@ -1,7 +1,7 @@
 import { chi2Survival } from '../../analysis/chi2Survival.js';
 import { msg } from '../../errors.js';
 import { lossModel } from './lossModel.js';
-import { END_KAPPA, END_P, END_PT, END_SIGMA_KAPPA, END_SIGMA_P, END_X, END_Y, END_Z, endState, fitIntoScratch, inputsFinite, matterFitSettings } from './matterFitCore.js';
+import { convergedStatus, END_KAPPA, END_P, END_PT, END_SIGMA_KAPPA, END_SIGMA_P, END_X, END_Y, END_Z, endState, fitIntoScratch, inputsFinite, matterFitNdf, matterFitSettings } from './matterFitCore.js';
 import { matterFitScratch } from './matterFitScratch.js';
 import {
   MATTER_FIT_MIN_HITS, MATTER_FIT_MIN_PROBABILITY, MATTER_FIT_STATUS,
@@ -36,6 +36,8 @@ export interface MatterFitColumns {
   readonly chi2: Float64Array;
   readonly ndf: Int32Array;
   readonly pValue: Float64Array;
+  /** The stop constraint's χ² term (1 dof; NaN for a track fitted without it). */
+  readonly stopChi2: Float64Array;
   readonly pathLengthM: Float64Array;
   readonly residualRangeM: Float64Array;
   readonly reachedHits: Int32Array;
@@ -47,6 +49,12 @@ export interface MatterFitColumns {
   readonly statusCounts: Readonly<Record<MatterFitStatus, number>>;
 }
 
+/** Options of `fitTracksInMatter`: those of one track, and which tracks are known to stop. */
+export interface MatterBatchFitOptions extends MatterFitOptions {
+  /** Per track, 1 when it is known to stop (`MatterFitOptions.stops` for that track); overrides `stops`. */
+  readonly stoppingTracks?: ArrayLike<number>;
+}
+
 /**
  * `fitTrackInMatter` for every track of a columnar hit table, with one scratch for all tracks
  * (the batch path of `measureTracks` and `sagitta fit`). Same options, validity, sources and
@@ -54,9 +62,11 @@ export interface MatterFitColumns {
  * allocated per track but the hit views.
  * @example fitTracksInMatter(hits, offsets, { fieldT: 2, medium: material('liquid-propane'), particle: PROTON, hitErrorM: 2e-4 }).pGeV
  */
-export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Array, options: MatterFitOptions): MatterFitColumns {
+export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Array, options: MatterBatchFitOptions): MatterFitColumns {
   const count = offsets.length - 1;
   if (count < 0 || offsets[count] > hits.x.length) throw msg.badArgument('offsets', offsets.length, 'track offsets into the hit columns (count + 1 entries)');
+  const stopping = options.stoppingTracks;
+  if (stopping !== undefined && stopping.length !== count) throw msg.badArgument('stoppingTracks', stopping.length, `one flag per track (${count})`);
   const set = matterFitSettings(options);
   if (hits.sigmaX === undefined && options.hitErrorM === undefined) throw msg.badArgument('hitErrorM', undefined, 'a hit error in metres (the hits carry no sigma columns)');
   const model = lossModel(options.medium, options.particle);
@@ -64,7 +74,7 @@ export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Ar
   const out = {
     count, particle: options.particle.name, status: new Uint8Array(count),
     pGeV: f(), sigmaPGeV: f(), ptGeV: f(), kappa: f(), sigmaKappa: f(), phi: f(), tanLambda: f(), xM: f(), yM: f(), zM: f(),
-    pLastGeV: f(), sigmaPLastGeV: f(), charge: f(), chi2: f(), ndf: new Int32Array(count), pValue: f(), pathLengthM: f(),
+    pLastGeV: f(), sigmaPLastGeV: f(), charge: f(), chi2: f(), ndf: new Int32Array(count), pValue: f(), stopChi2: f(), pathLengthM: f(),
     residualRangeM: f(), reachedHits: new Int32Array(count), stopsBeforeNextHit: new Uint8Array(count), iterations: new Int32Array(count),
     firstState: new Float64Array(5 * count), firstCov: new Float64Array(25 * count),
   };
@@ -92,7 +102,7 @@ export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Ar
   function fitOne(h: MatterTrackHits, n: number, k: number): MatterFitStatus {
     if (n < MATTER_FIT_MIN_HITS) return failed(k, 'too-few-hits', 0);
     if (!inputsFinite(h, set.hitErrorM)) return failed(k, 'bad-input', 0);
-    const run = fitIntoScratch(model, h, set, sc, false);
+    const run = fitIntoScratch(model, h, set, sc, false, stopping !== undefined ? stopping[k] === 1 : options.stops === true);
     if (run.status !== 'ok') return failed(k, run.status, run.reachedHits);
     hit.n = n; hit.tanLambda = run.tanLambda;
     hit.last = true;
@@ -105,19 +115,19 @@ export function fitTracksInMatter(hits: MatterTrackColumnsHits, offsets: Int32Ar
     out.phi[k] = out.firstState[5 * k]; out.tanLambda[k] = out.firstState[5 * k + 1];
     out.xM[k] = scalars[END_X]; out.yM[k] = scalars[END_Y]; out.zM[k] = scalars[END_Z];
     out.charge[k] = -Math.sign(scalars[END_KAPPA]) * Math.sign(options.fieldT) * model.chargeAbs;
-    const ndf = n - 3 + (hit.hasZ ? n - 2 : 0), pValue = chi2Survival(run.chi2, ndf);
+    const ndf = matterFitNdf(n, hit.hasZ, run.constrained), pValue = chi2Survival(run.chi2, ndf);
     const path = sc.path[n - 1], residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
-    out.chi2[k] = run.chi2; out.ndf[k] = ndf; out.pValue[k] = pValue; out.pathLengthM[k] = path;
+    out.chi2[k] = run.chi2; out.ndf[k] = ndf; out.pValue[k] = pValue; out.stopChi2[k] = run.stopChi2; out.pathLengthM[k] = path;
     out.residualRangeM[k] = residualRangeM; out.reachedHits[k] = n; out.stopsBeforeNextHit[k] = residualRangeM < path / (n - 1) ? 1 : 0;
     out.iterations[k] = run.iterations;
-    return pValue < MATTER_FIT_MIN_PROBABILITY ? 'poor-fit' : 'ok';
+    return convergedStatus(pValue, run.stopChi2);
   }
 
   /** A track not fitted: NaN numbers (as `fitTrackInMatter` gives), the hits reached. */
   function failed(k: number, status: MatterFitStatus, reached: number): MatterFitStatus {
     out.pGeV[k] = NaN; out.sigmaPGeV[k] = NaN; out.ptGeV[k] = NaN; out.kappa[k] = NaN; out.sigmaKappa[k] = NaN;
     out.phi[k] = NaN; out.tanLambda[k] = NaN; out.xM[k] = NaN; out.yM[k] = NaN; out.zM[k] = NaN;
-    out.pLastGeV[k] = NaN; out.sigmaPLastGeV[k] = NaN; out.charge[k] = NaN; out.chi2[k] = NaN; out.ndf[k] = 0; out.pValue[k] = NaN;
+    out.pLastGeV[k] = NaN; out.sigmaPLastGeV[k] = NaN; out.charge[k] = NaN; out.chi2[k] = NaN; out.ndf[k] = 0; out.pValue[k] = NaN; out.stopChi2[k] = NaN;
     out.pathLengthM[k] = NaN; out.residualRangeM[k] = NaN; out.reachedHits[k] = reached; out.stopsBeforeNextHit[k] = status === 'cannot-reach' ? 1 : 0;
     out.iterations[k] = 0;
     out.firstState.fill(NaN, 5 * k, 5 * k + 5); out.firstCov.fill(NaN, 25 * k, 25 * k + 25);

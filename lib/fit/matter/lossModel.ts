@@ -5,6 +5,7 @@ import { radiationLengthM } from '../../matter/highland.js';
 import type { Material } from '../../matter/materials.js';
 import type { Particle } from '../../particles.js';
 import { ELECTRON_MASS_MEV } from '../../constants.js';
+import { rangeStragglingVariances } from '../../matter/rangeStraggling.js';
 
 /**
  * What the track fit needs from lib/matter for one species in one material, prepared once:
@@ -38,6 +39,11 @@ export interface LossModel {
    * Gaussian use as process noise in track fits is common practice). Its mean is in the range table.
    */
   readonly radiativeVariancePerX0: number;
+  /**
+   * Heavy particles only (empty for e±): range-straggling variance [(g/cm²)²] from each node of
+   * `table` to rest (`rangeStragglingVariances`), for the stop constraint.
+   */
+  readonly rangeStragglingVariance: Float64Array;
 }
 
 /** ln(4/3)/ln 2: the Bethe–Heitler variance of the relative energy loss per radiation length (thin layers). */
@@ -59,6 +65,7 @@ export function lossModel(material: Material, particle: Particle): LossModel {
   const gcm2PerM = material.densityGcm3 * 100;
   const table = cachedRange(particle, material), r = table.csdaRangeGcm2;
   const invCellWidth = new Float64Array(Math.max(0, r.length - 1));
+  const electron = Math.abs(particle.massMeV - ELECTRON_MASS_MEV) < 1e-6;
   for (let i = 0; i < invCellWidth.length; i++) invCellWidth[i] = 1 / (r[i + 1] - r[i]);
   m = Object.freeze({
     table,
@@ -72,7 +79,8 @@ export function lossModel(material: Material, particle: Particle): LossModel {
     lnChargeSq: Math.log(particle.charge * particle.charge),
     massGeVSq: (particle.massMeV / 1000) ** 2,
     stragglingMeV2PerM: bohrVarianceMeV2(material.zOverA, particle.charge, gcm2PerM),
-    radiativeVariancePerX0: Math.abs(particle.massMeV - ELECTRON_MASS_MEV) < 1e-6 ? BETHE_HEITLER_VARIANCE_PER_X0 : 0,
+    radiativeVariancePerX0: electron ? BETHE_HEITLER_VARIANCE_PER_X0 : 0,
+    rangeStragglingVariance: electron ? new Float64Array(0) : rangeStragglingVariances(table, particle, material),
   });
   byParticle.set(key, m);
   return m;

@@ -43,16 +43,27 @@ export function inputsFinite(h: MatterTrackHits, hitErrorM: number): boolean {
 /**
  * The fit of one track (at least MATTER_FIT_MIN_HITS finite hits) into the scratch: the
  * iterations (`runMatterFitIterations`), then the range-end error added to the curvature
- * variances at both ends. When the run is 'ok' the scratch holds the reference and the filter
+ * variances at both ends (with `stops` and energy loss: the stop constraint instead, see
+ * `stopConstraint`, after a fit without it whose χ² gives `stopChi2` = Δχ², the likelihood-ratio
+ * test of the constraint with 1 degree of freedom; NaN when either fit failed or there is no
+ * constraint). When the run is 'ok' the scratch holds the reference and the filter
  * outputs at the first and the last hit for `endState` (and the smoothed residuals when
  * `withResiduals`). A fit held at the reach limit whose hits reject it (χ² probability below
  * `MATTER_FIT_MIN_PROBABILITY`) is 'cannot-reach': the hypothesis cannot reach them.
  */
-export function fitIntoScratch(model: LossModel, hits: MatterTrackHits, set: MatterFitSettings, sc: MatterFitScratch, withResiduals: boolean): MatterFitRun {
+export function fitIntoScratch(model: LossModel, hits: MatterTrackHits, set: MatterFitSettings, sc: MatterFitScratch, withResiduals: boolean, stops = false): MatterFitRun {
   const n = hits.x.length;
-  const run = runMatterFitIterations(model, hits, set, sc, set.maxIterations, withResiduals);
+  let free = NaN;
+  if (stops && set.energyLoss) {
+    // The fit without the constraint first: Δχ² between the two tests the claim that the track stops.
+    const f = runMatterFitIterations(model, hits, set, sc, set.maxIterations, false);
+    if (f.status === 'ok') free = f.chi2;
+  }
+  const fit = runMatterFitIterations(model, hits, set, sc, set.maxIterations, withResiduals, stops && set.energyLoss);
+  const run = fit.constrained ? { ...fit, stopChi2: Math.max(0, fit.chi2 - free) } : fit;
   if (run.status !== 'ok') return run;
-  if (run.atReachLimit && chi2Survival(run.chi2, n - 3 + (hits.z ? n - 2 : 0)) < MATTER_FIT_MIN_PROBABILITY) return { ...run, status: 'cannot-reach' };
+  if (run.atReachLimit && chi2Survival(run.chi2, matterFitNdf(n, hits.z !== undefined, run.constrained)) < MATTER_FIT_MIN_PROBABILITY) return { ...run, status: 'cannot-reach' };
+  if (run.constrained) return run; // the stop constraint already holds the stopping point and the straggling
   const residualRangeM = set.energyLoss ? sc.range[n - 1] / model.gcm2PerM : Infinity;
   const spacingM = sc.path[n - 1] / (n - 1);
   const stopVariance = residualRangeM < spacingM ? ((spacingM * model.gcm2PerM) ** 2) / 12 : 0;
@@ -63,6 +74,16 @@ export function fitIntoScratch(model: LossModel, hits: MatterTrackHits, set: Mat
     addRangeVariance(model, sc, n - 1, sc.lastB, extra);
   }
   return run;
+}
+
+/** The status of a converged fit: 'poor-fit' when its χ² probability, or that of its stop constraint's term (1 dof), is below MATTER_FIT_MIN_PROBABILITY. */
+export function convergedStatus(pValue: number, stopChi2: number): 'ok' | 'poor-fit' {
+  return pValue < MATTER_FIT_MIN_PROBABILITY || chi2Survival(stopChi2, 1) < MATTER_FIT_MIN_PROBABILITY ? 'poor-fit' : 'ok';
+}
+
+/** Degrees of freedom of a fit of n hits: n − 3 bending-plane, n − 2 in z, one more with the stop constraint. */
+export function matterFitNdf(n: number, hasZ: boolean, constrained: boolean): number {
+  return n - 3 + (hasZ ? n - 2 : 0) + (constrained ? 1 : 0);
 }
 
 /**

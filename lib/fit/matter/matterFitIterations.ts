@@ -6,6 +6,7 @@ import type { MatterFitScratch } from './matterFitScratch.js';
 import type { MatterTrackHits } from './matterTrackFit.js';
 import { buildReference, REFERENCE_DIVERGED, REFERENCE_OK, type ReferenceSettings } from './referenceTrack.js';
 import { seedState } from './seedState.js';
+import { stopConstraint } from './stopConstraint.js';
 
 /** Outcome of the iterations: the converged reference stays in the scratch. */
 export interface MatterFitRun {
@@ -22,6 +23,10 @@ export interface MatterFitRun {
   readonly extraRangeVariance: number;
   /** Whether the −2 ln L profile was made (a track ending within a few spacings of its range end). */
   readonly profiled: boolean;
+  /** Whether the stop constraint (`stopConstraint`) is in the fit: one measurement more in χ² and ndf. */
+  readonly constrained: boolean;
+  /** Δχ² of the stop constraint (set by `fitIntoScratch`, NaN here and without the constraint). */
+  readonly stopChi2: number;
   /**
    * Whether the fit ended against the reach limit: the hits asked for a first-hit momentum whose
    * mean-loss range ends before the last hit, and the reported state is the last one that reaches it.
@@ -72,13 +77,15 @@ const MAX_HALVINGS = 8;
  * backward filter; move the start by the filtered deviation, halving the move when the new
  * start cannot reach every hit or raises χ² (by more than max(2, 2 %)); stop when every component moved by < 1 % of its error. Then one
  * forward pass on the last reference for the last-hit state and (`withResiduals`) the smoothed
- * residuals.
+ * residuals. With `stops` (the track is known to stop after its last hit) every backward pass
+ * takes the stop constraint at the first hit (`stopConstraint`), and so does the forward pass;
+ * the −2 ln L profile is then not made (the constraint closes the open side of the range).
  */
-export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, set: ReferenceSettings, sc: MatterFitScratch, maxIterations: number, withResiduals: boolean): MatterFitRun {
+export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, set: ReferenceSettings, sc: MatterFitScratch, maxIterations: number, withResiduals: boolean, stops = false): MatterFitRun {
   const n = hits.x.length;
   const hasZ = hits.z !== undefined;
   const start = sc.start, good = sc.good, delta = sc.delta;
-  if (!seedState(hits, model, set.fieldT, set.energyLoss, start, sc.tmp)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
+  if (!seedState(hits, model, set.fieldT, set.energyLoss, start, sc.tmp)) return { status: 'diverged', reachedHits: 0, iterations: 0, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, constrained: false, stopChi2: NaN, atReachLimit: false };
   const prior = sc.prior;
   let goodChi2 = Infinity, lastBuildGood = false, goodRange = Infinity, haveGood = false, lambda = 1, halvings = 0, chi2 = NaN, converged = false, reached = n, iterations = 0, tries = 0;
   let atReachLimit = false;
@@ -86,11 +93,11 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     tries++;
     const code = buildReference(model, hits, start, set, sc);
     lastBuildGood = code === REFERENCE_OK;
-    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
+    if (code === REFERENCE_DIVERGED) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, constrained: false, stopChi2: NaN, atReachLimit: false };
     if (code !== REFERENCE_OK) {
       reached = code;
       if (++halvings > MAX_HALVINGS) {
-        if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
+        if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, constrained: false, stopChi2: NaN, atReachLimit: false };
         // Every move from the last reaching state towards the hits' optimum stops short of the
         // last hit: the optimum lies beyond the reach limit (range straggling carries a real
         // particle past its mean-loss range), so the constrained fit is that state itself.
@@ -103,7 +110,7 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
       continue;
     }
     if (!haveGood) setPrior(prior, start);
-    chi2 = backwardPass(sc, n, hasZ, prior, withResiduals);
+    chi2 = backwardPass(sc, n, hasZ, prior, withResiduals, false, stops ? stopHit(model, sc, hits, set, start[5]) : -1);
     if (haveGood && chi2 > goodChi2 + Math.max(2, 0.02 * goodChi2) && halvings < MAX_HALVINGS) {
       // The move made the fit worse (it overshot into the steep end of the range): halve it.
       halvings++; lambda *= 0.5; lastBuildGood = false;
@@ -121,26 +128,26 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     delta[4] = hasZ ? zb[0] : 0; delta[5] = hasZ ? zb[1] : 0;
     const lim = nearlyLinear(sc, n) ? CONVERGED_SIGMAS_LINEAR : CONVERGED_SIGMAS;
     converged = small(b[0], b[3], lim) && small(b[1], b[7], lim) && small(b[2], b[11], lim) && (!hasZ || (small(zb[0], zb[2], lim) && small(zb[1], zb[5], lim)));
-    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
+    if (!Number.isFinite(chi2 + b[2] + b[11])) return { status: 'diverged', reachedHits: 0, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, constrained: false, stopChi2: NaN, atReachLimit: false };
     if (converged) break;
     goodRange = sc.range[0] - sc.range[n - 1] < LOSS_FRACTION_RANGE_MOVE * sc.range[0] ? Infinity : sc.range[0];
     moveStart(model, set, sc, start, good, delta, 1, goodRange);
   }
-  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
+  if (!haveGood) return { status: 'cannot-reach', reachedHits: reached, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, constrained: false, stopChi2: NaN, atReachLimit: false };
   if (!converged) {
     // Accept the last reachable state only when its last move was within its error; rebuild its
     // reference when a later trial overwrote it.
-    if (!atReachLimit && !(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
+    if (!atReachLimit && !(delta[3] * delta[3] <= sc.firstB[11])) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, constrained: false, stopChi2: NaN, atReachLimit: false };
     if (!lastBuildGood) {
-      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
-      chi2 = backwardPass(sc, n, hasZ, prior, withResiduals);
+      if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, constrained: false, stopChi2: NaN, atReachLimit: false };
+      chi2 = backwardPass(sc, n, hasZ, prior, withResiduals, false, stops ? stopHit(model, sc, hits, set, good[5]) : -1);
     }
     // Report the reachable state itself, not the move beyond it.
     sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0;
   }
   let extraRangeVariance = 0, profiled = false;
   const spacingGcm2 = (sc.path[n - 1] / (n - 1)) * model.gcm2PerM;
-  if (set.energyLoss && sc.range[n - 1] < PROFILE_SPACINGS * spacingGcm2) {
+  if (set.energyLoss && !stops && sc.range[n - 1] < PROFILE_SPACINGS * spacingGcm2) {
     const b = sc.firstB, est = sc.est;
     est.set(good);
     est[0] += delta[0]; est[1] += delta[1]; est[2] += b[1] * (converged ? 1 : 0); est[3] += b[2] * (converged ? 1 : 0);
@@ -155,12 +162,19 @@ export function runMatterFitIterations(model: LossModel, hits: MatterTrackHits, 
     const sigmaLin = (p0 / Math.abs(est[3])) * ((p0 / (sc.tmp[0] + m)) / sc.tmp[1]) * sigmaLinK;
     if (Number.isFinite(sigmaR) && sigmaR > sigmaLin) extraRangeVariance = sigmaR * sigmaR - sigmaLin * sigmaLin;
     // The scan overwrote the scratch: rebuild the fitted reference.
-    if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, atReachLimit: false };
+    if (buildReference(model, hits, good, set, sc) !== REFERENCE_OK) return { status: 'diverged', reachedHits: n, iterations, chi2: NaN, tanLambda: NaN, extraRangeVariance: 0, profiled: false, constrained: false, stopChi2: NaN, atReachLimit: false };
     chi2 = backwardPass(sc, n, hasZ, prior, withResiduals);
     if (!converged) { sc.firstB[0] = 0; sc.firstB[1] = 0; sc.firstB[2] = 0; sc.firstZ[0] = 0; sc.firstZ[1] = 0; }
   }
-  forwardPass(sc, n, hasZ, prior, withResiduals);
-  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5], extraRangeVariance, profiled, atReachLimit };
+  const stopAt = stops ? stopHit(model, sc, hits, set, good[5]) : -1;
+  const constrained = stopAt >= 0;
+  forwardPass(sc, n, hasZ, prior, withResiduals, stopAt);
+  return { status: 'ok', reachedHits: n, iterations, chi2, tanLambda: good[5], extraRangeVariance, profiled, constrained, stopChi2: NaN, atReachLimit };
+}
+
+/** The stop constraint of the reference in the scratch (`stopConstraint`, into sc.stop): its hit, or −1 when none can be made. */
+function stopHit(model: LossModel, sc: MatterFitScratch, hits: MatterTrackHits, set: ReferenceSettings, tanLambda: number): number {
+  return stopConstraint(model, sc, hits, set.hitErrorM, set.fieldT, tanLambda) ? sc.stop[0] : -1;
 }
 
 /** Whether a change d is below `lim` standard errors (variance v). */

@@ -24,6 +24,8 @@ export interface MatterFitScratch {
   start: Float64Array; good: Float64Array; delta: Float64Array; est: Float64Array; prior: Float64Array;
   /** Filter outputs: state (3) + cov (9) bending, state (2) + cov (4) z, at the first and last hit. */
   firstB: Float64Array; firstZ: Float64Array; lastB: Float64Array; lastZ: Float64Array;
+  /** The stop constraint of the current reference (`stopConstraint`): its hit, the measured δκ there [1/m] and its variance. */
+  stop: Float64Array;
 }
 
 export function matterFitScratch(capacity: number): MatterFitScratch {
@@ -37,6 +39,7 @@ export function matterFitScratch(capacity: number): MatterFitScratch {
     cur: new Float64Array(17), tmp: new Float64Array(16),
     start: new Float64Array(6), good: new Float64Array(6), delta: new Float64Array(6), est: new Float64Array(6), prior: new Float64Array(5),
     firstB: new Float64Array(12), firstZ: new Float64Array(6), lastB: new Float64Array(12), lastZ: new Float64Array(6),
+    stop: new Float64Array(3),
   };
 }
 

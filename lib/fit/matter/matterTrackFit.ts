@@ -23,12 +23,23 @@ export interface MatterFitOptions {
   readonly energyLoss?: boolean;
   /** Largest number of re-linearisations; default 12. */
   readonly maxIterations?: number;
+  /**
+   * The track is known to stop: it ends inside the chamber (away from every wall) and nothing
+   * leaves its end point, so the particle comes to rest within one mean hit spacing after its
+   * last hit. Adds the range–energy constraint (`stopConstraint`: momentum from range, with
+   * range straggling) to the fit — one measurement more in χ² and ndf, so a track that did not
+   * stop (a decay in flight, an exit through a gap, a wrong mass) shows as a poor fit. Needs
+   * energy loss on; ignored for e± (their range is not Gaussian). Default false. For
+   * `fitTracksInMatter`, `stoppingTracks` gives it per track.
+   */
+  readonly stops?: boolean;
 }
 
 /**
  * Outcome of a fit:
  * - 'ok': converged, χ² probability ≥ `MATTER_FIT_MIN_PROBABILITY`;
- * - 'poor-fit': converged, but the χ² probability is below that threshold (a wrong mass
+ * - 'poor-fit': converged, but the χ² probability (or that of the stop constraint's own term,
+ *   `stopChi2`) is below that threshold (a wrong mass
  *   hypothesis, a kink or decay, a wrong hit error, a merged track): numbers are given, not trusted;
  * - 'cannot-reach': the hypothesis stops (its CSDA range is used up) before the hit
  *   `reachedHits` — no momentum at the first hit lets it reach all hits, or only momenta whose
@@ -88,6 +99,14 @@ export interface MatterTrackFit {
   readonly ndf: number;
   /** P(χ²_ndf ≥ χ²). */
   readonly pValue: number;
+  /**
+   * With the stop constraint (`stops`): its own χ² term, 1 degree of freedom — the curvature the
+   * hits measure where it is applied against the one the range implies. NaN without it. A track
+   * that did not stop (it left through a gap, decayed in flight, or has another mass) shows here
+   * first: a term whose probability is below `MATTER_FIT_MIN_PROBABILITY` (χ² > 10.8) makes the
+   * fit 'poor-fit' however good the total χ² is.
+   */
+  readonly stopChi2: number;
   /** 3-D path length [m] from the first to the last hit along the fitted track. */
   readonly pathLengthM: number;
   /** CSDA range [m] left at the last hit under the hypothesis (Infinity without energy loss). */
