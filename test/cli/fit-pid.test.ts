@@ -71,3 +71,31 @@ describe('sagitta fit --particle auto (identification by range)', () => {
     await expect(runFit(hits, { ...base, particle: 'auto', volume: '160 cm,100 cm' })).rejects.toThrow(/--volume/);
   }, 120_000);
 });
+
+describe('sagitta fit --particle proton --volume (one species: tracks ending inside are fitted as stopping)', () => {
+  it('writes stops and stop_chi2, says how many were fitted as stopping, and measures the stopping protons from their range', async () => {
+    const held = join(dir, 'stop-proton.csv'), free = join(dir, 'free-proton.csv');
+    const summary = await runFit(hits, { ...base, particle: 'proton', volume: '160 cm,100 cm,60 cm', out: held });
+    await runFit(hits, { ...base, particle: 'proton', out: free });
+    expect(summary).toMatch(/\d+ tracks end 2 cm or more inside --volume: fitted as stopping \(momentum from range\)/);
+    const a = readCsv(held), b = readCsv(free);
+    expect(Object.keys(a[0])).toEqual(expect.arrayContaining(['stops', 'stop_chi2']));
+    expect(Object.keys(b[0])).not.toContain('stops');
+    const index = new Map<string, number>();
+    for (let i = 0; i < truth.length; i++) index.set(`${truth.event[i]}/${truth.track[i]}`, i);
+    const width = (rows: Record<string, string>[]) => {
+      const rel: number[] = [];
+      for (const r of rows) {
+        const t = index.get(`${r.event}/${r.track}`)!;
+        if (truth.species[t] !== 'proton' || truth.process[t] !== 'stopping' || !(r.status === 'ok' || r.status === 'poor-fit')) continue;
+        rel.push(Math.abs(Number(r.p_GeV_c) / Math.hypot(truth.px[t], truth.py[t], truth.pz[t]) - 1));
+      }
+      rel.sort((x, y) => x - y);
+      return { n: rel.length, w68: rel[Math.floor(0.68 * rel.length)] };
+    };
+    const w = width(a), w0 = width(b);
+    process.stdout.write(`Hollowmere stopping protons: 68 % |Δp/p| ${(100 * w.w68).toFixed(2)} % with --volume, ${(100 * w0.w68).toFixed(2)} % without (${w.n} tracks)\n`);
+    expect(w.n).toBeGreaterThan(50);
+    expect(w.w68).toBeLessThan(w0.w68);
+  }, 120_000);
+});

@@ -103,3 +103,56 @@ describe('measureTracks with particle: auto — the momentum of an undecided tra
     expect(rms).toBeLessThan(1.15);
   });
 });
+
+describe('measureTracks with a material and a fiducial volume: tracks that end inside are fitted as stopping (issue 9)', () => {
+  const med = material('liquid-propane');
+  // Protons from the origin of a 4 m chamber; the simulator keeps at most 40 hits, so the slow ones
+  // range out (stop) and the fast ones are cut at their 40th hit as if by a wall.
+  const s = matterSample({ tracks: 300, species: PROTON, momentumGeV: [0.2, 0.5], material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: 40, tanLambda: [-0.2, 0.2], seed: 41, energyLoss: 'straggling' });
+  const hits = asHitTable(s);
+  const box = { min: [-1, -1, -1] as [number, number, number], max: [1, 1, 1] as [number, number, number] };
+
+  it('flags every track whose last hit lies 2 cm inside (endsInside), adds stops and stop_chi2, and measures the stopping ones from their range', () => {
+    const held = measureTracks(hits, { fieldT: 2, material: med, particle: PROTON, volume: box });
+    const free = measureTracks(hits, { fieldT: 2, material: med, particle: PROTON });
+    expect(Array.from(held.stops!)).toEqual(new Array(held.count).fill(1));
+    expect(free.stops).toBeUndefined();
+    const names = trackTableColumns(held).columns.map((c) => c.name);
+    expect(names.slice(names.indexOf('residual_range_m') + 1, names.indexOf('residual_range_m') + 3)).toEqual(['stops', 'stop_chi2']);
+    expect(trackTableColumns(free).columns.map((c) => c.name)).not.toContain('stops');
+    const width = (t: typeof held) => {
+      const v: number[] = [];
+      for (let k = 0; k < s.count; k++) if (s.stopped[k] && (t.status[k] === 'ok' || t.status[k] === 'poor-fit')) v.push(Math.abs(t.momentum.pGeV[k] / s.pFirstGeV[k] - 1));
+      v.sort((a, b) => a - b);
+      return { n: v.length, w68: v[Math.floor(0.68 * v.length)] };
+    };
+    const a = width(held), b = width(free);
+    expect(a.n).toBeGreaterThan(100);
+    expect(a.w68).toBeLessThan(0.4 * b.w68);
+    for (let k = 0; k < held.count; k++) {
+      if (held.status[k] !== 'ok' && held.status[k] !== 'poor-fit') continue;
+      expect(held.ndf[k]).toBe(free.ndf[k] + 1);
+      expect(held.matter!.stopChi2[k]).toBeGreaterThanOrEqual(0);
+    }
+  });
+
+  it('a box the tracks leave flags none: the fit is the one without the constraint, number for number', () => {
+    // A 20 cm box: every track (starting at the origin, ≥ 4 hits) that ends beyond 8 cm from the centre on some axis leaves it.
+    const small = { min: [-0.1, -0.1, -0.1] as [number, number, number], max: [0.1, 0.1, 0.1] as [number, number, number] };
+    const held = measureTracks(hits, { fieldT: 2, material: med, particle: PROTON, volume: small });
+    const free = measureTracks(hits, { fieldT: 2, material: med, particle: PROTON });
+    let inside = 0, outside = 0;
+    for (let k = 0; k < held.count; k++) {
+      const last = held.offsets[k + 1] - 1;
+      const isInside = [held.hits.x[last], held.hits.y[last], held.hits.z![last]].every((v) => Math.abs(v) <= 0.08);
+      expect(held.stops![k]).toBe(isInside ? 1 : 0);
+      if (isInside) inside++;
+      else {
+        outside++;
+        if (Number.isFinite(free.momentum.pGeV[k])) expect(held.momentum.pGeV[k]).toBe(free.momentum.pGeV[k]);
+      }
+    }
+    expect(inside).toBeGreaterThan(20);
+    expect(outside).toBeGreaterThan(20);
+  });
+});
