@@ -16,10 +16,15 @@ export interface ChunkSettings {
   readonly jobOptions: unknown;
 }
 
-/** A chunk that holds a ready hit table (columnar inputs are read into tables by the main thread). */
+/**
+ * A chunk that holds a ready hit table: columnar inputs are read into tables by the main thread,
+ * and so are text chunks it parses before handing them to a worker (`parseTextChunk`; `lines`
+ * then carries their line ends).
+ */
 export interface TableChunk {
   readonly kind: 'table';
   readonly hits: HitTable;
+  readonly lines?: number;
 }
 
 export type Chunk = TextChunk | TableChunk;
@@ -55,20 +60,8 @@ export const POSITION_COLUMN = 'first_hit_position';
 export function processChunk(chunk: Chunk, job: BatchJob<unknown>, s: ChunkSettings): ChunkOutcome {
   consumeWarnings();
   const positions = s.shard !== undefined;
-  let all: HitTable;
-  let lines = 0;
-  if (chunk.kind === 'table') all = chunk.hits;
-  else {
-    const counted = { lineEnds: 0 };
-    const rows = { start: 0, end: chunk.bytes.length, firstLine: 1, positionBase: chunk.positionBase, positions, allowEmpty: true, counted };
-    if (chunk.kind === 'csv') {
-      all = parseCsvRows(chunk.bytes, chunk.layout!, s.file, rows);
-      lines = counted.lineEnds;
-    } else {
-      all = parseJsonlRows(chunk.bytes, s.file, rows, { lengthUnit: s.lengthUnit }, chunk.fields);
-      for (let i = chunk.bytes.indexOf(10); i >= 0; i = chunk.bytes.indexOf(10, i + 1)) lines++;
-    }
-  }
+  const parsed = chunk.kind === 'table' ? chunk : parseTextChunk(chunk, s);
+  const all = parsed.hits, lines = parsed.lines ?? 0;
   const counts: Record<string, number> = {};
   const events = eventRuns(all);
   let hits = all;
@@ -92,6 +85,24 @@ export function processChunk(chunk: Chunk, job: BatchJob<unknown>, s: ChunkSetti
     warnings: consumeWarnings(), samples: out.samples, hasZ: out.hasZ, method: out.method, estimatedErrors: out.estimatedErrors,
     units: { ...all.source.units }, ignoredColumns: all.source.ignoredColumns,
   };
+}
+
+/**
+ * A text chunk parsed into its hit table (line numbers counted from 1 within it), with its line
+ * ends; the rows record their byte offsets when the run is sharded. Throws the reader's located
+ * error (its line within the chunk).
+ */
+export function parseTextChunk(chunk: TextChunk, s: ChunkSettings): TableChunk {
+  const counted = { lineEnds: 0 };
+  const rows = { start: 0, end: chunk.bytes.length, firstLine: 1, positionBase: chunk.positionBase, positions: s.shard !== undefined, allowEmpty: true, counted };
+  if (chunk.kind === 'csv') {
+    const hits = parseCsvRows(chunk.bytes, chunk.layout!, s.file, rows);
+    return { kind: 'table', hits, lines: counted.lineEnds };
+  }
+  const hits = parseJsonlRows(chunk.bytes, s.file, rows, { lengthUnit: s.lengthUnit }, chunk.fields);
+  let lines = 0;
+  for (let i = chunk.bytes.indexOf(10); i >= 0; i = chunk.bytes.indexOf(10, i + 1)) lines++;
+  return { kind: 'table', hits, lines };
 }
 
 /** Rows as bytes: CSV without header, JSON Lines, or JSON array elements each led by ",\n". */
