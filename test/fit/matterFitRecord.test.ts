@@ -14,7 +14,7 @@ import { goldenUpdateRequested } from '../expectGolden.js';
  * matterFit*.test.ts against Gluckstern, Highland and simulated truth): small simulated samples
  * in each regime the fit has — slowing and stopping protons (the reach limit, the range profile at
  * the wall), protons leaving just before their range end, muons in liquid hydrogen, pions in argon,
- * electron spirals (bremsstrahlung noise), a mass that cannot reach the hits, alphas (|z| = 2), hits out of order, an iteration cap, and the fit without scattering or without loss — with
+ * electron spirals (bremsstrahlung noise), a mass that cannot reach the hits, alphas (|z| = 2), hits out of order, an iteration cap, the fit without scattering or without loss, and the stop constraint (on stopping tracks, and on tracks wrongly taken to stop, without z) — with
  * every reported number compared against the recorded one to 1e-7 relative. Its job is to catch a
  * change nobody meant, quickly: the statistical tests need 10⁴ tracks and half a minute each, too
  * slow for mutation testing (test/mutation.md), while this file runs in about a second. A
@@ -24,7 +24,7 @@ import { goldenUpdateRequested } from '../expectGolden.js';
 const RECORD = fileURLToPath(new URL('./golden/matterFit-record.json', import.meta.url));
 const RELATIVE = 1e-7;
 
-interface Case { readonly name: string; readonly species: Particle; readonly medium: string; readonly p: readonly [number, number]; readonly maxHits: number; readonly fitAs?: Particle; readonly scramble?: boolean; readonly options?: { multipleScattering?: boolean; energyLoss?: boolean; maxIterations?: number } }
+interface Case { readonly name: string; readonly species: Particle; readonly medium: string; readonly p: readonly [number, number]; readonly maxHits: number; readonly fitAs?: Particle; readonly scramble?: boolean; readonly straggling?: boolean; readonly stopping?: 'truth' | 'all'; readonly options?: { multipleScattering?: boolean; energyLoss?: boolean; maxIterations?: number } }
 const CASES: readonly Case[] = [
   { name: 'protons stopping in propane', species: PROTON, medium: 'liquid-propane', p: [0.3, 0.5], maxHits: 60 },
   { name: 'protons leaving near their range end', species: PROTON, medium: 'liquid-propane', p: [0.45, 0.62], maxHits: 50 },
@@ -37,6 +37,8 @@ const CASES: readonly Case[] = [
   { name: 'stopping protons, at most two iterations', species: PROTON, medium: 'liquid-propane', p: [0.3, 0.5], maxHits: 60, options: { maxIterations: 2 } },
   { name: 'muons with their hits out of order (the fit steps back along the helix)', species: MUON_MINUS, medium: 'liquid-propane', p: [0.1, 0.4], maxHits: 40, scramble: true },
   { name: 'pions in propane, no energy loss', species: PION_PLUS, medium: 'liquid-propane', p: [0.5, 5], maxHits: 50, options: { energyLoss: false } },
+  { name: 'stopping pions with the stop constraint (straggling simulated)', species: PION_PLUS, medium: 'liquid-propane', p: [0.05, 0.3], maxHits: 60, straggling: true, stopping: 'truth' },
+  { name: 'protons taken to stop, stopping or not (2-D hits: no z)', species: PROTON, medium: 'liquid-propane', p: [0.2, 0.6], maxHits: 40, straggling: true, stopping: 'all' },
 ];
 
 type Record = { [name: string]: { [column: string]: (number | string)[] } };
@@ -46,8 +48,10 @@ function measure(): Record {
   const out: Record = {};
   for (const c of CASES) {
     const med = material(c.medium);
-    const s = matterSample({ tracks: 24, species: c.species, momentumGeV: c.p, material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: c.maxHits, tanLambda: [-0.3, 0.3], seed: 4 });
-    const hits = { x: s.x, y: s.y, z: s.z, sigmaX: s.sigma, sigmaY: s.sigma, sigmaZ: s.sigma };
+    const s = matterSample({ tracks: 24, species: c.species, momentumGeV: c.p, material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: c.maxHits, tanLambda: [-0.3, 0.3], seed: 4, ...(c.straggling ? { energyLoss: 'straggling' as const } : {}) });
+    const planar = c.stopping === 'all';
+    const hits = planar ? { x: s.x, y: s.y, sigmaX: s.sigma, sigmaY: s.sigma } : { x: s.x, y: s.y, z: s.z, sigmaX: s.sigma, sigmaY: s.sigma, sigmaZ: s.sigma };
+    const stopping = c.stopping === 'truth' ? s.stopped : c.stopping === 'all' ? new Uint8Array(s.count).fill(1) : undefined;
     if (c.scramble) {
       // Swap hits i and n−1−i for every other i of each track: a path that doubles back.
       for (let k = 0; k < s.count; k++) {
@@ -55,17 +59,21 @@ function measure(): Record {
         for (let i = 1; i < n >> 1; i += 2) for (const col of [s.x, s.y, s.z]) { const t = col[a + i]; col[a + i] = col[a + n - 1 - i]; col[a + n - 1 - i] = t; }
       }
     }
-    const f = fitTracksInMatter(hits, s.offsets, { fieldT: 2, medium: med, particle: c.fitAs ?? c.species, ...c.options });
+    const f = fitTracksInMatter(hits, s.offsets, { fieldT: 2, medium: med, particle: c.fitAs ?? c.species, ...c.options, ...(stopping ? { stoppingTracks: stopping } : {}) });
     const num = (a: ArrayLike<number>) => Array.from(a, (v) => (Number.isFinite(v) ? Number(v.toPrecision(12)) : String(v)));
     const row: { [column: string]: (number | string)[] } = {
       status: Array.from(f.status), p: num(f.pGeV), sigmaP: num(f.sigmaPGeV), kappa: num(f.kappa), sigmaKappa: num(f.sigmaKappa),
       phi: num(f.phi), tanLambda: num(f.tanLambda), x: num(f.xM), y: num(f.yM), z: num(f.zM), pLast: num(f.pLastGeV), sigmaPLast: num(f.sigmaPLastGeV),
       chi2: num(f.chi2), ndf: num(f.ndf), pValue: num(f.pValue), path: num(f.pathLengthM), residualRange: num(f.residualRangeM),
       reachedHits: num(f.reachedHits), iterations: num(f.iterations), firstCov: num(f.firstCov),
+      ...(stopping ? { stopChi2: num(f.stopChi2) } : {}),
     };
-    // The single-track path with its smoothed residuals, on the first track.
-    const a = s.offsets[0], b = s.offsets[1];
-    const one = fitTrackInMatter({ x: s.x.subarray(a, b), y: s.y.subarray(a, b), z: s.z.subarray(a, b), sigmaX: s.sigma.subarray(a, b), sigmaY: s.sigma.subarray(a, b), sigmaZ: s.sigma.subarray(a, b) }, { fieldT: 2, medium: med, particle: c.fitAs ?? c.species, ...c.options });
+    // The single-track path with its smoothed residuals, on the first track (the first one taken to stop, with the constraint).
+    const k0 = stopping ? Math.max(0, stopping.indexOf(1)) : 0, a = s.offsets[k0], b = s.offsets[k0 + 1];
+    const view = planar
+      ? { x: s.x.subarray(a, b), y: s.y.subarray(a, b), sigmaX: s.sigma.subarray(a, b), sigmaY: s.sigma.subarray(a, b) }
+      : { x: s.x.subarray(a, b), y: s.y.subarray(a, b), z: s.z.subarray(a, b), sigmaX: s.sigma.subarray(a, b), sigmaY: s.sigma.subarray(a, b), sigmaZ: s.sigma.subarray(a, b) };
+    const one = fitTrackInMatter(view, { fieldT: 2, medium: med, particle: c.fitAs ?? c.species, ...c.options, stops: stopping !== undefined && stopping[k0] === 1 });
     row.firstTrackResiduals = num(one.residualM);
     row.firstTrackResidualsZ = num(one.residualZM);
     row.firstTrackLast = num([one.last.pGeV, one.last.sigmaPGeV, one.last.kappa, one.last.xM, one.last.yM, one.last.zM, ...one.last.cov]);
@@ -75,7 +83,7 @@ function measure(): Record {
 }
 
 describe('fit with material: regression record (closure with this code, not a physics check)', () => {
-  it('reproduces every recorded number of eleven small samples to 1e-7 relative', () => {
+  it('reproduces every recorded number of thirteen small samples to 1e-7 relative', () => {
     const now = measure();
     if (goldenUpdateRequested()) {
       writeFileAtomic(RECORD, `${JSON.stringify(now, null, 1)}\n`);
