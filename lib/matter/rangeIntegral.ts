@@ -168,6 +168,32 @@ export function cachedRangeAt(c: CachedRange, kineticEnergyMeV: number): number 
   return hermite(t[i], t[i + 1], r[i], r[i + 1], 1 / s[i], 1 / s[i + 1], kineticEnergyMeV);
 }
 
+/**
+ * `cachedEnergyAt` for a caller whose ranges change little from call to call (the hits of a
+ * track): the table cell is searched from `cell[0]`, the cell of the previous call, by steps
+ * (a binary search when it is more than a few cells away), and left there. The same numbers.
+ */
+export function cachedEnergyAtCell(c: CachedRange, rangeGcm2: number, cell: Int32Array): number {
+  const t = c.kineticEnergyMeV, s = c.stoppingPowerMeVcm2g, r = c.csdaRangeGcm2;
+  const n = r.length;
+  if (!(rangeGcm2 > r[0]) || rangeGcm2 >= r[n - 1]) return cachedEnergyAt(c, rangeGcm2);
+  let lo = cell[0];
+  if (!(lo >= 0 && lo < n - 1)) lo = 0;
+  let steps = 0;
+  while (r[lo] > rangeGcm2 && steps < 8) { lo--; steps++; }
+  while (r[lo + 1] <= rangeGcm2 && steps < 8) { lo++; steps++; }
+  if (!(r[lo] <= rangeGcm2 && rangeGcm2 < r[lo + 1])) {
+    lo = 0;
+    let hi = n - 1;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (r[mid] <= rangeGcm2) lo = mid; else hi = mid;
+    }
+  }
+  cell[0] = lo;
+  return hermite(r[lo], r[lo + 1], t[lo], t[lo + 1], s[lo], s[lo + 1], rangeGcm2);
+}
+
 /** T(R) [MeV] by cubic Hermite on a cached table (slopes S); the top energy beyond the table. */
 export function cachedEnergyAt(c: CachedRange, rangeGcm2: number): number {
   const t = c.kineticEnergyMeV, s = c.stoppingPowerMeVcm2g, r = c.csdaRangeGcm2;

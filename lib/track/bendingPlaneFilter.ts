@@ -58,7 +58,9 @@ export function filterTrack(x: Float64Array, y: Float64Array, path3: Float64Arra
 export interface FilterScratch {
   readonly rx: Float64Array;
   readonly ry: Float64Array;
-  readonly phi: Float64Array;
+  /** cos φ and sin φ of the reference direction at each hit. */
+  readonly cphi: Float64Array;
+  readonly sphi: Float64Array;
   /** Per interval i (hit i → i+1): projected step, MS variance, straggling variance of w. */
   readonly d: Float64Array;
   readonly q: Float64Array;
@@ -67,7 +69,7 @@ export interface FilterScratch {
 
 export function newFilterScratch(n: number): FilterScratch {
   const f = () => new Float64Array(Math.max(n, 1));
-  return { rx: f(), ry: f(), phi: f(), d: f(), q: f(), qw: f() };
+  return { rx: f(), ry: f(), cphi: f(), sphi: f(), d: f(), q: f(), qw: f() };
 }
 
 /**
@@ -96,21 +98,28 @@ export function bendingPlaneFilter(t: FilterTrack, pGeV: Float64Array, ctx: Filt
   const turn = t.turn;
   // Reference trajectory, forward from the first hit.
   let cosL = Math.min(1, t.dxy[0] / Math.max(t.path3[1] - t.path3[0], 1e-12));
-  let phi = Math.atan2(t.y[1] - t.y[0], t.x[1] - t.x[0]) - (0.5 * turn * c * t.dxy[0]) / (pGeV[0] * cosL);
+  const phi0 = Math.atan2(t.y[1] - t.y[0], t.x[1] - t.x[0]) - (0.5 * turn * c * t.dxy[0]) / (pGeV[0] * cosL);
+  // The direction is carried as (cos φ, sin φ) and turned by each step's half angles (two sines
+  // a step instead of five trigonometric calls; the same numbers to rounding).
+  let cp = Math.cos(phi0), sp = Math.sin(phi0);
   let rx = t.x[0], ry = t.y[0];
-  sc.rx[0] = rx; sc.ry[0] = ry; sc.phi[0] = phi;
+  const m2 = ctx.massGeV * ctx.massGeV;
+  sc.rx[0] = rx; sc.ry[0] = ry; sc.cphi[0] = cp; sc.sphi[0] = sp;
   for (let i = 0; i + 1 < n; i++) {
     const d = t.dxy[i], d3 = t.path3[i + 1] - t.path3[i];
     cosL = d3 > 0 ? Math.min(1, d / d3) : 1;
     const pm = 0.5 * (pGeV[i] + pGeV[i + 1]);
     const kap = (turn * c * ((1 / pGeV[i] + 4 / pm + 1 / pGeV[i + 1]) / 6)) / cosL;
     const dphi = kap * d;
-    const chordLen = Math.abs(dphi) > 1e-9 ? (2 / kap) * Math.sin(0.5 * dphi) : d;
-    rx += chordLen * Math.cos(phi + 0.5 * dphi);
-    ry += chordLen * Math.sin(phi + 0.5 * dphi);
-    phi += dphi;
-    sc.rx[i + 1] = rx; sc.ry[i + 1] = ry; sc.phi[i + 1] = phi;
-    const beta = pm / Math.hypot(pm, ctx.massGeV);
+    const sh = Math.sin(0.5 * dphi), ch = Math.cos(0.5 * dphi);
+    const chordLen = Math.abs(dphi) > 1e-9 ? (2 / kap) * sh : d;
+    // Direction at the middle of the step, then at its end.
+    const cm = cp * ch - sp * sh, sm = sp * ch + cp * sh;
+    rx += chordLen * cm;
+    ry += chordLen * sm;
+    cp = cm * ch - sm * sh; sp = sm * ch + cm * sh;
+    sc.rx[i + 1] = rx; sc.ry[i + 1] = ry; sc.cphi[i + 1] = cp; sc.sphi[i + 1] = sp;
+    const beta = pm / Math.sqrt(pm * pm + m2);
     const th = ((0.0136 / (beta * pm)) * Math.sqrt(d3 / x0) * logTerm) / cosL;
     sc.d[i] = d; sc.q[i] = th * th;
     sc.qw[i] = ((kap / pm) ** 2 * bohr * d3) / (beta * beta);
@@ -118,7 +127,7 @@ export function bendingPlaneFilter(t: FilterTrack, pGeV: Float64Array, ctx: Filt
   const sgn = backward ? -1 : 1;
   let u = 0, a = 0, w = 0;
   let A = 1e-2, B = 0, C = 0, D = 1, E = 0, G = 0;
-  let chi2 = 0, m2 = 0;
+  let chi2 = 0, lnS = 0, prodS = 1, inProd = 0;
   for (let j = 0; j < n; j++) {
     const i = backward ? n - 1 - j : j;
     if (j > 0) {
@@ -135,10 +144,15 @@ export function bendingPlaneFilter(t: FilterTrack, pGeV: Float64Array, ctx: Filt
       E = p12;
       G = G + sc.qw[k];
     }
-    const r = -(t.x[i] - sc.rx[i]) * Math.sin(sc.phi[i]) + (t.y[i] - sc.ry[i]) * Math.cos(sc.phi[i]);
+    const r = -(t.x[i] - sc.rx[i]) * sc.sphi[i] + (t.y[i] - sc.ry[i]) * sc.cphi[i];
     const s = A + t.sigma[i] * t.sigma[i];
     const innov = r - u;
-    if (j >= 2) { chi2 += (innov * innov) / s; m2 += (innov * innov) / s + Math.log(s); }
+    if (j >= 2) {
+      chi2 += (innov * innov) / s;
+      // Σ ln S as the logarithm of products of eight (S ≈ 1e-8 m²: no underflow), one log in eight hits.
+      prodS *= s;
+      if (++inProd === 8) { lnS += Math.log(prodS); prodS = 1; inProd = 0; }
+    }
     const k0 = A / s, k1 = B / s, k2 = C / s;
     u += k0 * innov; a += k1 * innov; w += k2 * innov;
     const a0 = A, b0 = B, c0 = C;
@@ -150,5 +164,5 @@ export function bendingPlaneFilter(t: FilterTrack, pGeV: Float64Array, ctx: Filt
   const kRef = c / (pGeV[iEnd] * Math.min(1, dEnd));
   const kTot = kRef + turn * w;
   const pEnd = (pGeV[iEnd] * kRef) / kTot;
-  return { m2lnL: m2, chi2, pEndGeV: pEnd, sigmaPEndGeV: (pEnd * Math.sqrt(Math.max(G, 0))) / kTot };
+  return { m2lnL: chi2 + lnS + Math.log(prodS), chi2, pEndGeV: pEnd, sigmaPEndGeV: (pEnd * Math.sqrt(Math.max(G, 0))) / kTot };
 }

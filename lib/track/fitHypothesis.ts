@@ -48,7 +48,7 @@ export function hypothesisM2lnL(t: FilterTrack, range: SpeciesRange, parameter: 
   const n = t.n, p = scratch.p, sLast = t.path3[n - 1];
   const rEnd = ctx.stops ? sLast + parameter : range.rangeM(parameter);
   if (!(rEnd > sLast)) return { total: Infinity, chi2: Infinity, rangeChi2: Infinity, pGeV: NaN, sigmaPGeV: NaN };
-  for (let i = 0; i < n; i++) p[i] = range.momentumGeV(rEnd - t.path3[i]);
+  range.momentaAlong(rEnd, t.path3, p);
   const f = bendingPlaneFilter(t, p, ctx, ctx.stops, scratch);
   if (!ctx.stops) return { total: f.m2lnL, chi2: f.chi2, rangeChi2: 0, pGeV: parameter, sigmaPGeV: NaN };
   const sp = ctx.spacingM;

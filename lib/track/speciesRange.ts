@@ -2,6 +2,7 @@ import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants.js';
 import type { Particle } from '../particles.js';
 import type { Material } from '../matter/materials.js';
 import { rangeLookup, type RangeLookup } from '../matter/rangeLookup.js';
+import { cachedEnergyAtCell, cachedRange } from '../matter/rangeIntegral.js';
 
 /** Range ↔ momentum of one species in one material, in track units (metres, GeV/c). */
 export interface SpeciesRange {
@@ -11,6 +12,12 @@ export interface SpeciesRange {
   momentumGeV(rangeM: number): number;
   /** CSDA range [m] of momentum p [GeV/c]. */
   rangeM(momentumGeV: number): number;
+  /**
+   * Momenta [GeV/c] into `out` at path lengths `pathM` [m] (non-decreasing, a track's hits) of a
+   * particle whose CSDA range ends at path `rangeEndM`: `momentumGeV(rangeEndM − pathM[i])`, the
+   * table searched from hit to hit (the same numbers).
+   */
+  momentaAlong(rangeEndM: number, pathM: Float64Array, out: Float64Array): void;
   /** σ of the range [m] of a particle whose CSDA range is `rangeM` (straggling, see below). */
   rangeSigmaM(rangeM: number): number;
 }
@@ -37,6 +44,15 @@ export function speciesRange(particle: Particle, material: Material): SpeciesRan
   const electronLike = Math.abs(particle.massMeV - ELECTRON_MASS_MEV) < 1e-6;
   const momentumGeV = (rangeM: number) => (rangeM > 0 ? look.momentumMeV(rangeM * gcm2PerM) / 1000 : 0);
   const rangeM = (pGeV: number) => (pGeV > 0 ? look.rangeFromMomentumGcm2(pGeV * 1000) / gcm2PerM : 0);
+  const table = cachedRange(particle, material), m = particle.massMeV, cell = new Int32Array(1);
+  const momentaAlong = (rangeEndM: number, pathM: Float64Array, out: Float64Array): void => {
+    for (let i = 0; i < pathM.length; i++) {
+      const left = rangeEndM - pathM[i];
+      if (!(left > 0)) { out[i] = 0; continue; }
+      const t = cachedEnergyAtCell(table, left * gcm2PerM, cell);
+      out[i] = t >= 0 ? Math.sqrt(t * (t + 2 * m)) / 1000 : NaN;
+    }
+  };
   const rangeSigmaM = (r: number): number => {
     if (!(r > 0)) return 0;
     const rg = r * gcm2PerM;
@@ -50,5 +66,5 @@ export function speciesRange(particle: Particle, material: Material): SpeciesRan
     const spread = electronLike ? ELECTRON_RANGE_SPREAD : 0;
     return Math.sqrt(v / (gcm2PerM * gcm2PerM) + (RANGE_TABLE_ACCURACY ** 2 + spread * spread) * r * r);
   };
-  return Object.freeze({ particle, material, momentumGeV, rangeM, rangeSigmaM });
+  return Object.freeze({ particle, material, momentumGeV, rangeM, momentaAlong, rangeSigmaM });
 }
