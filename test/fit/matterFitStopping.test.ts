@@ -2,12 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { chi2Survival } from '../../lib/analysis/chi2Survival.js';
 import { fitTracksInMatter } from '../../lib/fit/matter/fitTracksInMatter.js';
 import { fitTrackInMatter } from '../../lib/fit/matter/fitTrackInMatter.js';
-import { hitPathM } from '../../lib/fit/matter/stopConstraint.js';
 import { matterSample } from '../../lib/fitlab/matterSample.js';
 import { material } from '../../lib/matter/materials.js';
 import { cachedRange, cachedRangeAt } from '../../lib/matter/rangeIntegral.js';
 import { ELECTRON, KAON_PLUS, MUON_MINUS, PION_PLUS, PROTON, type Particle } from '../../lib/particles.js';
-import { seededRandom } from '../../lib/simulate/rng.js';
 
 /**
  * The stop constraint of the fit with material (issue 9: "for a track that stops inside the
@@ -119,34 +117,5 @@ describe('fit with material: the stop constraint on simulated stopping tracks (i
     // Without energy loss there is no range: the option changes nothing.
     const noLoss = fitTrackInMatter(h, { fieldT: 2, medium: MEDIUM, particle: PROTON, energyLoss: false, stops: true });
     expect(noLoss.ndf).toBe(free.ndf);
-  });
-});
-
-describe('hitPathM: path along the hits with the chord excess of the hit errors removed', () => {
-  it('exact hits on a line: the chord sum; 3-D and bending-plane × sec λ agree', () => {
-    const n = 11, x = new Float64Array(n), y = new Float64Array(n), z = new Float64Array(n);
-    for (let i = 0; i < n; i++) { x[i] = 0.003 * i; y[i] = 0.004 * i; z[i] = 0.0025 * i; }
-    const sigma = new Float64Array(n); // error-free: nothing to remove
-    expect(hitPathM({ x, y, z, sigmaX: sigma, sigmaY: sigma, sigmaZ: sigma }, NaN, 0)).toBeCloseTo(10 * Math.hypot(0.003, 0.004, 0.0025), 15);
-    // Bending plane only: chords of 5 mm times sec λ with tan λ = 0.0025/0.005.
-    expect(hitPathM({ x, y, sigmaX: sigma, sigmaY: sigma }, NaN, 0.5)).toBeCloseTo(10 * 0.005 * Math.sqrt(1.25), 15);
-    // From and to: the path of a stretch.
-    expect(hitPathM({ x, y, z, sigmaX: sigma, sigmaY: sigma, sigmaZ: sigma }, NaN, 0, 3, 7)).toBeCloseTo(4 * Math.hypot(0.003, 0.004, 0.0025), 15);
-  });
-  it('noisy hits (200 µm on 5 mm chords): the raw chord sum is 2σ²/ℓ long per chord, the corrected one is not', () => {
-    const rng = seededRandom(3, 'hitPath');
-    const n = 51, sigmaM = 2e-4, trials = 2000, truth = 0.25;
-    let raw = 0, corrected = 0;
-    const x = new Float64Array(n), y = new Float64Array(n), z = new Float64Array(n);
-    for (let t = 0; t < trials; t++) {
-      for (let i = 0; i < n; i++) { x[i] = 0.005 * i + sigmaM * rng.gaussian(); y[i] = sigmaM * rng.gaussian(); z[i] = sigmaM * rng.gaussian(); }
-      corrected += hitPathM({ x, y, z }, sigmaM, 0);
-      let s = 0;
-      for (let i = 1; i < n; i++) s += Math.hypot(x[i] - x[i - 1], y[i] - y[i - 1], z[i] - z[i - 1]);
-      raw += s;
-    }
-    // 50 chords × 2σ²/ℓ = 50 × 2 × 4e-8 / 5e-3 = 0.8 mm; each trial's sum scatters by ≈ σ√2 = 0.28 mm (6 µm over 2 000).
-    expect(raw / trials - truth).toBeCloseTo(8e-4, 4);
-    expect(Math.abs(corrected / trials - truth)).toBeLessThan(3e-5);
   });
 });
