@@ -1,8 +1,9 @@
-import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants.js';
+import { ELECTRON_MASS_MEV } from '../constants.js';
 import type { Particle } from '../particles.js';
 import type { Material } from '../matter/materials.js';
 import { rangeLookup, type RangeLookup } from '../matter/rangeLookup.js';
 import { cachedEnergyAtCell, cachedRange } from '../matter/rangeIntegral.js';
+import { rangeStragglingGcm2 } from '../matter/rangeStraggling.js';
 
 /** Range ↔ momentum of one species in one material, in track units (metres, GeV/c). */
 export interface SpeciesRange {
@@ -29,18 +30,15 @@ export const RANGE_TABLE_ACCURACY = 0.01;
 
 /**
  * CSDA range tables of lib/matter (`rangeLookup`, cached per species) in metres and GeV/c, plus
- * range straggling: σ_R² = ∫₀^R k_B / S(r)² dr with Bohr's energy-loss variance per areal density
- * k_B = K m_e c² z² ⟨Z/A⟩ (0.1569 z² Z/A MeV² cm²/g; Bohr 1915, `bohrVarianceMeV2`) and S = dT/dr
- * the mass stopping power along the path (the Gaussian range-straggling integral, common
- * practice; gives ≈ 1.1–1.3 % of the range for protons stopping in light media, cf. ICRU 49
- * (memory)). The table accuracy (1 %) is added in quadrature; for e± the radiative straggling
- * Bohr misses is stood in for by `ELECTRON_RANGE_SPREAD`. Research values; not for treatment planning.
+ * range straggling from lib/matter (`rangeStragglingGcm2`: Bohr's variance with its relativistic
+ * factor over the CSDA table, ≈ 1.1 % of the range for protons stopping in light media). The
+ * table accuracy (1 %) is added in quadrature; for e±, whose range is not Gaussian, a relative
+ * spread stands in (`ELECTRON_RANGE_SPREAD`). Research values; not for treatment planning.
  * @example speciesRange(PROTON, material('liquid-propane')).rangeM(0.4) // ≈ 0.16 m (memory)
  */
 export function speciesRange(particle: Particle, material: Material): SpeciesRange {
   const look: RangeLookup = rangeLookup(particle, material);
   const gcm2PerM = 100 * material.densityGcm3;
-  const kBohr = BETHE_K_MEV_CM2_PER_MOL * ELECTRON_MASS_MEV * particle.charge * particle.charge * material.zOverA;
   const electronLike = Math.abs(particle.massMeV - ELECTRON_MASS_MEV) < 1e-6;
   const momentumGeV = (rangeM: number) => (rangeM > 0 ? look.momentumMeV(rangeM * gcm2PerM) / 1000 : 0);
   const rangeM = (pGeV: number) => (pGeV > 0 ? look.rangeFromMomentumGcm2(pGeV * 1000) / gcm2PerM : 0);
@@ -55,16 +53,9 @@ export function speciesRange(particle: Particle, material: Material): SpeciesRan
   };
   const rangeSigmaM = (r: number): number => {
     if (!(r > 0)) return 0;
-    const rg = r * gcm2PerM;
-    const steps = 24;
-    let v = 0;
-    for (let i = 0; i < steps; i++) {
-      const a = (i + 0.25) * rg / steps, b = (i + 0.75) * rg / steps;
-      const s = (look.kineticEnergyMeV(b) - look.kineticEnergyMeV(a)) / (b - a);
-      v += kBohr * (rg / steps) / (s * s);
-    }
+    const straggling = electronLike ? 0 : rangeStragglingGcm2(particle, material, look.kineticEnergyMeV(r * gcm2PerM)) / gcm2PerM;
     const spread = electronLike ? ELECTRON_RANGE_SPREAD : 0;
-    return Math.sqrt(v / (gcm2PerM * gcm2PerM) + (RANGE_TABLE_ACCURACY ** 2 + spread * spread) * r * r);
+    return Math.sqrt(straggling * straggling + (RANGE_TABLE_ACCURACY ** 2 + spread * spread) * r * r);
   };
   return Object.freeze({ particle, material, momentumGeV, rangeM, momentaAlong, rangeSigmaM });
 }
