@@ -1,12 +1,12 @@
 import { performance } from 'node:perf_hooks';
 import { closeSync, openSync, readFileSync, statSync } from 'node:fs';
-import { type SagittaWarning } from '../../lib/index.js';
+import { type HitTable, type SagittaWarning } from '../../lib/index.js';
 import { msg } from '../../lib/internal.js';
 import { loadBatchJob } from './batchJobs.js';
 import { columnarChunks } from './columnarChunks.js';
 import { batchThreads, stopEarlyWorkers } from './earlyWorkers.js';
 import { inputFormatOf, type InputFormat } from './inputFormat.js';
-import { errorFromData, errorToData, processChunk, type Chunk, type ChunkOutcome, type ChunkSettings, type ResultFormat } from './processChunk.js';
+import { errorFromData, errorToData, parseTextChunk, processChunk, type Chunk, type ChunkOutcome, type ChunkSettings, type ResultFormat } from './processChunk.js';
 import { Progress } from './progress.js';
 import { ResultSink, type ByteTarget } from './resultSink.js';
 import type { Shard } from './shard.js';
@@ -88,8 +88,12 @@ export async function runBatch(o: BatchRunOptions): Promise<BatchTotals> {
     const source = format === 'csv' || format === 'jsonl'
       ? textChunks(o.input, format, o.lengthUnit, (done) => progress?.update(done))
       : await columnarChunks(o.input, format, o.lengthUnit, settings.shard !== undefined, (done) => progress?.update(done));
+    // With one worker, text chunks bound for it are parsed here first, so the two threads split
+    // each chunk's work (this one reads and parses, the worker fits and encodes) and each warms
+    // up only its half of the code; with more workers this thread would become the bottleneck.
+    const parse = threads === 2 ? (chunk: Chunk): Chunk => (chunk.kind === 'table' ? chunk : parseTextChunk(chunk, settings)) : undefined;
     try {
-      await pipeline(source, here, pool, threads, sink, totals);
+      await pipeline(source, here, pool, threads, sink, totals, parse);
     } catch (err) {
       if (!(err instanceof NotGrouped)) throw err;
       // Not grouped by event: read whole, as one chunk (bounded memory is not possible here).
@@ -125,7 +129,7 @@ interface InFlight {
  * order as they are ready, keeping at most 8 × threads chunks in flight. Results are held back
  * only until their chunk is known not to repeat an earlier event (the input is grouped so far).
  */
-async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, here: (c: Chunk) => Settled, pool: WorkerPool | undefined, threads: number, sink: ResultSink, totals: MutableTotals): Promise<void> {
+async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, here: (c: Chunk) => Settled, pool: WorkerPool | undefined, threads: number, sink: ResultSink, totals: MutableTotals, parse?: (c: Chunk) => Chunk): Promise<void> {
   const inFlight: InFlight[] = [];
   // Outcomes worked here wait in order behind a worker's chunk: a few MB at most.
   const limit = 8 * threads;
@@ -153,10 +157,20 @@ async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, here: (c
     if (firstChunk && chunk.kind === 'csv') lineBase = chunk.layout!.bodyLine - 1;
     firstChunk = false;
     if (pool?.hasRoom()) {
-      const reply = pool.submit(chunk);
-      const entry: InFlight = { reply };
-      reply.then((v) => (entry.settled = v), () => undefined);
-      inFlight.push(entry);
+      let sent = chunk;
+      let failed: Settled | undefined;
+      try {
+        if (parse) sent = parse(chunk);
+      } catch (err) {
+        failed = { error: errorToData(err) };
+      }
+      if (failed) inFlight.push({ settled: failed });
+      else {
+        const reply = pool.submit(sent, sent !== chunk && sent.kind === 'table' ? tableBuffers(sent.hits) : []);
+        const entry: InFlight = { reply };
+        reply.then((v) => (entry.settled = v), () => undefined);
+        inFlight.push(entry);
+      }
     } else inFlight.push({ settled: here(chunk) });
     while (inFlight.length > 0 && (inFlight[0].settled !== undefined || inFlight.length >= limit)) await consume();
     // A turn of the event loop after every chunk with workers (their replies arrive then), and
@@ -168,6 +182,15 @@ async function pipeline(source: Iterable<Chunk> | AsyncIterable<Chunk>, here: (c
     }
   }
   while (inFlight.length > 0) await consume();
+}
+
+/** The distinct buffers under a hit table's columns (a table made here for a worker is moved to it whole). */
+function tableBuffers(t: HitTable): ArrayBuffer[] {
+  const out = new Set<ArrayBuffer>();
+  for (const a of [t.event, t.track, t.x, t.y, t.z, t.sigmaX, t.sigmaY, t.sigmaZ, t.hitOrder, t.source.line, t.source.position]) {
+    if (a && a.buffer instanceof ArrayBuffer) out.add(a.buffer);
+  }
+  return [...out];
 }
 
 type MutableTotals = { -readonly [K in keyof BatchTotals]: BatchTotals[K] };

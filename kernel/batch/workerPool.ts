@@ -58,12 +58,16 @@ export class WorkerPool {
     return this.failure === undefined && this.workers.some((w) => w.busy < (w.ready ? QUEUE : 1));
   }
 
-  submit(chunk: Chunk): Promise<Settled> {
+  /**
+   * Hands `chunk` to a worker. A text chunk's bytes are moved, not copied; so are the buffers in
+   * `moved` (those of a table this thread made for the worker and no longer needs).
+   */
+  submit(chunk: Chunk, moved: readonly ArrayBuffer[] = []): Promise<Settled> {
     if (this.failure) return Promise.reject(this.failure);
     const slot = this.workers.reduce((a, b) => (Number(b.ready) - Number(a.ready) || a.busy - b.busy) > 0 ? b : a);
     const id = this.nextId++;
     slot.busy++;
-    const transfer = chunk.kind === 'table' ? [] : [chunk.bytes.buffer as ArrayBuffer];
+    const transfer = chunk.kind === 'table' ? [...moved] : [chunk.bytes.buffer as ArrayBuffer];
     return new Promise<Settled>((resolve, reject) => {
       this.waiting.set(id, resolve);
       this.rejectors.set(id, reject);

@@ -59,6 +59,22 @@ describe('sagitta fit with worker threads', () => {
     }
     expect(outs[0].summary).toMatch(/fitted 15835, failed 165/);
   });
+  it('a bad number deep in the file is reported at its own line with --threads 1, 2 and 3 (parsed in this thread or in a worker), nothing written', () => {
+    const lines = readFileSync(hits, 'utf8').split('\n');
+    const bad = Math.floor(lines.length * 0.8); // well past the first chunks
+    const cells = lines[bad].split(',');
+    cells[2] = '12.5x';
+    lines[bad] = cells.join(',');
+    const broken = join(dir, 'broken.csv');
+    writeFileSync(broken, lines.join('\n'));
+    for (const t of ['1', '2', '3']) {
+      const r = sagitta('fit', broken, '--field', '1.5 T', '--threads', t, '--quiet', '--out', `broken-${t}.csv`);
+      expect(r.code, r.stderr).toBe(1);
+      expect(r.stderr).toContain(`broken.csv:${bad + 1}`);
+      expect(r.stderr).toContain('12.5x');
+      expect(existsSync(join(dir, `broken-${t}.csv`))).toBe(false);
+    }
+  });
   it('a usage error after the worker threads have started (with the command) ends at once, exit 2, nothing written', () => {
     const r = sagitta('fit', hits, '--field', 'bad', '--threads', '2', '--out', 'never.csv');
     expect(r.code, r.stderr).toBe(2);
