@@ -8,7 +8,8 @@ import type { Material } from '../matter/materials.js';
 
 /** Figures of merit of one fit over a set of tracks, for p at the first hit (relative to the truth there). */
 export interface MatterFitMerit {
-  readonly fit: 'matter' | 'plain-helix';
+  /** 'matter-stop': the fit with material with the stop constraint on the tracks the simulator ranged out. */
+  readonly fit: 'matter' | 'matter-stop' | 'plain-helix';
   readonly tracks: number;
   readonly fitted: number;
   /** Median of (p − p_true)/p_true. */
@@ -27,12 +28,14 @@ export interface MatterFitLabBin {
   readonly high: number;
   readonly matter: MatterFitMerit;
   readonly plain: MatterFitMerit;
+  /** With `stopsKnown`: the fit with material, tracks that stop fitted with the stop constraint. */
+  readonly stop?: MatterFitMerit;
 }
 
 export interface MatterFitLabReport {
   readonly species: string;
   readonly material: string;
-  readonly overall: { readonly matter: MatterFitMerit; readonly plain: MatterFitMerit };
+  readonly overall: { readonly matter: MatterFitMerit; readonly plain: MatterFitMerit; readonly stop?: MatterFitMerit };
   /** By true momentum at the first hit [GeV/c] (log bins) and by 3-D path length first → last hit [m]. */
   readonly byMomentum: readonly MatterFitLabBin[];
   readonly byPathLength: readonly MatterFitLabBin[];
@@ -43,6 +46,11 @@ export interface MatterFitLabOptions {
   readonly fieldT: number;
   /** Bins per variable; default 4. */
   readonly bins?: number;
+  /**
+   * Also fit with the stop constraint the tracks the simulator ranged out (as a fiducial volume
+   * would flag them: `MatterFitOptions.stops`), reported as `stop`. Default false.
+   */
+  readonly stopsKnown?: boolean;
 }
 
 /**
@@ -50,7 +58,9 @@ export interface MatterFitLabOptions {
  * plain helix fit (geometric circle + line, no material) on simulated truth: bias, resolution
  * and pulls of p at the first hit, overall and by momentum and path length. The plain fit
  * measures a mean curvature, so on slowing tracks it is biased low and its σ(p), which holds
- * only the hit errors, is too small: that is what this lab shows next to the new fit.
+ * only the hit errors, is too small: that is what this lab shows next to the new fit. With
+ * `stopsKnown` a third column fits the stopping tracks with the stop constraint (momentum from
+ * range), as a chamber whose fiducial volume tells which tracks stop would.
  * @example matterFitLab(matterSample({ ... }), { material: material('liquid-propane'), fieldT: 2 }).overall
  */
 export function matterFitLab(s: MatterSample, o: MatterFitLabOptions): MatterFitLabReport {
@@ -59,9 +69,11 @@ export function matterFitLab(s: MatterSample, o: MatterFitLabOptions): MatterFit
   const matter = fitTracksInMatter(hits, s.offsets, { fieldT: o.fieldT, medium: o.material, particle: s.species });
   const helix = fitHelices(hits, s.offsets, { method: 'geometric', fieldT: o.fieldT });
   const plainP = momenta(helix, o.fieldT, { chargeMagnitude: Math.abs(s.species.charge) });
+  const held = o.stopsKnown ? fitTracksInMatter(hits, s.offsets, { fieldT: o.fieldT, medium: o.material, particle: s.species, stoppingTracks: s.stopped }) : undefined;
   const rows = (keep: (k: number) => boolean) => ({
     matter: merit('matter', s, keep, (k) => (matter.status[k] <= 1 ? [matter.pGeV[k], matter.sigmaPGeV[k], matter.chi2[k] / matter.ndf[k]] : undefined)),
     plain: merit('plain-helix', s, keep, (k) => (FIT_STATUS[helix.circle.status[k]] === 'ok' ? [plainP.pGeV[k], plainP.sigmaPGeV[k], helix.circle.chi2[k] / helix.circle.ndf[k]] : undefined)),
+    ...(held ? { stop: merit('matter-stop', s, keep, (k) => (held.status[k] <= 1 ? [held.pGeV[k], held.sigmaPGeV[k], held.chi2[k] / held.ndf[k]] : undefined)) } : {}),
   });
   const nb = o.bins ?? 4;
   const binned = (v: Float64Array, log: boolean): MatterFitLabBin[] => {
@@ -83,7 +95,7 @@ export function matterFitLab(s: MatterSample, o: MatterFitLabOptions): MatterFit
   };
 }
 
-function merit(fit: 'matter' | 'plain-helix', s: MatterSample, keep: (k: number) => boolean, at: (k: number) => number[] | undefined): MatterFitMerit {
+function merit(fit: MatterFitMerit['fit'], s: MatterSample, keep: (k: number) => boolean, at: (k: number) => number[] | undefined): MatterFitMerit {
   const rel: number[] = [], pull: number[] = [];
   let tracks = 0, chi = 0;
   for (let k = 0; k < s.count; k++) {

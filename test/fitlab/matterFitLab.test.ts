@@ -34,3 +34,21 @@ describe('matterFitLab (issue 9: the fit with material against the plain helix f
     expect(r.byPathLength.reduce((a, b) => a + b.matter.tracks, 0)).toBe(s.count);
   });
 });
+
+describe('matterFitLab with stopsKnown (issue 9: the fit lab shows the stop constraint beside the other two)', () => {
+  it('stopping protons with straggling: the stop column has pull rms near 1 and a fraction of the resolution of the fit without it', () => {
+    const med = material('liquid-propane');
+    const s = matterSample({ tracks: 1500, species: PROTON, momentumGeV: [0.1, 0.45], material: med, fieldT: 2, spacingM: 5e-3, sigmaM: 2e-4, maxHits: 50, tanLambda: [-0.3, 0.3], seed: 23, energyLoss: 'straggling' });
+    expect(s.stopped.reduce((a, v) => a + v, 0)).toBeGreaterThan(600);
+    const r = matterFitLab(s, { material: med, fieldT: 2, stopsKnown: true });
+    const { matter, stop } = r.overall;
+    console.log(`fit lab, protons 0.1–0.45 GeV/c: matter resolution ${(100 * matter.resolution).toFixed(2)} %, pull rms ${matter.pullRms.toFixed(3)}; with the stop constraint ${(100 * stop!.resolution).toFixed(2)} %, ${stop!.pullRms.toFixed(3)}`);
+    expect(stop!.fit).toBe('matter-stop');
+    expect(stop!.pullRms).toBeGreaterThan(0.9);
+    expect(stop!.pullRms).toBeLessThan(1.1);
+    expect(stop!.resolution).toBeLessThan(0.4 * matter.resolution);
+    expect(Math.abs(stop!.medianBias)).toBeLessThan(0.003);
+    expect(r.byMomentum.every((b) => b.stop !== undefined)).toBe(true);
+    expect(matterFitLab(s, { material: med, fieldT: 2 }).overall.stop).toBeUndefined();
+  });
+});
