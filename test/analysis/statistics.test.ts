@@ -43,6 +43,23 @@ describe('chi2Quantile', () => {
     expect(checked).toBe(30);
     expect(chi2Quantile(0.95, 2)).toBeCloseTo(-2 * Math.log(0.05), 12); // closed form for 2 d.o.f.
   });
+  it('far lower tail (p down to 1e-300): inverts regularizedGammaP to 1e-12 and meets the closed forms for 1 and 2 d.o.f.', () => {
+    // Closed forms (common practice): 2 d.o.f. P = 1 − e^(−x/2), so x = −2 ln(1 − p); 1 d.o.f.
+    // P = erf(√(x/2)) ≈ √(2x/π) for small x, so x = πp²/2 (relative correction ~x/3).
+    expect(chi2Quantile(1e-300, 2) / 2e-300 - 1).toBeLessThan(1e-13);
+    expect(Math.abs(chi2Quantile(1e-20, 2) / (-2 * Math.log1p(-1e-20)) - 1)).toBeLessThan(1e-13);
+    expect(Math.abs(chi2Quantile(1e-100, 1) / ((Math.PI / 2) * 1e-200) - 1)).toBeLessThan(1e-13);
+    let checked = 0;
+    for (const ndf of [0.5, 1, 3, 10, 50, 200]) for (const p of [1e-300, 1e-150, 1e-40, 1e-30, 1e-11]) {
+      const x = chi2Quantile(p, ndf);
+      if (x < 1e-300) continue; // the quantile itself underflows a double (e.g. 1 d.o.f. at 1e-300: x ≈ 1.6e-600)
+      expect(Math.abs(regularizedGammaP(ndf / 2, x / 2) / p - 1), `ndf ${ndf}, p ${p}`).toBeLessThan(1e-12);
+      checked++;
+    }
+    expect(checked).toBe(27); // 30 less the three that underflow (½ d.o.f. at 1e-300 and 1e-150, 1 d.o.f. at 1e-300)
+    // Either side of the switch to the logarithmic search, the quantile is continuous: x ∝ p^(2/ndf) there.
+    expect(chi2Quantile(1.0001e-10, 3) / chi2Quantile(0.9999e-10, 3)).toBeCloseTo((1.0001 / 0.9999) ** (2 / 3), 6);
+  });
 });
 
 describe('weightedMean', () => {
