@@ -1,3 +1,4 @@
+import { minimiseOnInterval } from '../analysis/minimiseOnInterval.js';
 import { msg } from '../errors.js';
 
 /** Result of a lifetime fit. Proper decay lengths cτ [m]. */
@@ -24,9 +25,8 @@ export interface LifetimeFit {
  *   ln L = Σ [ −ln λ − tᵢ/λ − ln(e^{−aᵢ/λ} − e^{−bᵢ/λ}) ]
  * (exponential decay truncated to what could be seen; common practice for lifetimes from
  * bubble-chamber V⁰s). The acceptance is taken as 1 inside the window and 0 outside; a
- * detection efficiency that varies inside it must be folded in separately. λ is found by a
- * golden-section search in ln λ, the interval by bisection on Δ(−ln L) = ½.
- * The project's general fitting layer may take this over; it is exact for this one model.
+ * detection efficiency that varies inside it must be folded in separately. λ is found by
+ * Brent's method in ln λ (`minimiseOnInterval`), the interval by bisection on Δ(−ln L) = ½.
  * @example fitLifetime(t, a, b).ctauM // ≈ 0.0268 for K⁰_S
  */
 export function fitLifetime(properLengthM: ArrayLike<number>, windowMinM: ArrayLike<number>, windowMaxM: ArrayLike<number>): LifetimeFit {
@@ -50,15 +50,8 @@ export function fitLifetime(properLengthM: ArrayLike<number>, windowMinM: ArrayL
   let tMean = 0;
   for (const v of t) tMean += v;
   tMean /= used;
-  let lo = Math.log(tMean / 1e3), hi = Math.log(tMean * 1e3);
-  const g = (Math.sqrt(5) - 1) / 2;
-  let c = hi - g * (hi - lo), d = lo + g * (hi - lo);
-  let fc = nll(Math.exp(c)), fd = nll(Math.exp(d));
-  for (let it = 0; it < 200 && hi - lo > 1e-9; it++) {
-    if (fc < fd) { hi = d; d = c; fd = fc; c = hi - g * (hi - lo); fc = nll(Math.exp(c)); }
-    else { lo = c; c = d; fc = fd; d = lo + g * (hi - lo); fd = nll(Math.exp(d)); }
-  }
-  const best = Math.exp(0.5 * (lo + hi));
+  // Brent's method in ln λ over six decades around the mean.
+  const best = Math.exp(minimiseOnInterval((u) => nll(Math.exp(u)), Math.log(tMean / 1e3), Math.log(tMean * 1e3), { toleranceX: 1e-9 }).x);
   const fBest = nll(best);
   const atLimit = Math.abs(Math.log(best / tMean)) > Math.log(1e3) - 1e-3;
   const cross = (from: number, to: number): number => {
