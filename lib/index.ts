@@ -113,7 +113,7 @@ export { Histogram, type HistogramBinning } from './analysis/histogram.js';
 export { Histogram2D, type Histogram2DBinning } from './analysis/histogram2d.js';
 export { LEVENBERG_MARQUARDT_DEFAULTS, levenbergMarquardt, type LevenbergMarquardtResult, type LevenbergMarquardtSettings, type MinimiserStatus, type ResidualProblem } from './analysis/levenbergMarquardt.js';
 export { lnGamma } from './analysis/lnGamma.js';
-export { MINIMISE_ON_INTERVAL_DEFAULTS, minimiseOnInterval, type IntervalMinimum } from './analysis/minimiseOnInterval.js';
+export { MINIMISE_ON_INTERVAL_DEFAULTS, minimiseOnInterval, type IntervalMinimum, type MinimiseOnIntervalOptions } from './analysis/minimiseOnInterval.js';
 export { normalCdf } from './analysis/normalCdf.js';
 export { normalQuantile } from './analysis/normalQuantile.js';
 export { numericalHessian } from './analysis/numericalHessian.js';

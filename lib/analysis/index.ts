@@ -17,7 +17,7 @@ export { Histogram2D, type Histogram2DBinning } from './histogram2d.js';
 export { householderLeastSquares, type LinearLeastSquaresSolution } from './householderLeastSquares.js';
 export { LEVENBERG_MARQUARDT_DEFAULTS, levenbergMarquardt, type LevenbergMarquardtResult, type LevenbergMarquardtSettings, type MinimiserStatus, type ResidualProblem } from './levenbergMarquardt.js';
 export { lnGamma } from './lnGamma.js';
-export { MINIMISE_ON_INTERVAL_DEFAULTS, minimiseOnInterval, type IntervalMinimum } from './minimiseOnInterval.js';
+export { MINIMISE_ON_INTERVAL_DEFAULTS, minimiseOnInterval, type IntervalMinimum, type MinimiseOnIntervalOptions } from './minimiseOnInterval.js';
 export { normalCdf } from './normalCdf.js';
 export { normalQuantile } from './normalQuantile.js';
 export { numericalHessian } from './numericalHessian.js';

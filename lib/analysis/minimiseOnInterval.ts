@@ -8,13 +8,16 @@ export interface IntervalMinimum {
   readonly evaluations: number;
 }
 
-/** Defaults of `minimiseOnInterval`. */
-export const MINIMISE_ON_INTERVAL_DEFAULTS = Object.freeze({
+/** Settings of `minimiseOnInterval`. */
+export interface MinimiseOnIntervalOptions {
   /** Absolute tolerance on x; the relative part √ε·|x| is always added. */
-  toleranceX: 1e-10,
+  readonly toleranceX?: number;
   /** Stop after this many evaluations even if the tolerance is not reached. */
-  maxEvaluations: 200,
-});
+  readonly maxEvaluations?: number;
+}
+
+/** Defaults of `minimiseOnInterval`. */
+export const MINIMISE_ON_INTERVAL_DEFAULTS: Required<MinimiseOnIntervalOptions> = Object.freeze({ toleranceX: 1e-10, maxEvaluations: 200 });
 
 const SQRT_EPS = Math.sqrt(Number.EPSILON);
 const GOLDEN = 0.5 * (3 - Math.sqrt(5));
@@ -30,7 +33,7 @@ const GOLDEN = 0.5 * (3 - Math.sqrt(5));
  * an end of the interval if the function falls towards it); units are those of `a`, `b` and f.
  * @example minimiseOnInterval((x) => (x - 2) ** 2, 0, 5).x // ≈ 2
  */
-export function minimiseOnInterval(f: (x: number) => number, a: number, b: number, options: Partial<typeof MINIMISE_ON_INTERVAL_DEFAULTS> = {}): IntervalMinimum {
+export function minimiseOnInterval(f: (x: number) => number, a: number, b: number, options: MinimiseOnIntervalOptions = {}): IntervalMinimum {
   const { toleranceX, maxEvaluations } = { ...MINIMISE_ON_INTERVAL_DEFAULTS, ...options };
   if (a > b) [a, b] = [b, a];
   let x = a + GOLDEN * (b - a), w = x, v = x;
