@@ -12,7 +12,13 @@ export interface IdentifiedTracks {
   readonly pid: readonly string[];
   /** −2 ln L of the runner-up minus the best. */
   readonly deltaM2lnL: Float64Array;
-  /** First-hit momentum [GeV/c] and its error under the best hypothesis. */
+  /**
+   * First-hit momentum [GeV/c] and its error under the best hypothesis, from the identification's
+   * own one-parameter fit. For a spiralling electron −2 ln L in p₀ has several minima: this value
+   * moved by up to 30 % (tens of σ) when the scan's grid went from 20 to 12 points on the
+   * Brindlemoor electrons, σ being the curvature of the minimum found. Momenta for physics come
+   * from `measureTracks` (the fit with material under the chosen species), not from here.
+   */
   readonly pGeV: Float64Array;
   readonly sigmaPGeV: Float64Array;
   /** Least first-hit momentum [GeV/c] that reaches the last hit under the best hypothesis. */
