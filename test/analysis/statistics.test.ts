@@ -57,6 +57,11 @@ describe('chi2Quantile', () => {
       checked++;
     }
     expect(checked).toBe(27); // 30 less the three that underflow (½ d.o.f. at 1e-300 and 1e-150, 1 d.o.f. at 1e-300)
+    // The far upper tail through Q (2 d.o.f.: x = −2 ln(1 − p)), and the ends and refusals of the doc comment.
+    expect(Math.abs(chi2Quantile(1 - 2 ** -40, 2) / (80 * Math.LN2) - 1)).toBeLessThan(1e-14); // 1 − 2⁻⁴⁰ is exact in a double
+    expect(Math.abs(chi2Survival(chi2Quantile(1 - 2 ** -45, 3), 3) / 2 ** -45 - 1)).toBeLessThan(1e-12);
+    expect([chi2Quantile(0, 3), chi2Quantile(1, 3), chi2Quantile(0.5, 0), chi2Quantile(0.5, -1), chi2Quantile(-0.1, 3), chi2Quantile(1.1, 3), chi2Quantile(NaN, 3), chi2Quantile(0.5, NaN)]).toEqual([0, Infinity, NaN, NaN, NaN, NaN, NaN, NaN]);
+    expect(chi2Quantile(1e-5, 1e-3)).toBe(0); // x ≈ 2·(1e-5)^2000 underflows
     // Either side of the switch to the logarithmic search, the quantile is continuous: x ∝ p^(2/ndf) there.
     expect(chi2Quantile(1.0001e-10, 3) / chi2Quantile(0.9999e-10, 3)).toBeCloseTo((1.0001 / 0.9999) ** (2 / 3), 6);
   });
