@@ -18,7 +18,7 @@ export { LANDAU_MAX_KAPPA, LANDAU_MAX_LOSS_FRACTION, mostProbableEnergyLoss, typ
 export { nuclearStoppingPower } from './nuclearStopping.js';
 export { radiationLengthTsai } from './radiationLength.js';
 export { csdaRange, csdaRangeFromMomentum, energyAfterPath, kineticEnergyFromRange, momentumFromRange, residualRange } from './range.js';
-export { cachedEnergyAt, cachedEnergyAtCell, cachedRange, cachedRangeAt, rangeCutoffMeV, rangeMaxMeV, type CachedRange } from './rangeIntegral.js';
+export { cachedCellOf, cachedEnergyAt, cachedEnergyAtCell, cachedRange, cachedRangeAt, rangeCutoffMeV, rangeMaxMeV, type CachedRange } from './rangeIntegral.js';
 export { rangeLookup, type RangeLookup } from './rangeLookup.js';
 export { energyAtRange, rangeAt, rangeTable, type RangeTable, type RangeTableOptions } from './rangeTable.js';
 export { rangeTableFrame } from './rangeTableFrame.js';

@@ -5,7 +5,7 @@ import { warn } from '../warnings.js';
 import { kineticFromMomentum, momentumFromKinetic } from './kinematics.js';
 import type { Material } from './materials.js';
 import { stoppingRegime } from './electronicStopping.js';
-import { cachedRange, integrateRange, rangeBelowCutoffAt, rangeCutoffMeV, rangeMaxMeV } from './rangeIntegral.js';
+import { cachedCellOf, cachedRange, integrateRange, rangeBelowCutoffAt, rangeCutoffMeV, rangeMaxMeV } from './rangeIntegral.js';
 import { isElectronLike, stoppingPowerUnchecked } from './stoppingPower.js';
 
 export { rangeCutoffMeV, rangeMaxMeV } from './rangeIntegral.js';
@@ -42,20 +42,12 @@ function warnIfExtrapolated(source: string, particle: Particle, material: Materi
   }
 }
 
-/** Node index i with T_i ≤ T < T_{i+1} in a cached table (log-spaced: direct index). */
-function nodeBelow(c: ReturnType<typeof cachedRange>, t: number): number {
-  const i = Math.floor((Math.log(t) - c.lnFrom) / c.step);
-  return Math.min(Math.max(i, 0), c.kineticEnergyMeV.length - 2);
-}
-
 /** R(T) from the cache without checks. */
 function rangeOf(particle: Particle, material: Material, t: number): number {
   const c = cachedRange(particle, material);
   const t0 = c.kineticEnergyMeV[0];
   if (t <= t0) return t <= 0 ? 0 : rangeBelowCutoffAt(particle, material, t, c.csdaRangeGcm2[0]);
-  let i = nodeBelow(c, t);
-  while (i > 0 && c.kineticEnergyMeV[i] > t) i--;
-  while (i < c.kineticEnergyMeV.length - 2 && c.kineticEnergyMeV[i + 1] <= t) i++;
+  const i = cachedCellOf(c, t);
   const ti = c.kineticEnergyMeV[i];
   return t > ti ? c.csdaRangeGcm2[i] + integrateRange(particle, material, ti, t, c.kinks) : c.csdaRangeGcm2[i];
 }

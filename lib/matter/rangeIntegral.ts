@@ -151,6 +151,19 @@ function lowExponent(c: CachedRange): number {
 }
 
 /**
+ * The cell of a cached table that holds T: the node i with T_i ≤ T < T_{i+1}, clamped to
+ * 0 … n − 2. The nodes are even in ln T, so the index comes from ln T directly; the two loops
+ * only move it a node where ln rounds across a node (a node is exp of a rounded sum).
+ */
+export function cachedCellOf(c: CachedRange, kineticEnergyMeV: number): number {
+  const t = c.kineticEnergyMeV, n = t.length;
+  let i = Math.min(Math.max(Math.floor((Math.log(kineticEnergyMeV) - c.lnFrom) / c.step), 0), n - 2);
+  while (i > 0 && t[i] > kineticEnergyMeV) i--;
+  while (i < n - 2 && t[i + 1] <= kineticEnergyMeV) i++;
+  return i;
+}
+
+/**
  * R(T) [g/cm²] by cubic Hermite on a cached table (slopes 1/S), with the cutoff law below node 0
  * and Infinity above the top: no checks, no warnings, ≲ 2e-6 relative (1e-4 next to a kink of
  * S, e.g. the 10 keV switch of the proton fits) — for per-step callers
@@ -162,9 +175,7 @@ export function cachedRangeAt(c: CachedRange, kineticEnergyMeV: number): number 
   if (kineticEnergyMeV <= t[0]) return r[0] * Math.pow(kineticEnergyMeV / t[0], lowExponent(c));
   const n = t.length;
   if (kineticEnergyMeV >= t[n - 1]) return kineticEnergyMeV === t[n - 1] ? r[n - 1] : Infinity;
-  let i = Math.min(Math.max(Math.floor((Math.log(kineticEnergyMeV) - c.lnFrom) / c.step), 0), n - 2);
-  while (i > 0 && t[i] > kineticEnergyMeV) i--;
-  while (i < n - 2 && t[i + 1] <= kineticEnergyMeV) i++;
+  const i = cachedCellOf(c, kineticEnergyMeV);
   return hermite(t[i], t[i + 1], r[i], r[i + 1], 1 / s[i], 1 / s[i + 1], kineticEnergyMeV);
 }
 

@@ -2,7 +2,7 @@ import { BETHE_K_MEV_CM2_PER_MOL, ELECTRON_MASS_MEV } from '../constants.js';
 import { msg } from '../errors.js';
 import type { Material } from './materials.js';
 import type { Particle } from '../particles.js';
-import { cachedRange, type CachedRange } from './rangeIntegral.js';
+import { cachedCellOf, cachedRange, type CachedRange } from './rangeIntegral.js';
 
 /**
  * Range straggling in the Gaussian approximation: the variance of the path length [(g/cm²)²] a
@@ -62,16 +62,14 @@ export function rangeStragglingGcm2(particle: Particle, material: Material, kine
 
 /**
  * The variance of `rangeStragglingVariances` at kinetic energy T [MeV]: linear in ln T between
- * nodes, 0 below node 0, the last node's value above the table.
+ * nodes, 0 below node 0 (and for T ≤ 0), the last node's value above the table, NaN for NaN.
  */
 export function varianceAtKinetic(table: CachedRange, variances: Float64Array, kineticMeV: number): number {
   const t = table.kineticEnergyMeV, n = t.length;
-  if (!(kineticMeV > 0)) return 0;
+  if (Number.isNaN(kineticMeV)) return NaN;
   if (kineticMeV <= t[0]) return 0;
   if (kineticMeV >= t[n - 1]) return variances[n - 1];
-  let i = Math.min(Math.max(Math.floor((Math.log(kineticMeV) - table.lnFrom) / table.step), 0), n - 2);
-  while (i > 0 && t[i] > kineticMeV) i--;
-  while (i < n - 2 && t[i + 1] <= kineticMeV) i++;
+  const i = cachedCellOf(table, kineticMeV);
   const u = (Math.log(kineticMeV) - Math.log(t[i])) / (Math.log(t[i + 1]) - Math.log(t[i]));
   return variances[i] + u * (variances[i + 1] - variances[i]);
 }

@@ -74,6 +74,23 @@ describe('stopConstraint: the range–energy measurement of a track known to sto
     expect(stopConstraint(lossModel(PROPANE, ELECTRON), sc, hits, 1e-9, 2, 0.3)).toBe(false);
     expect(Array.from(sc.stop)).toEqual([7, 7, 7]);
   });
+  it('needs two distinct hits: two hits make one; hits all at one point (no path, no range) or one hit make none', () => {
+    const model = lossModel(PROPANE, PROTON);
+    const two = { x: Float64Array.of(0, 0.005), y: new Float64Array(2), z: new Float64Array(2) };
+    const sc = matterFitScratch(2);
+    sc.kappa.fill(1);
+    expect(stopConstraint(model, sc, two, 1e-9, 2, 0)).toBe(true);
+    expect(sc.stop[0]).toBe(0);
+    expect(sc.stop[2]).toBeGreaterThan(0);
+    for (const n of [1, 5]) {
+      const same = { x: new Float64Array(n).fill(0.01), y: new Float64Array(n), z: new Float64Array(n) };
+      const s2 = matterFitScratch(n);
+      s2.kappa.fill(1);
+      s2.stop.fill(7);
+      expect(stopConstraint(model, s2, same, 1e-9, 2, 0), `${n} hit(s) at one point`).toBe(false);
+      expect(Array.from(s2.stop)).toEqual([7, 7, 7]);
+    }
+  });
 });
 
 describe('hitPathM: path along the hits with the chord excess of the hit errors removed', () => {
@@ -90,6 +107,27 @@ describe('hitPathM: path along the hits with the chord excess of the hit errors 
     expect(hitPathM({ x: twice(x), y: twice(y), z: twice(z), sigmaX: s4, sigmaY: s4, sigmaZ: s4 }, NaN, 0)).toBeCloseTo(hitPathM({ x, y, z, sigmaX: s4.subarray(1), sigmaY: s4.subarray(1), sigmaZ: s4.subarray(1) }, NaN, 0), 15);
     // From and to: the path of a stretch.
     expect(hitPathM({ x, y, z, sigmaX: sigma, sigmaY: sigma, sigmaZ: sigma }, NaN, 0, 3, 7)).toBeCloseTo(4 * Math.hypot(0.003, 0.004, 0.0025), 15);
+  });
+  it('per-axis hit errors: the excess removed is the variance across each chord, (V⊥ᵢ + V⊥ᵢ₊₁)/(2ℓ), V⊥ = Σ σ²(1 − u²) over the axes', () => {
+    // Two chords in general directions, each hit with its own σx, σy, σz (numbers chosen here).
+    const x = Float64Array.of(0, 0.003, 0.004), y = Float64Array.of(0, 0.004, 0.009), z = Float64Array.of(0, 0.0012, 0.0005);
+    const sx = Float64Array.of(1e-4, 2e-4, 3e-4), sy = Float64Array.of(4e-4, 1e-4, 2e-4), sz = Float64Array.of(3e-4, 5e-4, 1e-4);
+    let want = 0, wantPlanar = 0;
+    for (let i = 1; i < 3; i++) {
+      const d = [x[i] - x[i - 1], y[i] - y[i - 1], z[i] - z[i - 1]];
+      const l = Math.hypot(d[0], d[1], d[2]), u2 = d.map((c) => (c / l) ** 2);
+      const across = (j: number) => sx[j] ** 2 * (1 - u2[0]) + sy[j] ** 2 * (1 - u2[1]) + sz[j] ** 2 * (1 - u2[2]);
+      want += l - (across(i - 1) + across(i)) / (2 * l);
+      const lp = Math.hypot(d[0], d[1]), up = [(d[0] / lp) ** 2, (d[1] / lp) ** 2];
+      const acrossP = (j: number) => sx[j] ** 2 * (1 - up[0]) + sy[j] ** 2 * (1 - up[1]);
+      wantPlanar += lp - (acrossP(i - 1) + acrossP(i)) / (2 * lp);
+    }
+    expect(hitPathM({ x, y, z, sigmaX: sx, sigmaY: sy, sigmaZ: sz }, NaN, 0)).toBeCloseTo(want, 15);
+    expect(hitPathM({ x, y, sigmaX: sx, sigmaY: sy }, NaN, 0.2)).toBeCloseTo(wantPlanar * Math.sqrt(1.04), 15);
+    // Without error columns every axis takes hitErrorM; without sigmaY or sigmaZ they take sigmaX.
+    const e = 3e-4, ex = new Float64Array(3).fill(e);
+    expect(hitPathM({ x, y, z }, e, 0)).toBeCloseTo(hitPathM({ x, y, z, sigmaX: ex, sigmaY: ex, sigmaZ: ex }, NaN, 0), 16);
+    expect(hitPathM({ x, y, z, sigmaX: ex }, NaN, 0)).toBeCloseTo(hitPathM({ x, y, z }, e, 0), 16);
   });
   it('noisy hits (200 µm on 5 mm chords): the raw chord sum is 2σ²/ℓ long per chord, the corrected one is not', () => {
     const rng = seededRandom(3, 'hitPath');

@@ -2,7 +2,7 @@ import { beforeEach, describe, expect, it } from 'vitest';
 import { ALPHA, ELECTRON, PION_MINUS, PROTON, type Particle } from '../../lib/particles.js';
 import { consumeWarnings } from '../../lib/warnings.js';
 import {
-  cachedEnergyAt, cachedRange, cachedRangeAt, csdaRange, kineticEnergyFromRange, material, massStoppingPower, rangeCutoffMeV,
+  cachedCellOf, cachedEnergyAt, cachedRange, cachedRangeAt, csdaRange, kineticEnergyFromRange, material, massStoppingPower, rangeCutoffMeV,
   rangeLookup, rangeMaxMeV, type Material,
 } from '../../lib/matter/index.js';
 import { integrateRange, rangeBelowCutoff, rangeKinks } from '../../lib/matter/rangeIntegral.js';
@@ -139,6 +139,23 @@ describe('kinks, limits and the cached tables', () => {
       }
     }
     expect(checked).toBe(4 * 401);
+  });
+  it('cachedCellOf: T_i ≤ T < T_{i+1} at every node, just below and above it, and between; clamped at the ends', () => {
+    let checked = 0;
+    for (const [p, name] of [[PROTON, 'water'], [ALPHA, 'water'], [PION_MINUS, 'air']] as const) {
+      const c = cachedRange(p, material(name)), t = c.kineticEnergyMeV, n = t.length;
+      for (let i = 0; i < n - 1; i++) {
+        for (const T of [t[i], t[i] * (1 + 1e-15), Math.sqrt(t[i] * t[i + 1]), t[i + 1] * (1 - 1e-15)]) {
+          const k = cachedCellOf(c, T);
+          if (!(t[k] <= T && T < t[k + 1])) expect.fail(`${p.name} in ${name}: T = ${T} put in cell ${k} [${t[k]}, ${t[k + 1]})`);
+          checked++;
+        }
+      }
+      expect(cachedCellOf(c, t[0] / 10)).toBe(0);
+      expect(cachedCellOf(c, t[n - 1])).toBe(n - 2);
+      expect(cachedCellOf(c, t[n - 1] * 10)).toBe(n - 2);
+    }
+    expect(checked).toBeGreaterThan(3000);
   });
   it('cachedRangeAt / cachedEnergyAt at the ends: 0 at 0, the √T law under node 0, Infinity / the top energy beyond', () => {
     const c = cachedRange(PROTON, w);

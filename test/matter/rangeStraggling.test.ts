@@ -71,6 +71,7 @@ describe('rangeStragglingGcm2 (Bohr, with the relativistic factor, integrated ov
     const t1 = table.kineticEnergyMeV[100], t2 = table.kineticEnergyMeV[101], mid = Math.sqrt(t1 * t2);
     expect(varianceAtKinetic(table, v, mid)).toBeCloseTo((v[100] + v[101]) / 2, 12);
     expect(varianceAtKinetic(table, v, 1e9)).toBe(v[v.length - 1]);
+    expect([varianceAtKinetic(table, v, 0), varianceAtKinetic(table, v, -5), varianceAtKinetic(table, v, NaN)]).toEqual([0, 0, NaN]);
     expect(() => rangeStragglingVariances(cachedRange(ELECTRON, propane), ELECTRON, propane)).toThrow('particle = "electron" is not valid: expected a heavy charged particle (μ or heavier): the range of e± is not Gaussian');
     expect(() => rangeStragglingGcm2(PROTON, propane, -1)).toThrow('kineticMeV = -1 is not valid: expected a finite kinetic energy ≥ 0 in MeV');
     expect(() => rangeStragglingGcm2(PROTON, propane, NaN)).toThrow(/kineticMeV = NaN is not valid/);
