@@ -2,17 +2,23 @@ import { lnGamma } from './lnGamma.js';
 import { normalQuantile } from './normalQuantile.js';
 import { regularizedGammaP, regularizedGammaQ } from './regularizedGamma.js';
 
+/** The smallest normal double; below it a double keeps fewer digits. */
+const MIN_NORMAL = 2.2250738585072014e-308;
+
 /**
  * Quantile of the χ² distribution with `ndf` degrees of freedom: the x with P(χ²_ndf ≤ x) = p.
- * Works on the smaller tail T (the regularised gamma function P below the median side, Q above)
- * and solves ln T(x) = ln(tail probability) in u = ln x, so tails down to the smallest doubles keep
+ * Works on the smaller tail T (the regularised gamma function P below the median, Q above) and
+ * solves ln T(x) = ln(tail probability) in u = ln x, so tails down to the smallest doubles keep
  * their accuracy: Newton steps inside a bracket (a step that would leave it bisects instead),
  * from the Wilson–Hilferty cube-root approximation (E. B. Wilson & M. M. Hilferty, PNAS 17 (1931)
- * 684) and, in the lower tail, from the series' leading term P(a, y) ≈ yᵃ/Γ(a + 1) where that is
- * larger (it never exceeds the root, since P(a, y) ≤ yᵃ/Γ(a + 1)). Relative accuracy ~1e-12;
- * at most 10 evaluations of T from p = 1e-300 to 1 − 1e-9 for 0.5–1e5 d.o.f. (tested). ndf may be any positive real number.
- * NaN for ndf ≤ 0 or p outside [0, 1]; 0 at p = 0 and where the quantile underflows a double
- * (e.g. 1 d.o.f. at p = 1e-300, x ≈ 1.6e-600); Infinity at p = 1.
+ * 684), or from the series' leading term P(a, y) ≈ yᵃ/Γ(a + 1) where that is larger (it never
+ * exceeds the root, since P(a, y) ≤ yᵃ/Γ(a + 1)), or for very few d.o.f. in the upper tail from
+ * Q(a, y) ≈ a·e^(−y)/y. Relative accuracy ~1e-12 (at many d.o.f. that of P and Q themselves,
+ * ~1e-15·ndf); at most 10 evaluations of T from p = 1e-300 to 1 − 1e-9 for 0.5–1e5 d.o.f., at
+ * most 12 from 1e-3 to 1e6 d.o.f. (tested, the latter as a property). ndf may be any positive
+ * real number. NaN for ndf ≤ 0 or p outside [0, 1]; 0 at p = 0; a quantile below the smallest
+ * normal double is the series value, 0 where it underflows (1 d.o.f. at p = 1e-300: x ≈ 1.6e-600);
+ * Infinity at p = 1.
  * @example chi2Quantile(0.95, 1) // ≈ 3.841458821 (the 5 % critical value for 1 degree of freedom)
  */
 export function chi2Quantile(p: number, ndf: number): number {
@@ -34,29 +40,30 @@ export function chi2Quantile(p: number, ndf: number): number {
   };
   const h = 2 / (9 * ndf);
   const cube = 1 - h + normalQuantile(p) * Math.sqrt(h);
-  // Far in the lower tail the cube root goes negative: no start there (the series gives one).
-  let start = cube > 1e-3 ? Math.log(ndf) + 3 * Math.log(cube) : upper ? Math.log(ndf) : -Infinity;
-  let lo = -Infinity, hi = Infinity;
-  if (!upper) {
-    const series = Math.LN2 + (lnTarget + lnGamma(a + 1)) / a; // G(series) ≤ 0
-    if (Math.exp(series) === 0) return 0;
-    lo = series;
-    if (!(start > series)) start = series;
-  }
+  // The series bound holds in both tails (P there is at most p): the root is not below it, and
+  // where it is subnormal or underflows, it is the root (x that small makes the bound exact).
+  const series = Math.LN2 + (Math.log(p) + lnGamma(a + 1)) / a;
+  if (Math.exp(series) < MIN_NORMAL) return Math.exp(series);
+  let lo = series, hi = Infinity, previous = Infinity;
+  // Where the cube root goes negative (far lower tail, or very few d.o.f.) it gives no start; in
+  // the upper tail of very few d.o.f. Q(a, y) ≈ a·E₁(y) ≈ a·e^(−y)/y does (y ≈ ln a − ln Q).
+  let start = cube > 1e-3 ? Math.log(ndf) + 3 * Math.log(cube) : -Infinity;
+  if (upper && !(cube > 1e-3) && Math.log(a) - lnTarget > 1) start = Math.log(2 * (Math.log(a) - lnTarget));
+  if (!(start > series)) start = series;
   evaluate(start);
   for (let it = 0; it < 200; it++) {
     if (G === 0) return Math.exp(u);
     if (G < 0) lo = u; else hi = u;
     const step = G / slope, tol = 1e-15 * Math.max(1, Math.abs(u));
-    if (Math.abs(step) <= tol) return Math.exp(u - step);
+    // Done at the tolerance, or where the steps stop shrinking (many d.o.f.: T itself is then only
+    // good to ~1e-16 of its exponent a·ln y, and that noise sets the steps).
+    if (Math.abs(step) <= tol || (Math.abs(step) < 1e-9 * Math.max(1, Math.abs(u)) && Math.abs(step) >= 0.5 * Math.abs(previous))) return Math.exp(u - step);
+    previous = step;
     let next = u - step;
-    if (!(next > lo && next < hi)) {
-      // Newton left the bracket (or T underflowed): bisect it, or walk out by e-folds of x
-      // towards its open side.
-      next = Number.isFinite(lo) && Number.isFinite(hi) ? 0.5 * (lo + hi) : Number.isFinite(hi) ? u - 1 : u + 1;
-    } else if (!Number.isFinite(lo) || !Number.isFinite(hi)) {
-      next = u - Math.max(-30, Math.min(30, step)); // at most 30 e-folds a step towards an open side
-    }
+    // Newton left the bracket (or T underflowed): bisect it, or step an e-fold of x towards its
+    // open side. (Never reached in 20 000 random cases, 1e-3–1e6 d.o.f., p from 1e-300 to 1 − 3e-16;
+    // without the bracket test, tiny d.o.f. in the upper tail went to NaN.)
+    if (!(next > lo && next < hi)) next = Number.isFinite(lo) && Number.isFinite(hi) ? 0.5 * (lo + hi) : Number.isFinite(hi) ? u - 1 : u + 1;
     if (hi - lo <= tol) return Math.exp(next);
     evaluate(next);
   }

@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it, vi } from 'vitest';
 
 // Counts the evaluations of the regularised gamma function a quantile takes: the doc comment of
@@ -40,5 +41,17 @@ describe('chi2Quantile: few steps, any tail', () => {
       checked++;
     }
     expect(checked).toBe(17); // 20 less three that underflow (0.001 d.o.f. at 1e-5 and 0.3, 0.01 at 1e-5)
+  });
+  it('property: for any d.o.f. in 1e-3–1e6 and any p in either tail (1e-300 … 1 − 3e-16), the quantile inverts the gamma function to 1e-10 + 2e-15·ndf or underflows to 0, in at most 12 evaluations', () => {
+    fc.assert(fc.property(fc.double({ min: -3, max: 6, noNaN: true }), fc.double({ min: -300, max: -0.31, noNaN: true }), fc.boolean(), (lgNdf, lgTail, upperTail) => {
+      const ndf = 10 ** lgNdf, tail = 10 ** (upperTail ? Math.max(lgTail, -15.5) : lgTail), p = upperTail ? 1 - tail : tail;
+      calls.n = 0;
+      const x = chi2Quantile(p, ndf);
+      if (calls.n > 12) return false;
+      if (x === 0 || (x > 0 && x < 1e-300)) return !upperTail || ndf < 0.1; // underflow: lower tail, or an upper tail of tiny d.o.f.
+      const back = upperTail ? regularizedGammaQ(ndf / 2, x / 2) / (1 - p) : regularizedGammaP(ndf / 2, x / 2) / p;
+      // P and Q themselves carry ~1e-16 of their exponent a·ln y: 2e-15·ndf covers it at many d.o.f.
+      return Math.abs(back - 1) < 1e-10 + 2e-15 * ndf;
+    }), { numRuns: 3000, seed: 20261204 });
   });
 });
