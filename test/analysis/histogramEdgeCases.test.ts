@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { Histogram } from '../../lib/analysis/index.js';
+import { Histogram, Histogram2D } from '../../lib/analysis/index.js';
 import { msg } from '../../lib/errors.js';
 
 // Exact bookkeeping of one histogram fill, worked out by hand for each value (definitions of the
@@ -48,5 +48,27 @@ describe('Histogram: every value accounted for', () => {
     const h = new Histogram({ bins: 3, range: [0.1, 0.7] });
     expect(Array.from(h.edges)).toEqual([0.1, 0.1 + 0.6 / 3, 0.1 + (0.6 * 2) / 3, 0.7]);
     expect(Array.from(h.widths()).map((w) => Number(w.toFixed(12)))).toEqual([0.2, 0.2, 0.2]);
+  });
+});
+
+describe('Histogram2D: every pair accounted for', () => {
+  const binning = { x: { bins: 2, range: [0, 2] as const }, y: { edges: [0, 1, 3] } };
+  it('weighted pairs: Σw and Σw² per cell (row-major by y), outside as a sum of weights per side, non-finite pairs and weights counted', () => {
+    const x = [0.5, 1.5, 1.5, -1, 2, 0.5, 0.5, NaN, 0.5];
+    const y = [0.5, 2, 2, 0.5, 0.5, -1, 3, 0.5, 0.5];
+    const w = [2, 3, 4, 5, 6, 7, 8, 9, Infinity];
+    const h = new Histogram2D(binning).fill(x, y, w);
+    expect([h.xBins, h.yBins]).toEqual([2, 2]);
+    expect(Array.from(h.sumW)).toEqual([2, 0, 0, 7]);
+    expect(Array.from(h.sumW2)).toEqual([4, 0, 0, 25]);
+    expect([h.at(0, 0), h.at(1, 1), h.outside, h.nonFinite, h.entries]).toEqual([2, 7, 5 + 6 + 7 + 8, 2, 3]);
+    const c = new Histogram2D(binning).fill([0.5, 1.5], [2, 2], 3).fill([1.5], [0.2]);
+    expect(Array.from(c.sumW)).toEqual([0, 1, 3, 3]);
+    expect(Array.from(c.sumW2)).toEqual([0, 1, 9, 9]);
+  });
+  it('refuses unequal coordinate lists and weights, with the catalogue messages', () => {
+    const h = new Histogram2D(binning);
+    expect(() => h.fill([1, 2], [1])).toThrow(msg.badArgument('y', '1 values', 'as many values as x (2)').message);
+    expect(() => h.fill([1, 2], [1, 2], [1])).toThrow(msg.badArgument('weights', '1 weights', 'one weight per pair (2)').message);
   });
 });
