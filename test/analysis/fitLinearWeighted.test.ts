@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitLinear } from '../../lib/analysis/index.js';
+import { fitLinear, fitStraightLine } from '../../lib/analysis/index.js';
 import { msg } from '../../lib/errors.js';
 
 // Weighted straight-line least squares against the closed form (common practice; e.g. Bevington &
@@ -60,5 +60,19 @@ describe('fitLinear with errors on y', () => {
     }
     // A bad σ on a row left out for its non-finite value is not looked at.
     expect(fitLinear({ columns: [[1, 2, 3]], y: [1, NaN, 3], sigma: [1, 0, 1] }).excluded).toBe(1);
+  });
+});
+
+describe('fitStraightLine without errors on x', () => {
+  it('is the weighted linear fit, with its parameters named intercept and slope (or slope alone through the origin)', () => {
+    const x = [0, 1, 2, 3, 4], y = [1.1, 2.9, 5.2, 6.8, 9.3], s = [0.1, 0.2, 0.1, 0.4, 0.2];
+    const line = fitStraightLine({ x, y, sigma: s });
+    const c = closedForm(x, y, s);
+    expect(line.names).toEqual(['intercept', 'slope']);
+    expect(line.parameters.slope.value).toBeCloseTo(c.b, 12);
+    expect(line.parameters.intercept.error).toBeCloseTo(Math.sqrt(c.va), 12);
+    const origin = fitStraightLine({ x: [1, 2, 3], y: [2.1, 3.9, 6.2], sigma: 0.1 }, { throughOrigin: true });
+    expect(origin.names).toEqual(['slope']);
+    expect(origin.values[0]).toBeCloseTo((2.1 + 7.8 + 18.6) / 14, 12);
   });
 });
