@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { binCounts, propagateErrors, weightedMean } from '../../lib/analysis/index.js';
+import { binCounts, propagateErrors, regularizedGammaP, regularizedGammaQ, weightedMean } from '../../lib/analysis/index.js';
 import { msg } from '../../lib/errors.js';
 
 // Small numerical helpers against answers worked out here by hand from their definitions, and
@@ -78,5 +78,29 @@ describe('propagateErrors: shapes of input and output', () => {
     expect(() => propagateErrors((p) => p[0], [1, 2], { errors: [1] })).toThrow(refusal('errors', '1 errors', 'one error per value (2)'));
     expect(() => propagateErrors((p) => p[0], [1, 2], { covariance: [[1, 0]] })).toThrow(refusal('covariance', '1 rows', 'a 2×2 matrix'));
     expect(() => propagateErrors((p) => p[0], [1, 2], { covariance: [[1, 0], [0]] })).toThrow(refusal('covariance', '2 rows', 'a 2×2 matrix'));
+  });
+});
+
+describe('regularizedGammaP / Q against the closed forms for integer a (common practice: Q(n, x) = e^(−x) Σ_{k<n} x^k/k!)', () => {
+  const q = (n: number, x: number) => { let s = 0, t = 1; for (let k = 0; k < n; k++) { s += t; t *= x / (k + 1); } return Math.exp(-x) * s; };
+  it('on both sides of the switch at x = a + 1, far into the upper tail, and far into the lower one', () => {
+    let checked = 0;
+    for (const n of [1, 2, 3, 7]) for (const x of [1e-8, 0.3, n, n + 0.999, n + 1, n + 1.001, 12, 50, 300, 700]) {
+      const Q = q(n, x), P = 1 - Q;
+      expect(Math.abs(regularizedGammaQ(n, x) / Q - 1), `Q(${n}, ${x})`).toBeLessThan(1e-12);
+      expect(Math.abs(regularizedGammaP(n, x) - P), `P(${n}, ${x})`).toBeLessThan(1e-14); // the doc comment claims ~1e-14
+      checked++;
+    }
+    expect(checked).toBe(40);
+    // Lower tail of P for a = 1: 1 − e^(−x) = −expm1(−x), relative.
+    expect(regularizedGammaP(1, 1e-10) / -Math.expm1(-1e-10) - 1).toBeLessThan(1e-14);
+    expect(regularizedGammaP(1, 800)).toBe(1);
+  });
+  it('ends and refusals: P(a, 0) = 0, Q(a, 0) = 1, P(a, ∞) = 1, Q(a, ∞) = 0, NaN for a ≤ 0, x < 0 or NaN', () => {
+    expect([regularizedGammaP(2, 0), regularizedGammaQ(2, 0), regularizedGammaP(2, Infinity), regularizedGammaQ(2, Infinity)]).toEqual([0, 1, 1, 0]);
+    for (const [a, x] of [[0, 1], [-1, 1], [1, -1], [NaN, 1], [1, NaN]]) {
+      expect(regularizedGammaP(a, x)).toBeNaN();
+      expect(regularizedGammaQ(a, x)).toBeNaN();
+    }
   });
 });
