@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { msg } from '../../lib/errors.js';
 import { breitWigner, exponential, gaussian, michelSpectrum, polynomial, sumShapes, voigt, type Shape } from '../../lib/analysis/index.js';
 
 // Every shape's exact bin integral against a numerical integral of its own value (composite
@@ -21,7 +22,7 @@ const at = (p: number[]) => Float64Array.from([7, -7, 7, ...p, 9]);
 
 const cases: [string, Shape, number[], [number, number][]][] = [
   ['gaussian', gaussian(), [120, 1.5, 0.4], [[1.0, 1.2], [1.4, 1.7], [1.9, 2.3], [-1, 0], [3.5, 4], [-10, 10]]],
-  ['Breit–Wigner', breitWigner(), [80, 0.9, 0.15], [[0.8, 0.85], [0.85, 1.0], [1.2, 2], [-3, 0]]],
+  ['Breit–Wigner', breitWigner(), [80, 0.9, 0.15], [[0.8, 0.85], [0.85, 1.0], [1.2, 2], [-3, 0], [400, 401], [-401, -400]]],
   ['exponential (origin 2)', exponential({ origin: 2 }), [5, -0.7], [[2, 3], [0, 1], [4, 9]]],
   ['polynomial of degree 2 (origin 1)', polynomial(2, { origin: 1 }), [3, -2, 0.5], [[0, 1], [1, 4], [-2, 0.5]]],
   ['Michel spectrum', michelSpectrum(), [1000, 52.83], [[0, 10], [20, 40], [45, 52.83], [50, 60], [-5, 0], [60, 70]]],
@@ -63,5 +64,15 @@ describe('shapes: exact bin integrals and their parameter offsets', () => {
     expect(voigt().value(0, [1, 0, 1, 0])).toBeCloseTo(1 / Math.sqrt(2 * Math.PI), 13);
     expect(voigt().integral).toBeUndefined();
     expect(sumShapes({ a: gaussian(), b: voigt() }).integral).toBeUndefined();
+  });
+  it('names and parameter names as documented; polynomial degrees 0–20 only', () => {
+    expect([gaussian().name, breitWigner().name, voigt().name, michelSpectrum().name, polynomial(2).name]).toEqual(['gaussian', 'Breit–Wigner', 'Voigt', 'Michel spectrum', 'polynomial of degree 2']);
+    expect([breitWigner().parameters, polynomial(2).parameters, exponential().parameters]).toEqual([['area', 'peak', 'width'], ['c0', 'c1', 'c2'], ['norm', 'slope']]);
+    expect(sumShapes({ peak: gaussian(), flat: polynomial(0) }).parameters).toEqual(['peak.area', 'peak.mean', 'peak.sigma', 'flat.c0']);
+    expect(polynomial(0).parameters).toEqual(['c0']);
+    expect(polynomial(20).parameters.length).toBe(21);
+    for (const d of [-1, 1.5, 21, NaN]) expect(() => polynomial(d)).toThrow(msg.badArgument('degree', d, 'a whole number from 0 to 20').message);
+    // A zero width is refused by the integral too (the peak inside the bin would otherwise give the whole area).
+    expect(breitWigner().integral!(0, 1, [1, 0.5, 0])).toBeNaN();
   });
 });
