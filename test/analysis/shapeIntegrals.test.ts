@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { msg } from '../../lib/errors.js';
-import { breitWigner, exponential, gaussian, michelSpectrum, polynomial, sumShapes, voigt, type Shape } from '../../lib/analysis/index.js';
+import { breitWigner, customShape, exponential, gaussian, isShape, michelSpectrum, polynomial, sumShapes, voigt, type Shape } from '../../lib/analysis/index.js';
 
 // Every shape's exact bin integral against a numerical integral of its own value (composite
 // Gauss–Legendre, 5 points on 400 panels, written here: exact to rounding for these smooth
@@ -21,7 +21,7 @@ const AT = 3; // the shape's parameters start at index 3 of the vector
 const at = (p: number[]) => Float64Array.from([7, -7, 7, ...p, 9]);
 
 const cases: [string, Shape, number[], [number, number][]][] = [
-  ['gaussian', gaussian(), [120, 1.5, 0.4], [[1.0, 1.2], [1.4, 1.7], [1.9, 2.3], [-1, 0], [3.5, 4], [-10, 10]]],
+  ['gaussian', gaussian(), [120, 1.5, 0.4], [[1.0, 1.2], [1.4, 1.7], [1.9, 2.3], [-1, 0], [3.5, 4], [-10, 10], [-2, -1.8], [4.8, 5.2]]],
   ['Breit–Wigner', breitWigner(), [80, 0.9, 0.15], [[0.8, 0.85], [0.85, 1.0], [1.2, 2], [-3, 0], [400, 401], [-401, -400]]],
   ['exponential (origin 2)', exponential({ origin: 2 }), [5, -0.7], [[2, 3], [0, 1], [4, 9]]],
   ['polynomial of degree 2 (origin 1)', polynomial(2, { origin: 1 }), [3, -2, 0.5], [[0, 1], [1, 4], [-2, 0.5]]],
@@ -74,5 +74,16 @@ describe('shapes: exact bin integrals and their parameter offsets', () => {
     for (const d of [-1, 1.5, 21, NaN]) expect(() => polynomial(d)).toThrow(msg.badArgument('degree', d, 'a whole number from 0 to 20').message);
     // A zero width is refused by the integral too (the peak inside the bin would otherwise give the whole area).
     expect(breitWigner().integral!(0, 1, [1, 0.5, 0])).toBeNaN();
+  });
+  it('isShape tells shapes from plain functions; customShape keeps an integral only when given; a sum names its parts; a flat exponential integrates to norm × width', () => {
+    const f = (x: number) => x;
+    expect([isShape(gaussian()), isShape(f as never), isShape({ value: f, parameters: [] } as never), isShape({ value: 1, parameters: [] } as never), isShape({ value: f, parameters: 'ab' } as never), isShape(null as never)]).toEqual([true, false, true, false, false, false]);
+    const plain = customShape('line', ['k'], (x, p, at = 0) => p[at] * x);
+    const exact = customShape('line', ['k'], (x, p, at = 0) => p[at] * x, (a, b, p, at = 0) => 0.5 * p[at] * (b * b - a * a));
+    expect(['integral' in plain, exact.integral!(0, 2, [3]), plain.name, plain.parameters]).toEqual([false, 6, 'line', ['k']]);
+    expect(sumShapes({ peak: gaussian(), flat: polynomial(0) }).name).toBe('peak: gaussian + flat: polynomial of degree 0');
+    expect(() => sumShapes({})).toThrow(msg.badArgument('parts', {}, 'at least one named shape, e.g. { peak: gaussian(), background: exponential() }').message);
+    expect(exponential().name).toBe('exponential');
+    expect(exponential({ origin: 2 }).integral!(3, 4.5, [5, 0])).toBeCloseTo(7.5, 13);
   });
 });
